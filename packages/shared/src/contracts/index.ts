@@ -1,1 +1,2 @@
-export {};
+export * from './errors.ts';
+export * from './session.ts';
