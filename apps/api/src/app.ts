@@ -1,0 +1,77 @@
+import path from 'node:path';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import { randomUUID } from 'node:crypto';
+import type pg from 'pg';
+import { configurePassport } from './auth/passport.ts';
+import { sessionMiddleware } from './auth/session.ts';
+import type { AppContext } from './context.ts';
+import { errorHandler, notFoundHandler } from './errors/index.ts';
+import { csrfProtection } from './middleware/csrf.ts';
+import { guildRoutes } from './modules/guild/guild.routes.ts';
+import { healthRoutes } from './modules/health/health.routes.ts';
+import { membersRoutes } from './modules/members/members.routes.ts';
+import { sessionRoutes } from './modules/session/session.routes.ts';
+
+/** Builds the HTTP app without listening, so tests drive it with supertest and server.ts serves it. */
+export function createApp(ctx: AppContext, pool: pg.Pool): Express {
+  const app = express();
+  if (ctx.config.trustProxy) app.set('trust proxy', ctx.config.trustProxy);
+  app.disable('x-powered-by');
+
+  app.use(
+    pinoHttp({
+      logger: ctx.logger,
+      genReqId: (req, res) => {
+        const id = (req.headers['x-request-id'] as string | undefined) ?? randomUUID();
+        res.setHeader('X-Request-Id', id);
+        return id;
+      },
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+    }),
+  );
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          scriptSrc: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+          upgradeInsecureRequests: ctx.config.env === 'production' ? [] : null,
+        },
+      },
+      hsts: ctx.config.env === 'production',
+    }),
+  );
+
+  const api = express.Router();
+  api.use(healthRoutes(ctx));
+  api.use(express.json({ limit: '100kb', strict: true }));
+  api.use(sessionMiddleware(ctx.config, pool));
+  const passport = configurePassport();
+  api.use(passport.initialize());
+  api.use(passport.session());
+  api.use(csrfProtection(['/stripe/webhook']));
+  api.use(sessionRoutes(ctx, pool));
+  api.use(membersRoutes(ctx));
+  api.use(guildRoutes());
+  api.use(notFoundHandler);
+  app.use('/api', api);
+
+  if (ctx.config.webDist) {
+    const dist = path.resolve(ctx.config.webDist);
+    app.use(express.static(dist, { index: false, maxAge: '1y', immutable: true, setHeaders: noCacheForHtml }));
+    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(path.join(dist, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } }));
+  }
+
+  app.use(errorHandler);
+  return app;
+}
+
+function noCacheForHtml(res: express.Response, file: string) {
+  if (file.endsWith('.html')) res.setHeader('Cache-Control', 'no-cache');
+}

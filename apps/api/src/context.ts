@@ -1,0 +1,13 @@
+import type { Sequelize } from 'sequelize';
+import type { Logger } from 'pino';
+import type { Config } from './config/index.ts';
+import type { JobQueue } from './jobs/queue.ts';
+
+/** What services need from the outside world, passed explicitly rather than imported as singletons. */
+export interface AppContext {
+  config: Config;
+  sequelize: Sequelize;
+  queue: JobQueue;
+  logger: Logger;
+  now: () => Date;
+}

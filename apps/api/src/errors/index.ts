@@ -1,0 +1,2 @@
+export * from './app-error.ts';
+export { errorHandler, notFoundHandler } from './handler.ts';

@@ -1,0 +1,59 @@
+import PgBoss from 'pg-boss';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import type { Logger } from 'pino';
+import type { Mailer, OutgoingMail } from '../integrations/mailer.ts';
+
+export const EMAIL_QUEUE = 'email-send';
+
+/** Mail retries back off from 5 s up to about 40 minutes in all: a mail server that is down delays mail, never loses it. */
+const EMAIL_RETRY = { retryLimit: 12, retryDelay: 5, retryBackoff: true } as const;
+
+export interface JobQueue {
+  boss: PgBoss;
+  /** Queues an e-mail; pass the transaction so the mail is queued only if the change it reports commits. */
+  enqueueEmail(mail: OutgoingMail, transaction?: Transaction): Promise<void>;
+  startWorkers(): Promise<void>;
+  stop(): Promise<void>;
+}
+
+function transactionDb(sequelize: Sequelize, transaction: Transaction): PgBoss.Db {
+  return {
+    async executeSql(text, values) {
+      const rows = await sequelize.query(text, { bind: values, transaction, type: QueryTypes.SELECT, raw: true });
+      return { rows };
+    },
+  };
+}
+
+export async function createJobQueue(opts: {
+  databaseUrl: string;
+  sequelize: Sequelize;
+  mailer: Mailer;
+  logger: Logger;
+  pollingIntervalSeconds?: number;
+}): Promise<JobQueue> {
+  const boss = new PgBoss({ connectionString: opts.databaseUrl, max: 4, application_name: 'scrap-relay-jobs' });
+  boss.on('error', (err) => opts.logger.error({ err }, 'job queue error'));
+  await boss.start();
+  await boss.createQueue(EMAIL_QUEUE, { name: EMAIL_QUEUE, ...EMAIL_RETRY });
+
+  return {
+    boss,
+    async enqueueEmail(mail, transaction) {
+      const options: PgBoss.SendOptions = { ...EMAIL_RETRY };
+      if (transaction) options.db = transactionDb(opts.sequelize, transaction);
+      await boss.send(EMAIL_QUEUE, mail, options);
+    },
+    async startWorkers() {
+      await boss.work<OutgoingMail>(EMAIL_QUEUE, { pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 2 }, async (jobs) => {
+        for (const job of jobs) {
+          await opts.mailer.send(job.data);
+          opts.logger.info({ to: job.data.to, subject: job.data.subject }, 'e-mail sent');
+        }
+      });
+    },
+    async stop() {
+      await boss.stop({ graceful: true, timeout: 5_000 });
+    },
+  };
+}

@@ -1,0 +1,52 @@
+import pg from 'pg';
+import { pino, type Logger } from 'pino';
+import type { Express } from 'express';
+import type { Config } from './config/index.ts';
+import type { AppContext } from './context.ts';
+import { createApp } from './app.ts';
+import { initModels } from './db/models/index.ts';
+import { createSequelize } from './db/sequelize.ts';
+import { createMailer } from './integrations/mailer.ts';
+import { createJobQueue } from './jobs/queue.ts';
+
+export interface Runtime {
+  app: Express;
+  ctx: AppContext;
+  pool: pg.Pool;
+  close(): Promise<void>;
+}
+
+/** Wires config, database, job queue and app together; server.ts and the integration tests both start here. */
+export async function createRuntime(
+  config: Config,
+  options: { logger?: Logger; now?: () => Date; workers?: boolean; pollingIntervalSeconds?: number } = {},
+): Promise<Runtime> {
+  const logger = options.logger ?? pino({ level: config.logLevel });
+  const sequelize = createSequelize(config.databaseUrl);
+  initModels(sequelize);
+  const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 5, application_name: 'scrap-relay-sessions' });
+  pool.on('error', (err) => logger.error({ err }, 'session pool error'));
+  const mailer = createMailer(config.smtp);
+  const queue = await createJobQueue({
+    databaseUrl: config.databaseUrl,
+    sequelize,
+    mailer,
+    logger,
+    pollingIntervalSeconds: options.pollingIntervalSeconds,
+  });
+  const ctx: AppContext = { config, sequelize, queue, logger, now: options.now ?? (() => new Date()) };
+  if (options.workers !== false) await queue.startWorkers();
+  const app = createApp(ctx, pool);
+
+  return {
+    app,
+    ctx,
+    pool,
+    async close() {
+      await queue.stop();
+      mailer.close();
+      await pool.end();
+      await sequelize.close();
+    },
+  };
+}
