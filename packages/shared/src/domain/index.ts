@@ -1,1 +1,9 @@
-export {};
+export * from './units.ts';
+export * from './fibres.ts';
+export * from './yield.ts';
+export * from './cut-plan.ts';
+export * from './binding.ts';
+export * from './postage.ts';
+export * from './money.ts';
+export * from './colour.ts';
+export * from './claims.ts';

@@ -1,0 +1,198 @@
+/**
+ * The product's fixed vocabularies (PRODUCT.md): fibres, cut kinds, colour value and
+ * family, offers, fulfilments, bundle and order states. Plain const arrays and unions, so
+ * schemas, the API and the web app all spell them the same way without pulling in zod.
+ */
+
+export const FIBRES = [
+  'quilting_cotton',
+  'batik',
+  'flannel',
+  'linen',
+  'lawn_voile',
+  'wool',
+  'knit',
+  'mixed_unknown',
+] as const;
+export type Fibre = (typeof FIBRES)[number];
+
+export const FIBRE_LABELS: Readonly<Record<Fibre, string>> = {
+  quilting_cotton: 'Quilting cotton',
+  batik: 'Batik',
+  flannel: 'Flannel',
+  linen: 'Linen or linen blend',
+  lawn_voile: 'Lawn / voile',
+  wool: 'Wool',
+  knit: 'Knit',
+  mixed_unknown: 'Mixed / unknown',
+};
+
+/**
+ * Typical fabric weight in g/m², the divisor of the yield estimate.
+ * Cotton 140, batik 140 and flannel 185 are the CHECKS.md defaults (common practice;
+ * flannel from memory). The rest are from memory, mid-range of what makers list:
+ * linen and blends 150–200, lawn and voile 60–90, wool for appliqué and quilting 250–350,
+ * cotton jersey knits 150–220. Mixed/unknown assumes quilting cotton, the usual bag.
+ */
+export const FIBRE_TYPICAL_GSM: Readonly<Record<Fibre, number>> = {
+  quilting_cotton: 140,
+  batik: 140,
+  flannel: 185,
+  linen: 175,
+  lawn_voile: 75,
+  wool: 300,
+  knit: 180,
+  mixed_unknown: 140,
+};
+
+export const CUT_KINDS = [
+  'strips',
+  'squares',
+  'fat_quarters',
+  'fat_eighths',
+  'yardage',
+  'improv',
+  'selvages',
+  'orphan_blocks',
+  'epp_shapes',
+  'binding',
+  'batting',
+] as const;
+export type CutKind = (typeof CUT_KINDS)[number];
+
+export const CUT_KIND_LABELS: Readonly<Record<CutKind, string>> = {
+  strips: 'Strips (by width)',
+  squares: 'Squares (by size)',
+  fat_quarters: 'Fat quarters',
+  fat_eighths: 'Fat eighths',
+  yardage: 'Yardage remnants',
+  improv: 'Irregular pieces for improv',
+  selvages: 'Selvages',
+  orphan_blocks: 'Orphan blocks',
+  epp_shapes: 'English paper piecing shapes',
+  binding: 'Pre-joined binding',
+  batting: 'Batting offcuts',
+};
+
+export const COLOUR_VALUES = ['light', 'medium', 'dark', 'mixed'] as const;
+export type ColourValue = (typeof COLOUR_VALUES)[number];
+
+export const COLOUR_VALUE_LABELS: Readonly<Record<ColourValue, string>> = {
+  light: 'Light',
+  medium: 'Medium',
+  dark: 'Dark',
+  mixed: 'Mixed values',
+};
+
+export const COLOUR_FAMILIES = ['warm', 'cool', 'neutral', 'black_white', 'multi'] as const;
+export type ColourFamily = (typeof COLOUR_FAMILIES)[number];
+
+export const COLOUR_FAMILY_LABELS: Readonly<Record<ColourFamily, string>> = {
+  warm: 'Warm',
+  cool: 'Cool',
+  neutral: 'Neutral',
+  black_white: 'Black and white',
+  multi: 'Multicoloured',
+};
+
+export const OFFERS = ['sale', 'postage_only', 'meeting', 'starter'] as const;
+export type Offer = (typeof OFFERS)[number];
+
+export const OFFER_LABELS: Readonly<Record<Offer, string>> = {
+  sale: 'For sale',
+  postage_only: 'Free, buyer pays postage',
+  meeting: 'Free, at a guild meeting',
+  starter: 'Starter bundle',
+};
+
+export const FULFILMENTS = ['post', 'meeting'] as const;
+export type Fulfilment = (typeof FULFILMENTS)[number];
+
+export const BUNDLE_STATES = [
+  'draft',
+  'in_review',
+  'on_shelf',
+  'held',
+  'rehomed',
+  'returned',
+  'withdrawn',
+  'expired',
+] as const;
+export type BundleState = (typeof BUNDLE_STATES)[number];
+
+export const BUNDLE_STATE_LABELS: Readonly<Record<BundleState, string>> = {
+  draft: 'Draft',
+  in_review: 'Waiting for review',
+  on_shelf: 'On the shelf',
+  held: 'Held at checkout',
+  rehomed: 'Rehomed',
+  returned: 'Returned with notes',
+  withdrawn: 'Withdrawn',
+  expired: 'Expired',
+};
+
+/**
+ * Allowed bundle moves (design choice). Besides the main line draft → in_review →
+ * on_shelf → held → rehomed:
+ * - returned and expired bundles are edited and resubmitted to review; a withdrawn one
+ *   can be revived as a draft;
+ * - the librarian may return a bundle that is already on the shelf;
+ * - held → on_shelf releases an unpaid checkout or a lapsed/declined starter offer;
+ * - on_shelf → rehomed covers claims and free orders with nothing to pay;
+ * - rehomed → on_shelf puts a bundle back when its order is cancelled or refunded.
+ */
+export const BUNDLE_TRANSITIONS: Readonly<Record<BundleState, readonly BundleState[]>> = {
+  draft: ['in_review', 'withdrawn'],
+  in_review: ['on_shelf', 'returned', 'withdrawn'],
+  on_shelf: ['held', 'rehomed', 'returned', 'withdrawn', 'expired'],
+  held: ['on_shelf', 'rehomed'],
+  rehomed: ['on_shelf'],
+  returned: ['in_review', 'withdrawn'],
+  withdrawn: ['draft'],
+  expired: ['in_review', 'withdrawn'],
+};
+
+/** Whether a bundle may move from one state to another (never to itself). */
+export function canTransition(from: BundleState, to: BundleState): boolean {
+  return BUNDLE_TRANSITIONS[from].includes(to);
+}
+
+export const ORDER_STATES = [
+  'awaiting_payment',
+  'confirmed',
+  'posted',
+  'received',
+  'handed_over',
+  'cancelled',
+  'refunded',
+] as const;
+export type OrderState = (typeof ORDER_STATES)[number];
+
+export const ORDER_STATE_LABELS: Readonly<Record<OrderState, string>> = {
+  awaiting_payment: 'Awaiting payment',
+  confirmed: 'Confirmed',
+  posted: 'Posted',
+  received: 'Received',
+  handed_over: 'Handed over',
+  cancelled: 'Cancelled',
+  refunded: 'Refunded',
+};
+
+/**
+ * Allowed order moves (design choice): cancel before anything was paid or sent; once
+ * money has moved, undoing is a refund; cancelled and refunded are final.
+ */
+export const ORDER_TRANSITIONS: Readonly<Record<OrderState, readonly OrderState[]>> = {
+  awaiting_payment: ['confirmed', 'cancelled'],
+  confirmed: ['posted', 'handed_over', 'cancelled', 'refunded'],
+  posted: ['received', 'refunded'],
+  received: ['refunded'],
+  handed_over: ['refunded'],
+  cancelled: [],
+  refunded: [],
+};
+
+/** Whether an order may move from one state to another. */
+export function canOrderTransition(from: OrderState, to: OrderState): boolean {
+  return ORDER_TRANSITIONS[from].includes(to);
+}

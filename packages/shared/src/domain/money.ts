@@ -1,0 +1,194 @@
+/**
+ * Money: integer minor units (cents) throughout.
+ *
+ * The one rounding rule: a computed amount is rounded half up to a whole minor unit
+ * (64.5¢ → 65¢). For a negative amount the magnitude is rounded the same way and the sign
+ * put back (−64.5¢ → −65¢), so a reversal is always the exact negative of the original.
+ * Each fee is rounded once, on the order's total, never per line.
+ *
+ * Ledger: simple double entry. Every transaction's entries sum to zero. Accounts:
+ *   buyer       money paid in by buyers (negative: it left them)
+ *   seller:<id> what the guild owes that seller (positive: owed)
+ *   guild       the guild's own income
+ *   processor   what the card processor took
+ *   payouts     money the treasurer has paid out to sellers
+ */
+
+/** numerator ÷ denominator for integers, rounded by the rule above. */
+export function divideRoundHalfUp(numerator: number, denominator: number): number {
+  if (!Number.isSafeInteger(numerator) || !Number.isSafeInteger(denominator) || denominator <= 0) {
+    throw new RangeError(`Bad division ${numerator} / ${denominator}`);
+  }
+  const magnitude = Math.floor((2 * Math.abs(numerator) + denominator) / (2 * denominator));
+  return numerator < 0 ? -magnitude : magnitude;
+}
+
+const BASIS_POINTS = 10_000;
+
+function assertMinor(name: string, value: number): void {
+  if (!Number.isSafeInteger(value)) throw new RangeError(`${name} must be whole minor units, got ${value}`);
+}
+
+/** The guild's fee on a sale price, in basis points (1000 = 10 %). */
+export function guildFee(priceMinor: number, basisPoints: number): number {
+  assertMinor('priceMinor', priceMinor);
+  assertMinor('basisPoints', basisPoints);
+  return divideRoundHalfUp(priceMinor * basisPoints, BASIS_POINTS);
+}
+
+/** Card processing defaults: 2.9 % + 30¢ (processor's published US price list, 2026). */
+export const DEFAULT_PROCESSING = { percentBasisPoints: 290, fixedMinor: 30 } as const;
+
+export interface ProcessingRate {
+  percentBasisPoints: number;
+  fixedMinor: number;
+}
+
+/**
+ * Estimated processor fee on one card charge: percent + fixed, rounded once.
+ * Nothing is charged on a zero charge (no card payment happens), so the cost is 0.
+ */
+export function processingCost(
+  chargeMinor: number,
+  percentBasisPoints: number = DEFAULT_PROCESSING.percentBasisPoints,
+  fixedMinor: number = DEFAULT_PROCESSING.fixedMinor,
+): number {
+  assertMinor('chargeMinor', chargeMinor);
+  assertMinor('fixedMinor', fixedMinor);
+  if (chargeMinor === 0) return 0;
+  return divideRoundHalfUp(chargeMinor * percentBasisPoints + fixedMinor * BASIS_POINTS, BASIS_POINTS);
+}
+
+export interface OrderMoneyInput {
+  lines: ReadonlyArray<{ priceMinor: number; quantity: number }>;
+  postageMinor: number;
+  guildFeeBasisPoints: number;
+  processing?: ProcessingRate;
+}
+
+export interface OrderMoney {
+  subtotalMinor: number;
+  postageMinor: number;
+  /** What the buyer pays: subtotal + postage. */
+  chargeMinor: number;
+  /** Fee on the sale price only, never on postage. */
+  guildFeeMinor: number;
+  processingCostMinor: number;
+  /** Owed to the seller: subtotal − guild fee + postage (they pay the carrier). */
+  sellerCreditMinor: number;
+  /** Guild fee less processing cost; negative when processing costs more than the fee. */
+  guildNetMinor: number;
+}
+
+/** All the money of one order. The guild absorbs the processing cost. */
+export function orderMoney(input: OrderMoneyInput): OrderMoney {
+  const processing = input.processing ?? DEFAULT_PROCESSING;
+  let subtotalMinor = 0;
+  for (const line of input.lines) {
+    assertMinor('priceMinor', line.priceMinor);
+    if (line.priceMinor < 0 || !Number.isInteger(line.quantity) || line.quantity < 1) {
+      throw new RangeError(`Bad order line ${JSON.stringify(line)}`);
+    }
+    subtotalMinor += line.priceMinor * line.quantity;
+  }
+  assertMinor('postageMinor', input.postageMinor);
+  if (input.postageMinor < 0) throw new RangeError('Postage cannot be negative');
+  const chargeMinor = subtotalMinor + input.postageMinor;
+  const guildFeeMinor = guildFee(subtotalMinor, input.guildFeeBasisPoints);
+  const processingCostMinor = processingCost(chargeMinor, processing.percentBasisPoints, processing.fixedMinor);
+  return {
+    subtotalMinor,
+    postageMinor: input.postageMinor,
+    chargeMinor,
+    guildFeeMinor,
+    processingCostMinor,
+    sellerCreditMinor: subtotalMinor - guildFeeMinor + input.postageMinor,
+    guildNetMinor: guildFeeMinor - processingCostMinor,
+  };
+}
+
+/* ---------- ledger ---------- */
+
+export const LEDGER_ENTRY_KINDS = ['charge', 'guild_fee', 'seller_credit', 'processing_cost', 'refund', 'payout'] as const;
+export type LedgerEntryKind = (typeof LEDGER_ENTRY_KINDS)[number];
+
+export type LedgerAccount = 'buyer' | 'guild' | 'processor' | 'payouts' | `seller:${string}`;
+
+export interface LedgerEntry {
+  kind: LedgerEntryKind;
+  account: LedgerAccount;
+  /** Signed: positive adds to the account's balance, negative takes from it. */
+  amountMinor: number;
+  /** On refund entries, the kind of entry reversed. */
+  reverses?: Exclude<LedgerEntryKind, 'refund' | 'payout'>;
+}
+
+export const sellerAccount = (sellerId: string): LedgerAccount => `seller:${sellerId}`;
+
+/**
+ * The entries of one paid order, one transaction. Zero amounts are left out (a
+ * postage-only order has no guild fee entry; a free order has no entries at all).
+ *   charge           buyer −charge
+ *   seller_credit    seller:<id> +credit
+ *   guild_fee        guild +fee
+ *   processing_cost  processor +cost, guild −cost
+ */
+export function ledgerEntriesForPaidOrder({ sellerId, money }: { sellerId: string; money: OrderMoney }): LedgerEntry[] {
+  const entries: LedgerEntry[] = [
+    { kind: 'charge', account: 'buyer', amountMinor: -money.chargeMinor },
+    { kind: 'seller_credit', account: sellerAccount(sellerId), amountMinor: money.sellerCreditMinor },
+    { kind: 'guild_fee', account: 'guild', amountMinor: money.guildFeeMinor },
+    { kind: 'processing_cost', account: 'processor', amountMinor: money.processingCostMinor },
+    { kind: 'processing_cost', account: 'guild', amountMinor: -money.processingCostMinor },
+  ];
+  const kept = entries.filter((e) => e.amountMinor !== 0);
+  if (!isBalanced(kept)) throw new Error('Order money does not balance: charge ≠ seller credit + guild fee');
+  return kept;
+}
+
+export interface ReversalOptions {
+  /**
+   * Leave the processing cost standing, as card processors commonly keep their fee on a
+   * refund (from memory; check the guild's processor). True by default. The remaining
+   * entries still balance because the processing-cost pair nets to zero on its own.
+   */
+  keepProcessingCost?: boolean;
+}
+
+/** Refund entries that undo the given ones: every amount negated, kind `refund`. */
+export function reversalEntries(entries: readonly LedgerEntry[], options: ReversalOptions = {}): LedgerEntry[] {
+  const keepProcessingCost = options.keepProcessingCost ?? true;
+  return entries
+    .filter((e) => !(keepProcessingCost && e.kind === 'processing_cost'))
+    .map((e) => {
+      if (e.kind === 'refund' || e.kind === 'payout') throw new Error(`A ${e.kind} entry is not reversed by a refund`);
+      return { kind: 'refund', account: e.account, amountMinor: -e.amountMinor, reverses: e.kind };
+    });
+}
+
+/** A payout the treasurer made to a seller: the guild owes them that much less. */
+export function payoutEntries({ sellerId, amountMinor }: { sellerId: string; amountMinor: number }): LedgerEntry[] {
+  assertMinor('amountMinor', amountMinor);
+  if (amountMinor <= 0) throw new RangeError('A payout must be positive');
+  return [
+    { kind: 'payout', account: sellerAccount(sellerId), amountMinor: -amountMinor },
+    { kind: 'payout', account: 'payouts', amountMinor },
+  ];
+}
+
+/** Whether the entries sum to zero and every amount is whole minor units. */
+export function isBalanced(entries: readonly LedgerEntry[]): boolean {
+  let sum = 0;
+  for (const e of entries) {
+    if (!Number.isSafeInteger(e.amountMinor)) return false;
+    sum += e.amountMinor;
+  }
+  return sum === 0;
+}
+
+/** Balance per account over any set of entries. */
+export function accountBalances(entries: readonly LedgerEntry[]): Map<LedgerAccount, number> {
+  const balances = new Map<LedgerAccount, number>();
+  for (const e of entries) balances.set(e.account, (balances.get(e.account) ?? 0) + e.amountMinor);
+  return balances;
+}
