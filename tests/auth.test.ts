@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { Member, MemberToken } from '../apps/api/src/db/models/index.ts';
-import { Client, countRows, createMember, signedInClient, startTestApi, TEST_INVITE_CODE, TEST_PASSWORD, uniqueEmail, type TestApi } from './support/api.ts';
+import { appWith, Client, countRows, createMember, signedInClient, startTestApi, TEST_INVITE_CODE, TEST_PASSWORD, uniqueEmail, type TestApi } from './support/api.ts';
 import { clearMail, waitForMail } from './support/services.ts';
 
 let api: TestApi;
@@ -32,6 +32,7 @@ describe('joining the guild', () => {
     expect(joined.status).toBe(201);
     expect(joined.body.user).toMatchObject({ email, name: 'Mabel Quire', emailVerified: false, roles: ['member'] });
     expect(joined.body.user.abilities.listBundles).toBe(false);
+    client.csrfToken = joined.body.csrfToken;
 
     const mail = await waitForMail({ to: email, subjectIncludes: 'confirm your e-mail' });
     const token = linkToken(mail.text, '/verify-email');
@@ -147,18 +148,13 @@ describe('signing in and out', () => {
 });
 
 describe('limits per address', () => {
-  let strict: TestApi;
-  beforeAll(async () => {
-    strict = await startTestApi({ SIGN_IN_LIMIT_PER_IP: '3', SIGN_IN_LIMIT_PER_ACCOUNT: '100' });
-    await strict.runtime.ctx.sequelize.query(`DELETE FROM rate_limit_hits WHERE key LIKE 'sign-in-ip:%'`);
-  });
-  afterAll(async () => {
-    await strict.runtime.ctx.sequelize.query(`DELETE FROM rate_limit_hits WHERE key LIKE 'sign-in-ip:%'`);
-    await strict.close();
-  });
+  const clearIpHits = () => api.runtime.ctx.sequelize.query(`DELETE FROM rate_limit_hits WHERE key LIKE 'sign-in-ip:%'`);
+  beforeAll(clearIpHits);
+  afterAll(clearIpHits);
 
   it('limits failed sign-ins from one address across accounts', async () => {
-    const client = new Client(strict.runtime.app);
+    const strictApp = appWith(api, (c) => ({ ...c, signInLimits: { ...c.signInLimits, perIp: 3, perAccount: 100 } }));
+    const client = new Client(strictApp);
     await client.refreshSession();
     for (let i = 0; i < 3; i++) {
       expect((await client.send('post', '/api/session', { email: uniqueEmail(), password: 'wrong-password-here' })).status).toBe(401);

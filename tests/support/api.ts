@@ -4,6 +4,7 @@ import { pino } from 'pino';
 import type { Role } from '@scrap-relay/shared';
 import { loadConfig, type Config } from '../../apps/api/src/config/index.ts';
 import { createRuntime, type Runtime } from '../../apps/api/src/runtime.ts';
+import { createApp } from '../../apps/api/src/app.ts';
 import { hashPassword } from '../../apps/api/src/auth/passwords.ts';
 import { DEFAULT_GUILD_SETTINGS, Guild, Member } from '../../apps/api/src/db/models/index.ts';
 
@@ -33,6 +34,11 @@ export async function startTestApi(overrides: Partial<Record<string, string>> = 
   const runtime = await createRuntime(config, { logger: pino({ level: 'silent' }), now: clock.now, pollingIntervalSeconds: 0.5 });
   await ensureGuild();
   return { runtime, config, clock, close: () => runtime.close() };
+}
+
+/** A second app on the same runtime with other settings (models are bound once per process, so no second runtime). */
+export function appWith(api: TestApi, change: (config: Config) => Config) {
+  return createApp({ ...api.runtime.ctx, config: change(api.config) }, api.runtime.pool);
 }
 
 export async function ensureGuild(): Promise<Guild> {

@@ -13,6 +13,9 @@ import { guildRoutes } from './modules/guild/guild.routes.ts';
 import { healthRoutes } from './modules/health/health.routes.ts';
 import { membersRoutes } from './modules/members/members.routes.ts';
 import { sessionRoutes } from './modules/session/session.routes.ts';
+import { bundlesRoutes } from './modules/bundles/bundles.routes.ts';
+import { reviewRoutes } from './modules/review/review.routes.ts';
+import { wishesRoutes } from './modules/wishes/wishes.routes.ts';
 
 /** Builds the HTTP app without listening, so tests drive it with supertest and server.ts serves it. */
 export function createApp(ctx: AppContext, pool: pg.Pool): Express {
@@ -59,8 +62,14 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   api.use(sessionRoutes(ctx, pool));
   api.use(membersRoutes(ctx));
   api.use(guildRoutes());
+  api.use(reviewRoutes(ctx));
+  api.use(bundlesRoutes(ctx));
+  api.use(wishesRoutes());
   api.use(notFoundHandler);
   app.use('/api', api);
+
+  // Photo files are written once under keys we make, so they can be cached for good.
+  app.use('/uploads', express.static(path.resolve(ctx.config.uploadDir), { index: false, maxAge: '1y', immutable: true, fallthrough: false }));
 
   if (ctx.config.webDist) {
     const dist = path.resolve(ctx.config.webDist);

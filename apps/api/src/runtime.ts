@@ -8,6 +8,8 @@ import { initModels } from './db/models/index.ts';
 import { createSequelize } from './db/sequelize.ts';
 import { createMailer } from './integrations/mailer.ts';
 import { createJobQueue } from './jobs/queue.ts';
+import { startScheduledJobs } from './jobs/scheduled.ts';
+import { localStorage } from './integrations/storage.ts';
 
 export interface Runtime {
   app: Express;
@@ -16,7 +18,10 @@ export interface Runtime {
   close(): Promise<void>;
 }
 
-/** Wires config, database, job queue and app together; server.ts and the integration tests both start here. */
+/**
+ * Wires config, database, job queue and app together; server.ts and the integration tests both start here.
+ * Sequelize models are bound to one connection per process, so a process holds one runtime at a time.
+ */
 export async function createRuntime(
   config: Config,
   options: { logger?: Logger; now?: () => Date; workers?: boolean; pollingIntervalSeconds?: number } = {},
@@ -29,13 +34,16 @@ export async function createRuntime(
   const mailer = createMailer(config.smtp);
   const queue = await createJobQueue({
     databaseUrl: config.databaseUrl,
-    sequelize,
     mailer,
     logger,
     pollingIntervalSeconds: options.pollingIntervalSeconds,
   });
-  const ctx: AppContext = { config, sequelize, queue, logger, now: options.now ?? (() => new Date()) };
-  if (options.workers !== false) await queue.startWorkers();
+  const storage = localStorage(config.uploadDir);
+  const ctx: AppContext = { config, sequelize, queue, storage, logger, now: options.now ?? (() => new Date()) };
+  if (options.workers !== false) {
+    await queue.startWorkers();
+    await startScheduledJobs(ctx);
+  }
   const app = createApp(ctx, pool);
 
   return {

@@ -1,5 +1,6 @@
 import PgBoss from 'pg-boss';
-import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
+import type { ClientBase } from 'pg';
 import type { Logger } from 'pino';
 import type { Mailer, OutgoingMail } from '../integrations/mailer.ts';
 
@@ -16,18 +17,23 @@ export interface JobQueue {
   stop(): Promise<void>;
 }
 
-function transactionDb(sequelize: Sequelize, transaction: Transaction): PgBoss.Db {
+/**
+ * Runs pg-boss's SQL on the transaction's own connection, so a queued job commits or rolls
+ * back with the change it belongs to. (Sequelize's bind formatting does not take pg-boss's
+ * positional SQL, hence the pg client underneath.)
+ */
+function transactionDb(transaction: Transaction): PgBoss.Db {
+  const client = (transaction as unknown as { connection: ClientBase }).connection;
   return {
     async executeSql(text, values) {
-      const rows = await sequelize.query(text, { bind: values, transaction, type: QueryTypes.SELECT, raw: true });
-      return { rows };
+      const result = await client.query(text, values);
+      return { rows: result.rows };
     },
   };
 }
 
 export async function createJobQueue(opts: {
   databaseUrl: string;
-  sequelize: Sequelize;
   mailer: Mailer;
   logger: Logger;
   pollingIntervalSeconds?: number;
@@ -41,7 +47,7 @@ export async function createJobQueue(opts: {
     boss,
     async enqueueEmail(mail, transaction) {
       const options: PgBoss.SendOptions = { ...EMAIL_RETRY };
-      if (transaction) options.db = transactionDb(opts.sequelize, transaction);
+      if (transaction) options.db = transactionDb(transaction);
       await boss.send(EMAIL_QUEUE, mail, options);
     },
     async startWorkers() {

@@ -3,10 +3,11 @@ import type { Member } from '../db/models/index.ts';
 import { forbidden } from '../errors/index.ts';
 import { memberPolicy } from './member.policy.ts';
 import { guildPolicy } from './guild.policy.ts';
+import { bundlePolicy } from './bundle.policy.ts';
 
 export type Actor = Pick<Member, 'id' | 'roles' | 'active' | 'emailVerifiedAt'> & { newQuilter?: boolean };
 
-const policies = { ...memberPolicy, ...guildPolicy };
+const policies = { ...memberPolicy, ...guildPolicy, ...bundlePolicy };
 export type Action = keyof typeof policies;
 type RecordOf<A extends Action> = Parameters<(typeof policies)[A]>[1];
 
@@ -23,10 +24,10 @@ export const hasRole = (actor: Pick<Actor, 'roles'>, role: string) => actor.role
 export function abilitiesFor(actor: Actor & { newQuilter: boolean }): UserAbilities {
   const verified = Boolean(actor.emailVerifiedAt) && actor.active;
   return {
-    listBundles: verified,
+    listBundles: can(actor, 'bundle.create'),
     buy: verified,
     claimStarter: verified && actor.newQuilter,
-    reviewBundles: actor.active && hasRole(actor, 'librarian'),
+    reviewBundles: can(actor, 'bundle.reviewQueue'),
     runStarterProgramme: actor.active && hasRole(actor, 'librarian'),
     viewLedger: actor.active && hasRole(actor, 'treasurer'),
     manageMembers: can(actor, 'member.list'),

@@ -1,2 +1,3 @@
 export * from './errors.ts';
 export * from './session.ts';
+export * from './bundles.ts';

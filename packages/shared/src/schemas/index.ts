@@ -1,1 +1,2 @@
 export * from './members.ts';
+export * from './bundles.ts';

@@ -22,6 +22,11 @@ function authenticateLocal(req: Request, res: Response): Promise<Member | false>
 const logIn = (req: Request, member: Member) =>
   new Promise<void>((resolve, reject) => req.login(member, (err) => (err ? reject(err) : resolve())));
 
+const accountKey = (req: Request) => {
+  const email = (req.body as { email?: unknown } | undefined)?.email;
+  return typeof email === 'string' ? email.trim().toLowerCase() : '';
+};
+
 export function sessionRoutes(ctx: AppContext, pool: pg.Pool): Router {
   const router = Router();
   const { perAccount, perIp, windowMs } = ctx.config.signInLimits;
@@ -38,7 +43,9 @@ export function sessionRoutes(ctx: AppContext, pool: pg.Pool): Router {
     ...limiterDefaults,
     limit: perAccount,
     store: new PostgresRateLimitStore(pool, 'sign-in-account:'),
-    keyGenerator: (req) => String((req.body as { email?: unknown } | undefined)?.email ?? '').trim().toLowerCase(),
+    keyGenerator: (req) => accountKey(req),
+    // Without an e-mail address there is no account to protect; the per-address limit still applies.
+    skip: (req) => accountKey(req) === '',
   });
 
   router.get('/session', async (req, res) => {

@@ -1,0 +1,42 @@
+import { QueryTypes } from 'sequelize';
+import type { AppContext } from '../context.ts';
+import { bundleExpired } from '../emails/bundles.ts';
+import { loadGuild } from '../modules/guild/guild.service.ts';
+
+export const EXPIRE_BUNDLES_QUEUE = 'bundles-expire';
+
+/** Takes bundles past the guild's shelf limit off the shelf and tells each seller, in one transaction. */
+export async function expireBundles(ctx: AppContext): Promise<number> {
+  const guild = await loadGuild();
+  return ctx.sequelize.transaction(async (transaction) => {
+    const expired = await ctx.sequelize.query<{ id: string; title: string; name: string; email: string }>(
+      `UPDATE bundles b SET state = 'expired', updated_at = now()
+       FROM members m
+       WHERE b.state = 'on_shelf' AND b.expires_at <= $1 AND m.id = b.seller_id
+       RETURNING b.id, b.title, m.name, m.email`,
+      { bind: [ctx.now()], type: QueryTypes.SELECT, transaction },
+    );
+    for (const row of expired) {
+      const mail = bundleExpired({
+        guildName: guild.name,
+        name: row.name,
+        title: row.title,
+        days: guild.settings.shelfLimitDays,
+        link: `${ctx.config.appUrl}/my-bundles`,
+      });
+      await ctx.queue.enqueueEmail({ to: row.email, ...mail }, transaction);
+    }
+    return expired.length;
+  });
+}
+
+/** pg-boss keeps one schedule for the whole database, so with several API processes each job still runs once. */
+export async function startScheduledJobs(ctx: AppContext): Promise<void> {
+  const { boss } = ctx.queue;
+  await boss.createQueue(EXPIRE_BUNDLES_QUEUE, { name: EXPIRE_BUNDLES_QUEUE, policy: 'singleton' });
+  await boss.schedule(EXPIRE_BUNDLES_QUEUE, '*/15 * * * *');
+  await boss.work(EXPIRE_BUNDLES_QUEUE, async () => {
+    const count = await expireBundles(ctx);
+    if (count) ctx.logger.info({ count }, 'bundles expired');
+  });
+}

@@ -1,0 +1,91 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import type { BundleCard, CutKind, Fibre, Offer, Page, ShelfQuery, ColourFamily, ColourValue } from '@scrap-relay/shared';
+import { estimateYield } from '@scrap-relay/shared';
+import type { FileStorage } from '../../integrations/storage.ts';
+
+const ORDER_BY: Record<ShelfQuery['sort'], string> = {
+  newest: 'b.on_shelf_at DESC, b.id DESC',
+  price_asc: 'b.price_minor ASC NULLS FIRST, b.id ASC',
+  price_desc: 'b.price_minor DESC NULLS LAST, b.id DESC',
+  weight_asc: 'b.weight_grams ASC, b.id ASC',
+  weight_desc: 'b.weight_grams DESC, b.id DESC',
+};
+
+interface ShelfRow {
+  id: string;
+  title: string;
+  offer: Offer;
+  price_minor: number | null;
+  currency: string;
+  meeting_handover_ok: boolean;
+  quantity_available: number;
+  weight_grams: number;
+  fibre: Fibre;
+  cut_kinds: CutKind[];
+  colour_value: ColourValue | null;
+  colour_family: ColourFamily | null;
+  on_shelf_at: Date;
+  thumb_key: string | null;
+}
+
+/** Builds the WHERE clause from the filters; every value goes in as a bind parameter. */
+function whereClause(q: ShelfQuery): { sql: string; bind: unknown[] } {
+  const conditions = [`b.state = 'on_shelf'`];
+  const bind: unknown[] = [];
+  const add = (sql: (n: string) => string, value: unknown) => {
+    bind.push(value);
+    conditions.push(sql(`$${bind.length}`));
+  };
+  if (q.offer) add((p) => `b.offer = ${p}`, q.offer);
+  if (q.cut) add((p) => `b.cut_kinds @> ARRAY[${p}]::text[]`, q.cut);
+  if (q.value) add((p) => `b.colour_value = ${p}`, q.value);
+  if (q.family) add((p) => `b.colour_family = ${p}`, q.family);
+  if (q.fibre) add((p) => `b.fibre = ${p}`, q.fibre);
+  if (q.minGrams !== undefined) add((p) => `b.weight_grams >= ${p}`, q.minGrams);
+  if (q.maxGrams !== undefined) add((p) => `b.weight_grams <= ${p}`, q.maxGrams);
+  // Free bundles cost nothing, so they are under any price limit.
+  if (q.maxPriceMinor !== undefined) add((p) => `(b.price_minor IS NULL OR b.price_minor <= ${p})`, q.maxPriceMinor);
+  if (q.q) add((p) => `b.search @@ websearch_to_tsquery('english', ${p})`, q.q);
+  return { sql: conditions.join(' AND '), bind };
+}
+
+export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q: ShelfQuery): Promise<Page<BundleCard>> {
+  const where = whereClause(q);
+  const offset = (q.page - 1) * q.pageSize;
+  const [rows, countRows] = await Promise.all([
+    sequelize.query<ShelfRow>(
+      `SELECT b.id, b.title, b.offer, b.price_minor, b.currency, b.meeting_handover_ok, b.quantity_available, b.weight_grams,
+              b.fibre, b.cut_kinds, b.colour_value, b.colour_family, b.on_shelf_at,
+              (SELECT p.thumb_key FROM bundle_photos p WHERE p.bundle_id = b.id ORDER BY p.position LIMIT 1) AS thumb_key
+       FROM bundles b WHERE ${where.sql}
+       ORDER BY ${ORDER_BY[q.sort]}
+       LIMIT ${q.pageSize} OFFSET ${offset}`,
+      { bind: where.bind, type: QueryTypes.SELECT },
+    ),
+    sequelize.query<{ total: number }>(`SELECT count(*)::int AS total FROM bundles b WHERE ${where.sql}`, {
+      bind: where.bind,
+      type: QueryTypes.SELECT,
+    }),
+  ]);
+  return {
+    items: rows.map((r) => ({
+      id: r.id,
+      title: r.title,
+      offer: r.offer,
+      priceMinor: r.price_minor,
+      currency: r.currency,
+      meetingHandoverOk: r.meeting_handover_ok,
+      quantityAvailable: r.quantity_available,
+      weightGrams: r.weight_grams,
+      fibre: r.fibre,
+      cutKinds: r.cut_kinds,
+      colour: { value: r.colour_value, family: r.colour_family },
+      thumbUrl: r.thumb_key ? storage.publicUrl(r.thumb_key) : null,
+      yield: estimateYield({ grams: r.weight_grams, fibre: r.fibre }),
+      onShelfAt: new Date(r.on_shelf_at).toISOString(),
+    })),
+    page: q.page,
+    pageSize: q.pageSize,
+    total: countRows[0]?.total ?? 0,
+  };
+}

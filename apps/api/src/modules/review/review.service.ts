@@ -1,0 +1,71 @@
+import { QueryTypes } from 'sequelize';
+import type { ReviewDecisionInput } from '@scrap-relay/shared';
+import { Bundle, BundleReview, Member } from '../../db/models/index.ts';
+import { bundleApproved, bundleReturned, wishMatched } from '../../emails/bundles.ts';
+import { authorize, type Actor } from '../../policies/index.ts';
+import type { AppContext } from '../../context.ts';
+import { loadGuild } from '../guild/guild.service.ts';
+import { findBundle } from '../bundles/bundles.service.ts';
+import { WISH_MATCH_SQL } from '../wishes/wishes.service.ts';
+
+const DAY_MS = 24 * 60 * 60 * 1000;
+
+export async function reviewQueue(actor: Actor): Promise<Bundle[]> {
+  authorize(actor, 'bundle.reviewQueue');
+  return Bundle.findAll({
+    where: { state: 'in_review' },
+    include: [{ association: 'photos' }, { association: 'seller' }],
+    order: [
+      ['submittedAt', 'ASC'],
+      ['photos', 'position', 'ASC'],
+    ],
+  });
+}
+
+/**
+ * Approve → on the shelf until the guild's limit, the seller is told, and every matching
+ * wish (not the seller's own) gets one e-mail; return → back to the seller with the notes.
+ * Everything, e-mails included, is queued in the one transaction.
+ */
+export async function decide(ctx: AppContext, librarian: Actor, bundleId: string, input: ReviewDecisionInput): Promise<Bundle> {
+  const guild = await loadGuild();
+  return ctx.sequelize.transaction(async (transaction) => {
+    const bundle = await findBundle(bundleId, transaction, true);
+    authorize(librarian, 'bundle.review', bundle);
+    const seller = (await Member.findByPk(bundle.sellerId, { transaction }))!;
+    const now = ctx.now();
+    const link = `${ctx.config.appUrl}/bundles/${bundle.id}`;
+    await BundleReview.create({ bundleId, reviewerId: librarian.id, decision: input.decision, notes: input.notes ?? null }, { transaction });
+
+    if (input.decision === 'return') {
+      await bundle.update({ state: 'returned', reviewNotes: input.notes ?? '', reviewedAt: now }, { transaction });
+      const mail = bundleReturned({ guildName: guild.name, name: seller.name, title: bundle.title, link: `${ctx.config.appUrl}/my-bundles/${bundle.id}/edit`, notes: input.notes ?? '' });
+      await ctx.queue.enqueueEmail({ to: seller.email, ...mail }, transaction);
+      return bundle;
+    }
+
+    await bundle.update(
+      {
+        state: 'on_shelf',
+        reviewNotes: input.notes ?? null,
+        reviewedAt: now,
+        onShelfAt: now,
+        expiresAt: new Date(now.getTime() + guild.settings.shelfLimitDays * DAY_MS),
+        quantityAvailable: bundle.quantity,
+      },
+      { transaction },
+    );
+    await ctx.queue.enqueueEmail({ to: seller.email, ...bundleApproved({ guildName: guild.name, name: seller.name, title: bundle.title, link }) }, transaction);
+
+    const matches = await ctx.sequelize.query<{ wish_name: string; member_name: string; member_email: string }>(WISH_MATCH_SQL, {
+      bind: [bundle.id],
+      transaction,
+      type: QueryTypes.SELECT,
+    });
+    for (const match of matches) {
+      const mail = wishMatched({ guildName: guild.name, name: match.member_name, title: bundle.title, link, wishName: match.wish_name });
+      await ctx.queue.enqueueEmail({ to: match.member_email, ...mail }, transaction);
+    }
+    return bundle;
+  });
+}

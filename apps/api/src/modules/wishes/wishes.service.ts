@@ -1,0 +1,48 @@
+import type { WishInput } from '@scrap-relay/shared';
+import { Wish, type Member } from '../../db/models/index.ts';
+import { badRequest, notFound } from '../../errors/index.ts';
+
+export const MAX_WISHES_PER_MEMBER = 20;
+
+/**
+ * Records a notification for every wish the bundle ($1) matches and returns the ones not
+ * notified before, so each wish hears about a bundle once. Filters mirror the shelf's.
+ */
+export const WISH_MATCH_SQL = `
+  WITH matched AS (
+    INSERT INTO wish_notifications (wish_id, bundle_id)
+    SELECT w.id, b.id
+    FROM wishes w
+    JOIN bundles b ON b.id = $1
+    JOIN members m ON m.id = w.member_id AND m.active AND m.email_verified_at IS NOT NULL
+    WHERE w.member_id <> b.seller_id
+      AND (w.filters->>'offer' IS NULL OR w.filters->>'offer' = b.offer)
+      AND (w.filters->>'cut' IS NULL OR b.cut_kinds @> ARRAY[w.filters->>'cut'])
+      AND (w.filters->>'value' IS NULL OR w.filters->>'value' = b.colour_value)
+      AND (w.filters->>'family' IS NULL OR w.filters->>'family' = b.colour_family)
+      AND (w.filters->>'fibre' IS NULL OR w.filters->>'fibre' = b.fibre)
+      AND (w.filters->>'minGrams' IS NULL OR b.weight_grams >= (w.filters->>'minGrams')::int)
+      AND (w.filters->>'maxGrams' IS NULL OR b.weight_grams <= (w.filters->>'maxGrams')::int)
+      AND (w.filters->>'maxPriceMinor' IS NULL OR coalesce(b.price_minor, 0) <= (w.filters->>'maxPriceMinor')::int)
+      AND (coalesce(w.filters->>'q', '') = '' OR b.search @@ websearch_to_tsquery('english', w.filters->>'q'))
+    ON CONFLICT DO NOTHING
+    RETURNING wish_id
+  )
+  SELECT w.name AS wish_name, m.name AS member_name, m.email AS member_email
+  FROM matched JOIN wishes w ON w.id = matched.wish_id JOIN members m ON m.id = w.member_id`;
+
+export async function listWishes(member: Member): Promise<Wish[]> {
+  return Wish.findAll({ where: { memberId: member.id }, order: [['createdAt', 'DESC']] });
+}
+
+export async function addWish(member: Member, input: WishInput): Promise<Wish> {
+  const count = await Wish.count({ where: { memberId: member.id } });
+  if (count >= MAX_WISHES_PER_MEMBER) throw badRequest(`You can keep up to ${MAX_WISHES_PER_MEMBER} wishes; delete one first.`, { name: 'Too many wishes.' });
+  const filters = Object.fromEntries(Object.entries(input.filters).filter(([, v]) => v !== undefined && v !== ''));
+  return Wish.create({ memberId: member.id, name: input.name, filters });
+}
+
+export async function removeWish(member: Member, id: string): Promise<void> {
+  const removed = await Wish.destroy({ where: { id, memberId: member.id } });
+  if (removed === 0) throw notFound('That wish');
+}
