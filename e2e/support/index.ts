@@ -1,0 +1,3 @@
+export { signIn } from './auth.ts';
+export { latestMailTo, linkIn, type CaughtMail } from './mail.ts';
+export { screenshot, SCREENSHOT_DIR } from './screenshots.ts';
