@@ -5,6 +5,7 @@ import type { Role } from '@scrap-relay/shared';
 import { loadConfig, type Config } from '../../apps/api/src/config/index.ts';
 import { createRuntime, type Runtime } from '../../apps/api/src/runtime.ts';
 import { createApp } from '../../apps/api/src/app.ts';
+import type { AppContext } from '../../apps/api/src/context.ts';
 import { hashPassword } from '../../apps/api/src/auth/passwords.ts';
 import { DEFAULT_GUILD_SETTINGS, Guild, Member } from '../../apps/api/src/db/models/index.ts';
 
@@ -37,8 +38,15 @@ export async function startTestApi(overrides: Partial<Record<string, string>> = 
 }
 
 /** A second app on the same runtime with other settings (models are bound once per process, so no second runtime). */
-export function appWith(api: TestApi, change: (config: Config) => Config) {
-  return createApp({ ...api.runtime.ctx, config: change(api.config) }, api.runtime.pool);
+export function appWith(api: TestApi, change: (config: Config) => Config, context: Partial<AppContext> = {}) {
+  return createApp({ ...api.runtime.ctx, ...context, config: change(api.config) }, api.runtime.pool);
+}
+
+/** Serves the app on the API port the test command reserved, where the Stripe stand-in delivers its webhooks. */
+export async function listenOnApiPort(api: TestApi): Promise<() => Promise<void>> {
+  const server = api.runtime.app.listen(api.config.port, '127.0.0.1');
+  await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
+  return () => new Promise<void>((resolve) => server.close(() => resolve()));
 }
 
 export async function ensureGuild(): Promise<Guild> {

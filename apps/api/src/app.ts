@@ -16,6 +16,12 @@ import { sessionRoutes } from './modules/session/session.routes.ts';
 import { bundlesRoutes } from './modules/bundles/bundles.routes.ts';
 import { reviewRoutes } from './modules/review/review.routes.ts';
 import { wishesRoutes } from './modules/wishes/wishes.routes.ts';
+import { ordersRoutes } from './modules/orders/orders.routes.ts';
+import { webhookRoutes } from './modules/payments/webhook.routes.ts';
+import { postageRoutes } from './modules/postage/postage.routes.ts';
+import { ledgerRoutes } from './modules/ledger/ledger.routes.ts';
+import { meetingsRoutes } from './modules/meetings/meetings.routes.ts';
+import { profileRoutes } from './modules/members/profile.routes.ts';
 
 /** Builds the HTTP app without listening, so tests drive it with supertest and server.ts serves it. */
 export function createApp(ctx: AppContext, pool: pg.Pool): Express {
@@ -53,6 +59,8 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
 
   const api = express.Router();
   api.use(healthRoutes(ctx));
+  // Before the JSON parser: the signature is checked on the raw body.
+  api.use(webhookRoutes(ctx));
   api.use(express.json({ limit: '100kb', strict: true }));
   api.use(sessionMiddleware(ctx.config, pool));
   const passport = configurePassport();
@@ -65,6 +73,11 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   api.use(reviewRoutes(ctx));
   api.use(bundlesRoutes(ctx));
   api.use(wishesRoutes());
+  api.use(postageRoutes());
+  api.use(ordersRoutes(ctx));
+  api.use(ledgerRoutes(ctx));
+  api.use(meetingsRoutes(ctx));
+  api.use(profileRoutes());
   api.use(notFoundHandler);
   app.use('/api', api);
 

@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import type Stripe from 'stripe';
 import type { Logger } from 'pino';
 import type { Config } from './config/index.ts';
 import type { JobQueue } from './jobs/queue.ts';
@@ -10,6 +11,7 @@ export interface AppContext {
   sequelize: Sequelize;
   queue: JobQueue;
   storage: FileStorage;
+  stripe: Stripe;
   logger: Logger;
   now: () => Date;
 }

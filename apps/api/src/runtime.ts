@@ -10,6 +10,7 @@ import { createMailer } from './integrations/mailer.ts';
 import { createJobQueue } from './jobs/queue.ts';
 import { startScheduledJobs } from './jobs/scheduled.ts';
 import { localStorage } from './integrations/storage.ts';
+import { createStripe } from './integrations/payments.ts';
 
 export interface Runtime {
   app: Express;
@@ -39,7 +40,8 @@ export async function createRuntime(
     pollingIntervalSeconds: options.pollingIntervalSeconds,
   });
   const storage = localStorage(config.uploadDir);
-  const ctx: AppContext = { config, sequelize, queue, storage, logger, now: options.now ?? (() => new Date()) };
+  const stripe = createStripe(config.stripe);
+  const ctx: AppContext = { config, sequelize, queue, storage, stripe, logger, now: options.now ?? (() => new Date()) };
   if (options.workers !== false) {
     await queue.startWorkers();
     await startScheduledJobs(ctx);

@@ -2,8 +2,11 @@ import { QueryTypes } from 'sequelize';
 import type { AppContext } from '../context.ts';
 import { bundleExpired } from '../emails/bundles.ts';
 import { loadGuild } from '../modules/guild/guild.service.ts';
+import { autoReceive, releaseOverdueHolds } from '../modules/orders/orders.service.ts';
 
 export const EXPIRE_BUNDLES_QUEUE = 'bundles-expire';
+export const RELEASE_HOLDS_QUEUE = 'orders-release-holds';
+export const AUTO_RECEIVE_QUEUE = 'orders-auto-receive';
 
 /** Takes bundles past the guild's shelf limit off the shelf and tells each seller, in one transaction. */
 export async function expireBundles(ctx: AppContext): Promise<number> {
@@ -33,10 +36,17 @@ export async function expireBundles(ctx: AppContext): Promise<number> {
 /** pg-boss keeps one schedule for the whole database, so with several API processes each job still runs once. */
 export async function startScheduledJobs(ctx: AppContext): Promise<void> {
   const { boss } = ctx.queue;
-  await boss.createQueue(EXPIRE_BUNDLES_QUEUE, { name: EXPIRE_BUNDLES_QUEUE, policy: 'singleton' });
-  await boss.schedule(EXPIRE_BUNDLES_QUEUE, '*/15 * * * *');
-  await boss.work(EXPIRE_BUNDLES_QUEUE, async () => {
-    const count = await expireBundles(ctx);
-    if (count) ctx.logger.info({ count }, 'bundles expired');
-  });
+  const jobs: [string, string, () => Promise<number>][] = [
+    [EXPIRE_BUNDLES_QUEUE, '*/15 * * * *', () => expireBundles(ctx)],
+    [RELEASE_HOLDS_QUEUE, '* * * * *', () => releaseOverdueHolds(ctx)],
+    [AUTO_RECEIVE_QUEUE, '17 3 * * *', () => autoReceive(ctx)],
+  ];
+  for (const [name, cron, run] of jobs) {
+    await boss.createQueue(name, { name, policy: 'singleton' });
+    await boss.schedule(name, cron);
+    await boss.work(name, async () => {
+      const count = await run();
+      if (count) ctx.logger.info({ job: name, count }, 'scheduled job did work');
+    });
+  }
 }

@@ -4,10 +4,11 @@ import { forbidden } from '../errors/index.ts';
 import { memberPolicy } from './member.policy.ts';
 import { guildPolicy } from './guild.policy.ts';
 import { bundlePolicy } from './bundle.policy.ts';
+import { orderPolicy } from './order.policy.ts';
 
 export type Actor = Pick<Member, 'id' | 'roles' | 'active' | 'emailVerifiedAt'> & { newQuilter?: boolean };
 
-const policies = { ...memberPolicy, ...guildPolicy, ...bundlePolicy };
+const policies = { ...memberPolicy, ...guildPolicy, ...bundlePolicy, ...orderPolicy };
 export type Action = keyof typeof policies;
 type RecordOf<A extends Action> = Parameters<(typeof policies)[A]>[1];
 
@@ -29,7 +30,7 @@ export function abilitiesFor(actor: Actor & { newQuilter: boolean }): UserAbilit
     claimStarter: verified && actor.newQuilter,
     reviewBundles: can(actor, 'bundle.reviewQueue'),
     runStarterProgramme: actor.active && hasRole(actor, 'librarian'),
-    viewLedger: actor.active && hasRole(actor, 'treasurer'),
+    viewLedger: can(actor, 'ledger.view'),
     manageMembers: can(actor, 'member.list'),
     manageSettings: can(actor, 'guild.manageSettings'),
   };

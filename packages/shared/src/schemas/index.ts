@@ -1,2 +1,3 @@
 export * from './members.ts';
 export * from './bundles.ts';
+export * from './orders.ts';

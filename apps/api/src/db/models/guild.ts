@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { UnitSystem } from '@scrap-relay/shared';
+import type { PostageTable, UnitSystem } from '@scrap-relay/shared';
 
 /** Settings kept as one validated document beside the guild's name; see guildSettingsSchema. */
 export interface GuildSettingsDocument {
@@ -36,6 +36,7 @@ export class Guild extends Model<InferAttributes<Guild>, InferCreationAttributes
   declare defaultUnits: UnitSystem;
   declare settings: GuildSettingsDocument;
   declare inviteCode: string;
+  declare postageTable: CreationOptional<PostageTable | null>;
   declare inviteCodeRotatedAt: CreationOptional<Date>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -56,6 +57,7 @@ export class Guild extends Model<InferAttributes<Guild>, InferCreationAttributes
           },
         },
         inviteCode: { type: DataTypes.TEXT, allowNull: false },
+        postageTable: { type: DataTypes.JSONB, allowNull: true },
         inviteCodeRotatedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

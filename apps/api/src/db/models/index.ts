@@ -6,14 +6,22 @@ import { Guild } from './guild.ts';
 import { Member } from './member.ts';
 import { MemberToken } from './member-token.ts';
 import { Wish } from './wish.ts';
+import { Meeting } from './meeting.ts';
+import { Order } from './order.ts';
+import { OrderItem } from './order-item.ts';
+import { OrderProblem } from './order-problem.ts';
+import { Payout } from './payout.ts';
+import { LedgerEntry } from './ledger-entry.ts';
 
-export { Bundle, BundlePhoto, BundleReview, Guild, Member, MemberToken, Wish };
+export { Bundle, BundlePhoto, BundleReview, Guild, LedgerEntry, Meeting, Member, MemberToken, Order, OrderItem, OrderProblem, Payout, Wish };
 export { DEFAULT_GUILD_SETTINGS, type GuildSettingsDocument } from './guild.ts';
 export type { TokenPurpose as TokenPurposeType } from './member-token.ts';
 
 /** Initialises every model on one connection and wires the associations in one place. */
 export function initModels(sequelize: Sequelize) {
-  for (const model of [Guild, Member, MemberToken, Bundle, BundlePhoto, BundleReview, Wish]) model.initModel(sequelize);
+  for (const model of [Guild, Member, MemberToken, Bundle, BundlePhoto, BundleReview, Wish, Meeting, Order, OrderItem, OrderProblem, Payout, LedgerEntry]) {
+    model.initModel(sequelize);
+  }
 
   Member.hasMany(MemberToken, { foreignKey: 'memberId', as: 'tokens' });
   MemberToken.belongsTo(Member, { foreignKey: 'memberId', as: 'member' });
@@ -23,4 +31,10 @@ export function initModels(sequelize: Sequelize) {
   BundlePhoto.belongsTo(Bundle, { foreignKey: 'bundleId', as: 'bundle' });
   Bundle.hasMany(BundleReview, { foreignKey: 'bundleId', as: 'reviews' });
   Member.hasMany(Wish, { foreignKey: 'memberId', as: 'wishes' });
+  Order.hasMany(OrderItem, { foreignKey: 'orderId', as: 'items' });
+  OrderItem.belongsTo(Bundle, { foreignKey: 'bundleId', as: 'bundle' });
+  Order.belongsTo(Member, { foreignKey: 'buyerId', as: 'buyer' });
+  Order.belongsTo(Member, { foreignKey: 'sellerId', as: 'seller' });
+  Order.belongsTo(Meeting, { foreignKey: 'meetingId', as: 'meeting' });
+  Order.hasMany(OrderProblem, { foreignKey: 'orderId', as: 'problems' });
 }

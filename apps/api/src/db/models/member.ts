@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { Role, UnitSystem } from '@scrap-relay/shared';
+import type { PostalAddress, Role, UnitSystem } from '@scrap-relay/shared';
 
 export class Member extends Model<InferAttributes<Member>, InferCreationAttributes<Member>> {
   declare id: CreationOptional<string>;
@@ -12,6 +12,7 @@ export class Member extends Model<InferAttributes<Member>, InferCreationAttribut
   declare emailVerifiedAt: Date | null;
   declare active: CreationOptional<boolean>;
   declare units: UnitSystem | null;
+  declare postalAddress: CreationOptional<PostalAddress | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -28,6 +29,7 @@ export class Member extends Model<InferAttributes<Member>, InferCreationAttribut
         emailVerifiedAt: { type: DataTypes.DATE, allowNull: true },
         active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
         units: { type: DataTypes.TEXT, allowNull: true },
+        postalAddress: { type: DataTypes.JSONB, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -1,0 +1,44 @@
+import { Router } from 'express';
+import { stringify } from 'csv-stringify/sync';
+import { ledgerQuerySchema, payoutSchema } from '@scrap-relay/shared';
+import { requireMember } from '../../middleware/authenticate.ts';
+import { parseInput } from '../../middleware/validate.ts';
+import type { AppContext } from '../../context.ts';
+import { actorOf } from '../members/members.presenter.ts';
+import { ledgerEntries, recordPayout, sellerBalances } from './ledger.service.ts';
+
+export function ledgerRoutes(ctx: AppContext): Router {
+  const router = Router();
+
+  router.get('/ledger', async (req, res) => {
+    const actor = actorOf(requireMember(req));
+    const query = parseInput(ledgerQuerySchema, req.query);
+    res.json({ items: await ledgerEntries(ctx.sequelize, actor, query) });
+  });
+
+  /** The same entries for the guild's books; amounts stay in minor units with the currency beside them. */
+  router.get('/ledger.csv', async (req, res) => {
+    const actor = actorOf(requireMember(req));
+    const query = parseInput(ledgerQuerySchema, req.query);
+    const entries = await ledgerEntries(ctx.sequelize, actor, query);
+    const csv = stringify(
+      entries.map((e) => [e.createdAt, e.transactionId, e.kind, e.reverses ?? '', e.accountLabel, e.amountMinor, e.currency, e.orderReference ?? '', e.payoutId ?? '']),
+      { header: true, columns: ['date', 'transaction', 'kind', 'reverses', 'account', 'amount_minor', 'currency', 'order', 'payout'] },
+    );
+    res.type('text/csv').attachment(`scrap-relay-ledger${query.from ? `-${query.from}` : ''}.csv`).send(csv);
+  });
+
+  router.get('/seller-balances', async (req, res) => {
+    const actor = actorOf(requireMember(req));
+    res.json({ items: await sellerBalances(ctx.sequelize, actor) });
+  });
+
+  router.post('/payouts', async (req, res) => {
+    const actor = actorOf(requireMember(req));
+    const input = parseInput(payoutSchema, req.body);
+    const payout = await recordPayout(ctx, actor, input);
+    res.status(201).json({ payout: { id: payout.id, sellerId: payout.sellerId, amountMinor: payout.amountMinor, currency: payout.currency, method: payout.method, reference: payout.reference, createdAt: payout.createdAt.toISOString() } });
+  });
+
+  return router;
+}

@@ -1,0 +1,72 @@
+import type { MeetingView, OrderView } from '@scrap-relay/shared';
+import type { Meeting, Order } from '../../db/models/index.ts';
+import { can, type Actor } from '../../policies/index.ts';
+
+export function presentMeeting(meeting: Meeting, viewer: Actor): MeetingView {
+  return {
+    id: meeting.id,
+    startsAt: meeting.startsAt.toISOString(),
+    place: meeting.place,
+    notes: meeting.notes,
+    abilities: { edit: can(viewer, 'meeting.manage') },
+  };
+}
+
+const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
+
+/** Chooses every field for this viewer: the address only when policy allows, e-mail only to the other party of a paid order. */
+export function presentOrder(order: Order, viewer: Actor, thumbs: Map<string, string | null> = new Map()): OrderView {
+  const viewerIs = order.buyerId === viewer.id ? 'buyer' : order.sellerId === viewer.id ? 'seller' : 'officer';
+  const paid = order.paidAt !== null;
+  const seesMoneySplit = viewerIs !== 'buyer';
+  return {
+    id: order.id,
+    reference: order.reference,
+    state: order.state,
+    fulfilment: order.fulfilment,
+    viewerIs,
+    buyer: { id: order.buyerId, name: order.buyer?.name ?? '', email: paid && viewerIs !== 'buyer' ? (order.buyer?.email ?? null) : null },
+    seller: { id: order.sellerId, name: order.seller?.name ?? '', email: paid && viewerIs !== 'seller' ? (order.seller?.email ?? null) : null },
+    meeting: order.meeting ? presentMeeting(order.meeting, viewer) : null,
+    address: can(viewer, 'order.viewAddress', order) ? order.address : null,
+    items: (order.items ?? []).map((i) => ({
+      bundleId: i.bundleId,
+      title: i.title,
+      quantity: i.quantity,
+      unitPriceMinor: i.unitPriceMinor,
+      weightGrams: i.weightGrams,
+      thumbUrl: thumbs.get(i.bundleId) ?? null,
+    })),
+    currency: order.currency,
+    subtotalMinor: order.subtotalMinor,
+    postageMinor: order.postageMinor,
+    chargeMinor: order.chargeMinor,
+    guildFeeMinor: seesMoneySplit ? order.guildFeeMinor : null,
+    sellerCreditMinor: seesMoneySplit ? order.sellerCreditMinor : null,
+    postageExplanation: order.postageQuote?.explanation ?? [],
+    checkoutUrl: can(viewer, 'order.pay', order) ? order.checkoutUrl : null,
+    holdExpiresAt: iso(order.holdExpiresAt),
+    paidAt: iso(order.paidAt),
+    postedAt: iso(order.postedAt),
+    trackingNumber: order.trackingNumber,
+    receivedAt: iso(order.receivedAt),
+    handedOverAt: iso(order.handedOverAt),
+    cancelledAt: iso(order.cancelledAt),
+    cancelReason: order.cancelReason,
+    refundedAt: iso(order.refundedAt),
+    problems:
+      viewerIs === 'seller' && !viewer.roles.includes('treasurer')
+        ? []
+        : (order.problems ?? []).map((p) => ({ id: p.id, message: p.message, createdAt: p.createdAt.toISOString(), resolvedAt: iso(p.resolvedAt) })),
+    createdAt: order.createdAt.toISOString(),
+    abilities: {
+      pay: can(viewer, 'order.pay', order),
+      markPosted: can(viewer, 'order.markPosted', order),
+      markReceived: can(viewer, 'order.markReceived', order),
+      cancel: can(viewer, 'order.cancel', order),
+      refund: can(viewer, 'order.refund', order),
+      reportProblem: can(viewer, 'order.reportProblem', order),
+      viewAddress: can(viewer, 'order.viewAddress', order),
+    },
+  };
+}

@@ -1,0 +1,475 @@
+import { Op, QueryTypes, UniqueConstraintError, type CreationAttributes, type Transaction } from 'sequelize';
+import {
+  formatMoney,
+  ledgerEntriesForPaidOrder,
+  orderMoney,
+  reversalEntries,
+  type LedgerEntry as DomainEntry,
+  type OrderCreateInput,
+} from '@scrap-relay/shared';
+import { Bundle, LedgerEntry, Meeting, Member, Order, OrderItem, OrderProblem, type Guild } from '../../db/models/index.ts';
+import { badRequest, conflict, forbidden, notFound, serviceUnavailable, unprocessable } from '../../errors/index.ts';
+import {
+  orderCancelled,
+  orderConfirmedToBuyer,
+  orderPostedToBuyer,
+  orderReceivedToSeller,
+  orderRefunded,
+  orderSoldToSeller,
+} from '../../emails/orders.ts';
+import { authorize, type Actor } from '../../policies/index.ts';
+import type { AppContext } from '../../context.ts';
+import { loadGuild } from '../guild/guild.service.ts';
+import { quoteOrThrow } from '../postage/postage.service.ts';
+import { writeLedger } from './ledger-writer.ts';
+import { newOrderReference } from './order-reference.ts';
+
+const MINUTE_MS = 60_000;
+const DAY_MS = 24 * 60 * MINUTE_MS;
+/** Stripe will not expire a Checkout Session sooner than 30 minutes after creating it. */
+const MIN_CHECKOUT_LIFETIME_MS = 31 * MINUTE_MS;
+export const AUTO_RECEIVED_AFTER_DAYS = 21;
+
+export const ORDER_INCLUDE = [
+  { association: 'items' },
+  { association: 'buyer' },
+  { association: 'seller' },
+  { association: 'meeting' },
+  { association: 'problems' },
+];
+
+export async function findOrder(id: string, transaction?: Transaction, lock = false): Promise<Order> {
+  const order = await Order.findByPk(id, { transaction, lock: lock && transaction ? transaction.LOCK.UPDATE : undefined });
+  if (!order) throw notFound('That order');
+  return order;
+}
+
+export async function viewableOrder(actor: Actor, id: string): Promise<Order> {
+  const order = await Order.findByPk(id, { include: ORDER_INCLUDE });
+  if (!order) throw notFound('That order');
+  authorize(actor, 'order.view', order);
+  return order;
+}
+
+export async function listOrders(actor: Actor, as: 'buyer' | 'seller'): Promise<Order[]> {
+  return Order.findAll({
+    where: as === 'buyer' ? { buyerId: actor.id } : { sellerId: actor.id },
+    include: ORDER_INCLUDE,
+    order: [['createdAt', 'DESC']],
+    limit: 200,
+  });
+}
+
+const meetingLabel = (meeting: Meeting | null | undefined) =>
+  meeting ? `${meeting.startsAt.toISOString().slice(0, 16).replace('T', ' ')} UTC, ${meeting.place}` : null;
+
+/** Which fulfilments an offer allows: posting for sales and postage-only gifts, meetings for meeting gifts and sales that allow it. */
+function allowsFulfilment(bundle: Bundle, fulfilment: 'post' | 'meeting'): boolean {
+  if (fulfilment === 'post') return bundle.offer === 'sale' || bundle.offer === 'postage_only';
+  return bundle.offer === 'meeting' || (bundle.offer === 'sale' && bundle.meetingHandoverOk);
+}
+
+async function emailConfirmation(ctx: AppContext, guild: Guild, order: Order, transaction: Transaction) {
+  const [items, buyer, seller, meeting] = await Promise.all([
+    OrderItem.findAll({ where: { orderId: order.id }, transaction }),
+    Member.findByPk(order.buyerId, { transaction }),
+    Member.findByPk(order.sellerId, { transaction }),
+    order.meetingId ? Meeting.findByPk(order.meetingId, { transaction }) : null,
+  ]);
+  const titles = items.map((i) => (i.quantity > 1 ? `${i.title} × ${i.quantity}` : i.title));
+  const amount = order.chargeMinor > 0 ? formatMoney(order.chargeMinor, order.currency) : '';
+  const link = `${ctx.config.appUrl}/orders/${order.id}`;
+  const when = meetingLabel(meeting);
+  await ctx.queue.enqueueEmail(
+    { to: seller!.email, ...orderSoldToSeller({ guildName: guild.name, name: seller!.name, reference: order.reference, titles, link, buyerName: buyer!.name, address: order.address, meeting: when, amount: amount || 'nothing (a gift)' }) },
+    transaction,
+  );
+  await ctx.queue.enqueueEmail(
+    { to: buyer!.email, ...orderConfirmedToBuyer({ guildName: guild.name, name: buyer!.name, reference: order.reference, titles, link, amount, meeting: when }) },
+    transaction,
+  );
+}
+
+/** Bundles whose last unit is taken and paid for are rehomed; while a payment is pending they are held. */
+async function settleBundleStates(bundleIds: string[], transaction: Transaction) {
+  await Bundle.sequelize!.query(
+    `UPDATE bundles b SET state = CASE
+        WHEN EXISTS (SELECT 1 FROM order_items i JOIN orders o ON o.id = i.order_id
+                     WHERE i.bundle_id = b.id AND o.state = 'awaiting_payment') THEN 'held'
+        ELSE 'rehomed' END,
+        updated_at = now()
+     WHERE b.id = ANY($1::uuid[]) AND b.quantity_available = 0 AND b.state IN ('on_shelf', 'held')`,
+    { bind: [bundleIds], transaction, type: QueryTypes.UPDATE },
+  );
+}
+
+/** Puts an order's units back: a held or rehomed bundle returns to the shelf; a withdrawn one stays withdrawn. */
+async function releaseUnits(order: Order, transaction: Transaction) {
+  const items = await OrderItem.findAll({ where: { orderId: order.id }, transaction, order: [['bundleId', 'ASC']] });
+  for (const item of items) {
+    await Bundle.sequelize!.query(
+      `UPDATE bundles SET quantity_available = least(quantity, quantity_available + $2),
+              state = CASE WHEN state IN ('held', 'rehomed') THEN 'on_shelf' ELSE state END, updated_at = now()
+       WHERE id = $1`,
+      { bind: [item.bundleId, item.quantity], transaction, type: QueryTypes.UPDATE },
+    );
+  }
+}
+
+/**
+ * Holds the units in one transaction with row locks (bundles locked in id order, so two
+ * buyers never deadlock and never take the same unit), prices the order, and — when
+ * there is something to pay — opens a Checkout Session after the commit. If the payment
+ * service cannot be reached the hold is released at once and the buyer gets a 503.
+ */
+export async function placeOrder(ctx: AppContext, buyer: Member, input: OrderCreateInput): Promise<Order> {
+  const guild = await loadGuild();
+  const now = ctx.now();
+  if (input.fulfilment === 'meeting') {
+    const meeting = await Meeting.findByPk(input.meetingId!);
+    if (!meeting || meeting.startsAt <= now) throw badRequest('Choose a meeting that is still to come.', { meetingId: 'Not a coming meeting.' });
+  }
+
+  const order = await ctx.sequelize.transaction(async (transaction) => {
+    const ids = input.items.map((i) => i.bundleId).sort();
+    const bundles = await Bundle.findAll({ where: { id: ids }, transaction, lock: transaction.LOCK.UPDATE, order: [['id', 'ASC']] });
+    const byId = new Map(bundles.map((b) => [b.id, b]));
+    const lines = input.items.map((item) => {
+      const bundle = byId.get(item.bundleId);
+      if (!bundle) throw conflict('One of these bundles is no longer on the shelf.', { items: 'No longer available.' });
+      return { bundle, quantity: item.quantity };
+    });
+    if (lines.some((l) => l.bundle.sellerId === buyer.id)) throw forbidden('You cannot take your own bundle.');
+    const sellerId = lines[0]!.bundle.sellerId;
+    if (lines.some((l) => l.bundle.sellerId !== sellerId)) {
+      throw unprocessable('Bundles from different sellers check out as separate orders.', { items: 'All bundles in one order come from one seller.' });
+    }
+    for (const { bundle } of lines) {
+      if (bundle.offer === 'starter') throw unprocessable('Starter bundles are claimed, not bought.', { items: 'A starter bundle.' });
+      if (!allowsFulfilment(bundle, input.fulfilment)) {
+        throw unprocessable(`“${bundle.title}” cannot be ${input.fulfilment === 'post' ? 'posted' : 'handed over at a meeting'}.`, {
+          fulfilment: 'Not offered for this bundle.',
+        });
+      }
+    }
+    for (const { bundle, quantity } of lines) {
+      if (bundle.state !== 'on_shelf' || bundle.quantityAvailable < quantity) {
+        throw conflict(`“${bundle.title}” is no longer available${bundle.quantityAvailable > 0 ? ` in that quantity (${bundle.quantityAvailable} left)` : ''}.`, {
+          items: 'No longer available.',
+        });
+      }
+    }
+
+    const quote =
+      input.fulfilment === 'post'
+        ? quoteOrThrow(guild, lines.map((l) => ({ ref: l.bundle.title, grams: l.bundle.weightGrams!, quantity: l.quantity })), input.address!.postalCode)
+        : null;
+    const money = orderMoney({
+      lines: lines.map((l) => ({ priceMinor: l.bundle.offer === 'sale' ? l.bundle.priceMinor! : 0, quantity: l.quantity })),
+      postageMinor: quote?.totalMinor ?? 0,
+      guildFeeBasisPoints: guild.settings.guildFeeBasisPoints,
+      processing: { percentBasisPoints: guild.settings.processingPercentBasisPoints, fixedMinor: guild.settings.processingFixedMinor },
+    });
+    const needsPayment = money.chargeMinor > 0;
+
+    for (const { bundle, quantity } of lines) {
+      await bundle.update({ quantityAvailable: bundle.quantityAvailable - quantity }, { transaction });
+    }
+    const created = await createWithReference(ctx, transaction, {
+      buyerId: buyer.id,
+      sellerId,
+      state: needsPayment ? 'awaiting_payment' : 'confirmed',
+      fulfilment: input.fulfilment,
+      meetingId: input.meetingId ?? null,
+      address: input.address ?? null,
+      currency: guild.currency,
+      subtotalMinor: money.subtotalMinor,
+      postageMinor: money.postageMinor,
+      chargeMinor: money.chargeMinor,
+      guildFeeMinor: money.guildFeeMinor,
+      processingCostMinor: needsPayment ? money.processingCostMinor : 0,
+      sellerCreditMinor: money.sellerCreditMinor,
+      postageQuote: quote,
+      holdExpiresAt: needsPayment ? new Date(now.getTime() + guild.settings.holdMinutes * MINUTE_MS) : null,
+      paidAt: needsPayment ? null : now,
+    });
+    await OrderItem.bulkCreate(
+      lines.map((l) => ({
+        orderId: created.id,
+        bundleId: l.bundle.id,
+        quantity: l.quantity,
+        unitPriceMinor: l.bundle.offer === 'sale' ? l.bundle.priceMinor! : 0,
+        title: l.bundle.title,
+        weightGrams: l.bundle.weightGrams!,
+      })),
+      { transaction },
+    );
+    await settleBundleStates(ids, transaction);
+    if (input.saveAddress && input.address) await buyer.update({ postalAddress: input.address }, { transaction });
+    if (!needsPayment) await emailConfirmation(ctx, guild, created, transaction);
+    return created;
+  });
+
+  if (order.state === 'awaiting_payment') await openCheckout(ctx, order);
+  return order;
+}
+
+type NewOrder = Omit<CreationAttributes<Order>, 'reference'>;
+
+/** References are random; on the rare clash the insert is retried inside a savepoint with a fresh one. */
+async function createWithReference(ctx: AppContext, transaction: Transaction, values: NewOrder): Promise<Order> {
+  for (let attempt = 0; ; attempt++) {
+    try {
+      return await ctx.sequelize.transaction({ transaction }, (savepoint) => Order.create({ ...values, reference: newOrderReference() }, { transaction: savepoint }));
+    } catch (err) {
+      if (!(err instanceof UniqueConstraintError) || attempt >= 4) throw err;
+    }
+  }
+}
+
+async function openCheckout(ctx: AppContext, order: Order) {
+  const items = await OrderItem.findAll({ where: { orderId: order.id } });
+  const expiresAtMs = Math.max(order.holdExpiresAt!.getTime(), ctx.now().getTime() + MIN_CHECKOUT_LIFETIME_MS);
+  try {
+    const lineItems = items.map((i) => ({
+      quantity: i.quantity,
+      price_data: { currency: order.currency.toLowerCase(), unit_amount: i.unitPriceMinor, product_data: { name: i.title } },
+    }));
+    if (order.postageMinor > 0) {
+      lineItems.push({ quantity: 1, price_data: { currency: order.currency.toLowerCase(), unit_amount: order.postageMinor, product_data: { name: 'Postage' } } });
+    }
+    const session = await ctx.stripe.checkout.sessions.create(
+      {
+        mode: 'payment',
+        line_items: lineItems.filter((l) => l.price_data.unit_amount > 0),
+        success_url: `${ctx.config.appUrl}/orders/${order.id}?paid={CHECKOUT_SESSION_ID}`,
+        cancel_url: `${ctx.config.appUrl}/orders/${order.id}`,
+        client_reference_id: order.id,
+        expires_at: Math.ceil(expiresAtMs / 1000),
+        metadata: { orderId: order.id, reference: order.reference },
+        payment_intent_data: { metadata: { orderId: order.id, reference: order.reference } },
+      },
+      { idempotencyKey: `checkout-${order.id}` },
+    );
+    await order.update({ stripeSessionId: session.id, checkoutUrl: session.url });
+  } catch (err) {
+    ctx.logger.warn({ err, orderId: order.id }, 'could not open a checkout session; releasing the hold');
+    await cancelUnpaid(ctx, order.id, 'The payment service could not be reached.');
+    throw serviceUnavailable('The card payment service is not answering just now, so nothing was taken or held. Please try again in a few minutes.');
+  }
+}
+
+/** Cancels an order still awaiting payment and puts its units back; does nothing if it has moved on. */
+export async function cancelUnpaid(ctx: AppContext, orderId: string, reason: string): Promise<boolean> {
+  return ctx.sequelize.transaction(async (transaction) => {
+    const order = await findOrder(orderId, transaction, true);
+    if (order.state !== 'awaiting_payment') return false;
+    await order.update({ state: 'cancelled', cancelledAt: ctx.now(), cancelReason: reason, holdExpiresAt: null }, { transaction });
+    await releaseUnits(order, transaction);
+    return true;
+  });
+}
+
+/** checkout.session.completed: the order is paid; rehome its bundles, write the ledger, tell both sides. */
+export async function confirmPayment(ctx: AppContext, sessionId: string, paymentIntentId: string | null, transaction: Transaction): Promise<'confirmed' | 'refund' | 'ignored'> {
+  const order = await Order.findOne({ where: { stripeSessionId: sessionId }, transaction, lock: transaction.LOCK.UPDATE });
+  if (!order) return 'ignored';
+  if (order.state !== 'awaiting_payment') {
+    if (order.state === 'cancelled' && !order.paidAt && paymentIntentId) {
+      await order.update({ stripePaymentIntentId: paymentIntentId, cancelReason: `${order.cancelReason ?? ''} Paid after the hold ended; refunded.`.trim() }, { transaction });
+      return 'refund';
+    }
+    return 'ignored';
+  }
+  const guild = await loadGuild();
+  await order.update({ state: 'confirmed', paidAt: ctx.now(), stripePaymentIntentId: paymentIntentId, holdExpiresAt: null }, { transaction });
+  const items = await OrderItem.findAll({ where: { orderId: order.id }, transaction });
+  await settleBundleStates(items.map((i) => i.bundleId), transaction);
+  const money = {
+    subtotalMinor: order.subtotalMinor,
+    postageMinor: order.postageMinor,
+    chargeMinor: order.chargeMinor,
+    guildFeeMinor: order.guildFeeMinor,
+    processingCostMinor: order.processingCostMinor,
+    sellerCreditMinor: order.sellerCreditMinor,
+    guildNetMinor: order.guildFeeMinor - order.processingCostMinor,
+  };
+  await writeLedger(ledgerEntriesForPaidOrder({ sellerId: order.sellerId, money }), { orderId: order.id, currency: order.currency }, transaction);
+  await emailConfirmation(ctx, guild, order, transaction);
+  return 'confirmed';
+}
+
+/** Refunds a payment in full through the payment service; the idempotency key makes a retry safe. */
+async function refundPayment(ctx: AppContext, order: Order) {
+  if (!order.stripePaymentIntentId) throw new Error(`order ${order.id} has no payment to refund`);
+  try {
+    await ctx.stripe.refunds.create({ payment_intent: order.stripePaymentIntentId, metadata: { orderId: order.id } }, { idempotencyKey: `refund-${order.id}` });
+  } catch (err) {
+    ctx.logger.warn({ err, orderId: order.id }, 'refund failed');
+    throw serviceUnavailable('The card payment service is not answering just now, so nothing was changed. Please try again in a few minutes.');
+  }
+}
+
+export async function refundLatePayment(ctx: AppContext, sessionId: string) {
+  const order = await Order.findOne({ where: { stripeSessionId: sessionId } });
+  if (order) await refundPayment(ctx, order);
+}
+
+async function reverseLedger(order: Order, transaction: Transaction) {
+  const original = await LedgerEntry.findAll({ where: { orderId: order.id, kind: { [Op.ne]: 'refund' } }, transaction });
+  const reversals = reversalEntries(
+    original.map((e) => ({ kind: e.kind, account: e.account as DomainEntry['account'], amountMinor: e.amountMinor })),
+  );
+  await writeLedger(reversals, { orderId: order.id, currency: order.currency }, transaction);
+}
+
+async function notifyBoth(ctx: AppContext, order: Order, transaction: Transaction, render: (name: string, link: string, titles: string[]) => { subject: string; text: string; html: string }) {
+  const [buyer, seller, items] = await Promise.all([
+    Member.findByPk(order.buyerId, { transaction }),
+    Member.findByPk(order.sellerId, { transaction }),
+    OrderItem.findAll({ where: { orderId: order.id }, transaction }),
+  ]);
+  const titles = items.map((i) => i.title);
+  const link = `${ctx.config.appUrl}/orders/${order.id}`;
+  for (const person of [buyer!, seller!]) await ctx.queue.enqueueEmail({ to: person.email, ...render(person.name, link, titles) }, transaction);
+}
+
+/** Either side may cancel before posting. A paid order is refunded first, then its ledger reversed and its units returned. */
+export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string, reason: string | undefined): Promise<Order> {
+  const guild = await loadGuild();
+  const current = await findOrder(orderId);
+  authorize(actor, 'order.cancel', current);
+  if (current.state === 'awaiting_payment' && current.stripeSessionId) {
+    await ctx.stripe.checkout.sessions.expire(current.stripeSessionId).catch((err) => ctx.logger.info({ err }, 'session not expired'));
+  }
+  const paid = current.state === 'confirmed' && current.chargeMinor > 0;
+  if (paid) await refundPayment(ctx, current);
+
+  return ctx.sequelize.transaction(async (transaction) => {
+    const order = await findOrder(orderId, transaction, true);
+    authorize(actor, 'order.cancel', order);
+    const now = ctx.now();
+    await order.update(
+      { state: 'cancelled', cancelledAt: now, cancelReason: reason ?? null, holdExpiresAt: null, ...(paid && { refundedAt: now }) },
+      { transaction },
+    );
+    if (paid) await reverseLedger(order, transaction);
+    await releaseUnits(order, transaction);
+    const refunded = paid ? formatMoney(order.chargeMinor, order.currency) : null;
+    await notifyBoth(ctx, order, transaction, (name, link, titles) =>
+      orderCancelled({ guildName: guild.name, name, reference: order.reference, titles, link, refunded, reason: reason ?? null }),
+    );
+    return order;
+  });
+}
+
+/** The treasurer refunds a paid order in full (for example after a reported problem); units already posted stay rehomed. */
+export async function refundOrder(ctx: AppContext, actor: Actor, orderId: string): Promise<Order> {
+  const guild = await loadGuild();
+  const current = await findOrder(orderId);
+  authorize(actor, 'order.refund', current);
+  await refundPayment(ctx, current);
+  return ctx.sequelize.transaction(async (transaction) => {
+    const order = await findOrder(orderId, transaction, true);
+    authorize(actor, 'order.refund', order);
+    const wasPosted = order.state !== 'confirmed';
+    await order.update({ state: 'refunded', refundedAt: ctx.now() }, { transaction });
+    await reverseLedger(order, transaction);
+    if (!wasPosted) await releaseUnits(order, transaction);
+    await OrderProblem.update({ resolvedAt: ctx.now() }, { where: { orderId, resolvedAt: null }, transaction });
+    const buyer = (await Member.findByPk(order.buyerId, { transaction }))!;
+    const items = await OrderItem.findAll({ where: { orderId }, transaction });
+    const mail = orderRefunded({
+      guildName: guild.name,
+      name: buyer.name,
+      reference: order.reference,
+      titles: items.map((i) => i.title),
+      link: `${ctx.config.appUrl}/orders/${order.id}`,
+      refunded: formatMoney(order.chargeMinor, order.currency),
+    });
+    await ctx.queue.enqueueEmail({ to: buyer.email, ...mail }, transaction);
+    return order;
+  });
+}
+
+export async function markPosted(ctx: AppContext, actor: Actor, orderId: string, trackingNumber: string | undefined): Promise<Order> {
+  const guild = await loadGuild();
+  return ctx.sequelize.transaction(async (transaction) => {
+    const order = await findOrder(orderId, transaction, true);
+    authorize(actor, 'order.markPosted', order);
+    await order.update({ state: 'posted', postedAt: ctx.now(), trackingNumber: trackingNumber || null }, { transaction });
+    const buyer = (await Member.findByPk(order.buyerId, { transaction }))!;
+    const items = await OrderItem.findAll({ where: { orderId }, transaction });
+    const mail = orderPostedToBuyer({
+      guildName: guild.name,
+      name: buyer.name,
+      reference: order.reference,
+      titles: items.map((i) => i.title),
+      link: `${ctx.config.appUrl}/orders/${order.id}`,
+      trackingNumber: order.trackingNumber,
+    });
+    await ctx.queue.enqueueEmail({ to: buyer.email, ...mail }, transaction);
+    return order;
+  });
+}
+
+async function markReceivedInTransaction(ctx: AppContext, order: Order, guild: Guild, transaction: Transaction) {
+  await order.update({ state: 'received', receivedAt: ctx.now() }, { transaction });
+  const seller = (await Member.findByPk(order.sellerId, { transaction }))!;
+  const items = await OrderItem.findAll({ where: { orderId: order.id }, transaction });
+  const mail = orderReceivedToSeller({
+    guildName: guild.name,
+    name: seller.name,
+    reference: order.reference,
+    titles: items.map((i) => i.title),
+    link: `${ctx.config.appUrl}/orders/${order.id}`,
+  });
+  await ctx.queue.enqueueEmail({ to: seller.email, ...mail }, transaction);
+}
+
+export async function markReceived(ctx: AppContext, actor: Actor, orderId: string): Promise<Order> {
+  const guild = await loadGuild();
+  return ctx.sequelize.transaction(async (transaction) => {
+    const order = await findOrder(orderId, transaction, true);
+    authorize(actor, 'order.markReceived', order);
+    await markReceivedInTransaction(ctx, order, guild, transaction);
+    return order;
+  });
+}
+
+export async function reportProblem(ctx: AppContext, actor: Actor, orderId: string, message: string): Promise<void> {
+  const order = await findOrder(orderId);
+  authorize(actor, 'order.reportProblem', order);
+  await OrderProblem.create({ orderId, reporterId: actor.id, message });
+}
+
+/** Scheduled: holds past the guild's limit are cancelled (the session expired first, so a late payment cannot land). */
+export async function releaseOverdueHolds(ctx: AppContext): Promise<number> {
+  const overdue = await Order.findAll({ where: { state: 'awaiting_payment', holdExpiresAt: { [Op.lte]: ctx.now() } }, limit: 200 });
+  let released = 0;
+  for (const order of overdue) {
+    if (order.stripeSessionId) {
+      const session = await ctx.stripe.checkout.sessions.retrieve(order.stripeSessionId).catch(() => null);
+      if (session?.status === 'complete') continue; // the completed event confirms it
+      if (session?.status === 'open') await ctx.stripe.checkout.sessions.expire(order.stripeSessionId).catch(() => undefined);
+    }
+    // Expiring the session may already have cancelled the order through its webhook; either way it is released.
+    await cancelUnpaid(ctx, order.id, 'Payment was not completed in time.');
+    released++;
+  }
+  return released;
+}
+
+/** Scheduled: posted orders nobody marked are taken as received after 21 days. */
+export async function autoReceive(ctx: AppContext): Promise<number> {
+  const guild = await loadGuild();
+  const cutoff = new Date(ctx.now().getTime() - AUTO_RECEIVED_AFTER_DAYS * DAY_MS);
+  const due = await Order.findAll({ where: { state: 'posted', postedAt: { [Op.lte]: cutoff } }, limit: 500 });
+  for (const stale of due) {
+    await ctx.sequelize.transaction(async (transaction) => {
+      const order = await findOrder(stale.id, transaction, true);
+      if (order.state === 'posted') await markReceivedInTransaction(ctx, order, guild, transaction);
+    });
+  }
+  return due.length;
+}

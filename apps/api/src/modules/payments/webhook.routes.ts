@@ -1,0 +1,45 @@
+import express, { Router } from 'express';
+import type Stripe from 'stripe';
+import { QueryTypes } from 'sequelize';
+import { badRequest } from '../../errors/index.ts';
+import type { AppContext } from '../../context.ts';
+import { cancelUnpaid, confirmPayment, refundLatePayment } from '../orders/orders.service.ts';
+
+/**
+ * The payment service's events. The signature is checked on the raw body; each event id is
+ * recorded in the same transaction as its effect, so a repeated delivery changes nothing.
+ */
+export function webhookRoutes(ctx: AppContext): Router {
+  const router = Router();
+  router.post('/stripe/webhook', express.raw({ type: 'application/json', limit: '1mb' }), async (req, res) => {
+    let event: Stripe.Event;
+    try {
+      event = ctx.stripe.webhooks.constructEvent(req.body as Buffer, req.get('stripe-signature') ?? '', ctx.config.stripe.webhookSecret);
+    } catch {
+      throw badRequest('The event signature does not verify.', { 'Stripe-Signature': 'Missing or wrong.' });
+    }
+    let followUp: (() => Promise<void>) | undefined;
+    await ctx.sequelize.transaction(async (transaction) => {
+      const recorded = await ctx.sequelize.query(`INSERT INTO stripe_events (id, type) VALUES ($1, $2) ON CONFLICT DO NOTHING RETURNING id`, {
+        bind: [event.id, event.type],
+        transaction,
+        type: QueryTypes.SELECT,
+      });
+      if (recorded.length === 0) return;
+      if (event.type === 'checkout.session.completed') {
+        const session = event.data.object;
+        if (session.payment_status !== 'paid') return;
+        const paymentIntent = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
+        const outcome = await confirmPayment(ctx, session.id, paymentIntent, transaction);
+        if (outcome === 'refund') followUp = () => refundLatePayment(ctx, session.id);
+      } else if (event.type === 'checkout.session.expired') {
+        const sessionId = event.data.object.id;
+        const orderId = event.data.object.metadata?.orderId;
+        if (orderId) followUp = async () => void (await cancelUnpaid(ctx, orderId, `Payment session ${sessionId} expired.`));
+      }
+    });
+    if (followUp) await followUp();
+    res.json({ received: true });
+  });
+  return router;
+}

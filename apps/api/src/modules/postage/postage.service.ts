@@ -1,0 +1,22 @@
+import { DEFAULT_POSTAGE_TABLE, quotePostage, type PostageItem, type PostageQuote, type PostageTable } from '@scrap-relay/shared';
+import type { Guild } from '../../db/models/index.ts';
+import { unprocessable } from '../../errors/index.ts';
+import { loadGuild } from '../guild/guild.service.ts';
+
+export const postageTableOf = (guild: Guild): PostageTable => guild.postageTable ?? DEFAULT_POSTAGE_TABLE;
+
+/** Runs the guild's postage rules; a bundle too heavy to post, or a weight with no rate, is a 422 the buyer can act on. */
+export function quoteOrThrow(guild: Guild, items: PostageItem[], postalCode: string): PostageQuote {
+  const result = quotePostage({ table: postageTableOf(guild), items, postalCode, currency: guild.currency });
+  if (!result.ok) {
+    const hint = result.error.code === 'too_heavy' ? ' Choose a meeting handover instead.' : '';
+    throw unprocessable(`${result.error.message}${hint}`, { items: result.error.message });
+  }
+  return result.quote;
+}
+
+export async function savePostageTable(table: PostageTable): Promise<PostageTable> {
+  const guild = await loadGuild();
+  await guild.update({ postageTable: table });
+  return postageTableOf(guild);
+}

@@ -1,0 +1,25 @@
+import type { OrderState } from '@scrap-relay/shared';
+import type { Actor } from './index.ts';
+
+type OrderRecord = { buyerId: string; sellerId: string; state: OrderState; fulfilment: 'post' | 'meeting'; chargeMinor: number };
+
+const isBuyer = (a: Actor, o?: OrderRecord) => o !== undefined && o.buyerId === a.id;
+const isSeller = (a: Actor, o?: OrderRecord) => o !== undefined && o.sellerId === a.id;
+const isTreasurer = (a: Actor) => a.roles.includes('treasurer');
+const PAID: OrderState[] = ['confirmed', 'posted', 'received', 'handed_over'];
+
+export const orderPolicy = {
+  'order.view': (a: Actor, o?: OrderRecord) => isBuyer(a, o) || isSeller(a, o) || isTreasurer(a),
+  'order.pay': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && o!.state === 'awaiting_payment',
+  /** The address reaches the seller only once the order is paid (or confirmed free). */
+  'order.viewAddress': (a: Actor, o?: OrderRecord) => isBuyer(a, o) || isTreasurer(a) || (isSeller(a, o) && PAID.includes(o!.state)),
+  'order.markPosted': (a: Actor, o?: OrderRecord) => isSeller(a, o) && o!.fulfilment === 'post' && o!.state === 'confirmed',
+  'order.markReceived': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && o!.state === 'posted',
+  'order.cancel': (a: Actor, o?: OrderRecord) => (isBuyer(a, o) || isSeller(a, o)) && (o!.state === 'awaiting_payment' || o!.state === 'confirmed'),
+  'order.reportProblem': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && (o!.state === 'posted' || o!.state === 'received'),
+  'order.refund': (a: Actor, o?: OrderRecord) => isTreasurer(a) && o !== undefined && o.chargeMinor > 0 && PAID.includes(o.state),
+  'ledger.view': (a: Actor, _o?: undefined) => isTreasurer(a),
+  'payout.record': (a: Actor, _o?: undefined) => isTreasurer(a),
+  'postage.manage': (a: Actor, _o?: undefined) => a.roles.includes('admin'),
+  'meeting.manage': (a: Actor, _o?: undefined) => a.roles.includes('admin') || a.roles.includes('librarian'),
+};

@@ -1,0 +1,90 @@
+import type { OrderState, PostageQuote } from '../domain/index.ts';
+import type { PostalAddress } from '../schemas/orders.ts';
+
+export interface MeetingView {
+  id: string;
+  startsAt: string;
+  place: string;
+  notes: string;
+  abilities: { edit: boolean };
+}
+
+export interface OrderItemView {
+  bundleId: string;
+  title: string;
+  quantity: number;
+  unitPriceMinor: number;
+  weightGrams: number;
+  thumbUrl: string | null;
+}
+
+export interface OrderAbilities {
+  pay: boolean;
+  markPosted: boolean;
+  markReceived: boolean;
+  cancel: boolean;
+  refund: boolean;
+  reportProblem: boolean;
+  viewAddress: boolean;
+}
+
+export interface OrderView {
+  id: string;
+  reference: string;
+  state: OrderState;
+  fulfilment: 'post' | 'meeting';
+  viewerIs: 'buyer' | 'seller' | 'officer';
+  buyer: { id: string; name: string; email: string | null };
+  seller: { id: string; name: string; email: string | null };
+  meeting: MeetingView | null;
+  /** Only for the seller of a paid order, the buyer, and the treasurer. */
+  address: PostalAddress | null;
+  items: OrderItemView[];
+  currency: string;
+  subtotalMinor: number;
+  postageMinor: number;
+  chargeMinor: number;
+  guildFeeMinor: number | null;
+  sellerCreditMinor: number | null;
+  postageExplanation: string[];
+  checkoutUrl: string | null;
+  holdExpiresAt: string | null;
+  paidAt: string | null;
+  postedAt: string | null;
+  trackingNumber: string | null;
+  receivedAt: string | null;
+  handedOverAt: string | null;
+  cancelledAt: string | null;
+  cancelReason: string | null;
+  refundedAt: string | null;
+  problems: { id: string; message: string; createdAt: string; resolvedAt: string | null }[];
+  createdAt: string;
+  abilities: OrderAbilities;
+}
+
+export interface PostageQuoteView extends PostageQuote {
+  currency: string;
+}
+
+export interface LedgerEntryView {
+  id: string;
+  transactionId: string;
+  createdAt: string;
+  kind: string;
+  reverses: string | null;
+  account: string;
+  accountLabel: string;
+  amountMinor: number;
+  currency: string;
+  orderReference: string | null;
+  payoutId: string | null;
+}
+
+export interface SellerBalanceView {
+  sellerId: string;
+  name: string;
+  creditedMinor: number;
+  paidOutMinor: number;
+  balanceMinor: number;
+  currency: string;
+}

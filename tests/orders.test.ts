@@ -1,0 +1,347 @@
+import Stripe from 'stripe';
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { Bundle, LedgerEntry, Meeting, Order, type Member } from '../apps/api/src/db/models/index.ts';
+import { releaseOverdueHolds } from '../apps/api/src/modules/orders/orders.service.ts';
+import { appWith, Client, countRows, createMember, listenOnApiPort, signedInClient, startTestApi, type TestApi } from './support/api.ts';
+import { listAndSubmit } from './support/bundles.ts';
+import { clearMail, waitForMail } from './support/services.ts';
+import { payCheckout, refundedAmount, resendEvent, sessionIdFromUrl, stripeEvents, stripeSession } from './support/stripe-fake.ts';
+
+let api: TestApi;
+let stopListening: () => Promise<void>;
+let seller: Member;
+let sellerClient: Client;
+let librarianClient: Client;
+let buyer: Member;
+let buyerClient: Client;
+let treasurerClient: Client;
+
+const address = { name: 'Pearl Dunmore', line1: '4 Weir Lane', town: 'Millbrook', postalCode: '97451', country: 'US' };
+
+beforeAll(async () => {
+  api = await startTestApi();
+  stopListening = await listenOnApiPort(api);
+  seller = await createMember({ name: 'Hetty Blanchard' });
+  buyer = await createMember({ name: 'Pearl Dunmore' });
+  sellerClient = await signedInClient(api.runtime.app, seller);
+  buyerClient = await signedInClient(api.runtime.app, buyer);
+  librarianClient = await signedInClient(api.runtime.app, await createMember({ roles: ['member', 'librarian'] }));
+  treasurerClient = await signedInClient(api.runtime.app, await createMember({ roles: ['member', 'treasurer'] }));
+});
+afterAll(async () => {
+  await stopListening();
+  await api.close();
+});
+beforeEach(async () => {
+  await clearMail();
+});
+
+async function shelved(overrides: Record<string, unknown> = {}, by = sellerClient): Promise<string> {
+  const id = await listAndSubmit(by, overrides);
+  const res = await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'approve' });
+  expect(res.status).toBe(200);
+  return id;
+}
+
+async function ledgerTotal(where = ''): Promise<number> {
+  const [rows] = await api.runtime.ctx.sequelize.query(`SELECT coalesce(sum(amount_minor), 0)::int AS total FROM ledger_entries ${where}`);
+  return (rows as { total: number }[])[0]!.total;
+}
+
+async function waitFor<T>(check: () => Promise<T | undefined | null | false>, timeoutMs = 10_000): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const value = await check();
+    if (value) return value;
+    if (Date.now() > deadline) throw new Error('condition not met in time');
+    await new Promise((r) => setTimeout(r, 100));
+  }
+}
+
+describe('buying a sale bundle by post', () => {
+  it('quotes postage, holds, takes the card payment, confirms by webhook, and goes through posted and received', async () => {
+    const bundleId = await shelved({ title: 'Blue strips for binding', weightGrams: 454, priceMinor: 1200 });
+
+    // Hand-worked with the guild's default table: 454 g + 25 g padded mailer = 479 g → the 2 lb local band, 680¢, plus 50¢ handling.
+    const quote = await buyerClient.send('post', '/api/postage-quotes', { items: [{ bundleId, quantity: 1 }], destination: { country: 'US', postalCode: '97451' } });
+    expect(quote.status).toBe(200);
+    expect(quote.body).toMatchObject({ totalMinor: 730, currency: 'USD', zone: 'local' });
+    expect(quote.body.parcels[0]).toMatchObject({ packageCode: 'padded_mailer', contentGrams: 454, billableGrams: 479, priceMinor: 680 });
+    expect(quote.body.explanation.length).toBeGreaterThan(2);
+
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address, saveAddress: true });
+    expect(placed.status).toBe(201);
+    expect(placed.body.order).toMatchObject({ state: 'awaiting_payment', chargeMinor: 1930, postageMinor: 730, subtotalMinor: 1200 });
+    expect(placed.body.checkoutUrl).toMatch(/\/pay\/cs_test_/);
+    expect((await Bundle.findByPk(bundleId))!.state).toBe('held');
+
+    const sellerView = await sellerClient.get(`/api/orders/${placed.body.order.id}`);
+    expect(sellerView.body.order.address).toBeNull();
+
+    const paid = await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl));
+    expect(paid.body.payment_status).toBe('paid');
+    const order = await waitFor(async () => {
+      const o = await Order.findByPk(placed.body.order.id);
+      return o?.state === 'confirmed' ? o : null;
+    });
+    expect((await Bundle.findByPk(bundleId))!.state).toBe('rehomed');
+
+    // Money, hand-worked: guild fee 10 % of 1200 = 120; processing 2.9 % × 1930 + 30 = 85.97 → 86 (rounded half up); seller credit 1200 − 120 + 730 = 1810.
+    expect(order).toMatchObject({ guildFeeMinor: 120, processingCostMinor: 86, sellerCreditMinor: 1810 });
+    const entries = await LedgerEntry.findAll({ where: { orderId: order.id } });
+    expect(entries.map((e) => [e.kind, e.account, e.amountMinor]).sort()).toEqual(
+      [
+        ['charge', 'buyer', -1930],
+        ['guild_fee', 'guild', 120],
+        ['processing_cost', 'guild', -86],
+        ['processing_cost', 'processor', 86],
+        ['seller_credit', `seller:${seller.id}`, 1810],
+      ].sort(),
+    );
+
+    const sold = await waitForMail({ to: seller.email, subjectIncludes: 'Rehomed' });
+    expect(sold.text).toContain('4 Weir Lane');
+    expect(sold.text).toContain('Pearl Dunmore');
+    await waitForMail({ to: buyer.email, subjectIncludes: 'is confirmed' });
+
+    const slip = await sellerClient.get(`/api/orders/${order.id}/packing-slip`);
+    expect(slip.status).toBe(200);
+    expect(slip.body.order.address).toMatchObject({ line1: '4 Weir Lane' });
+    expect(slip.body.qrSvg).toContain('<svg');
+    expect((await buyerClient.get('/api/me/address')).body.address).toMatchObject({ postalCode: '97451' });
+
+    expect((await buyerClient.send('post', `/api/orders/${order.id}/posted`, {})).status).toBe(403);
+    const posted = await sellerClient.send('post', `/api/orders/${order.id}/posted`, { trackingNumber: 'TRK-1234' });
+    expect(posted.body.order).toMatchObject({ state: 'posted', trackingNumber: 'TRK-1234' });
+    expect((await waitForMail({ to: buyer.email, subjectIncludes: 'in the post' })).text).toContain('TRK-1234');
+
+    const received = await buyerClient.send('post', `/api/orders/${order.id}/received`);
+    expect(received.body.order.state).toBe('received');
+    await waitForMail({ to: seller.email, subjectIncludes: 'arrived' });
+  });
+
+  it('leaves the order awaiting payment when the card is declined', async () => {
+    const bundleId = await shelved();
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    const declined = await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl), '4000 0000 0000 0002');
+    expect(declined.status).toBe(402);
+    expect((await Order.findByPk(placed.body.order.id))!.state).toBe('awaiting_payment');
+    expect((await Bundle.findByPk(bundleId))!.state).toBe('held');
+  });
+
+  it('gives a postage-only bundle away for the postage alone', async () => {
+    const bundleId = await shelved({ offer: 'postage_only', priceMinor: null, meetingHandoverOk: false, weightGrams: 200 });
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    expect(placed.status).toBe(201);
+    // 200 g + 15 g envelope = 215 g → the ½ lb local band, 450¢, plus 50¢ handling.
+    expect(placed.body.order).toMatchObject({ subtotalMinor: 0, postageMinor: 500, chargeMinor: 500 });
+    await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl));
+    const order = await waitFor(async () => (await Order.findByPk(placed.body.order.id))?.state === 'confirmed');
+    expect(order).toBe(true);
+    const entries = await LedgerEntry.findAll({ where: { orderId: placed.body.order.id } });
+    expect(entries.find((e) => e.kind === 'guild_fee')).toBeUndefined();
+    expect(entries.find((e) => e.kind === 'seller_credit')!.amountMinor).toBe(500);
+  });
+});
+
+describe('meeting handover', () => {
+  it('confirms a free meeting bundle at once, with nothing to pay', async () => {
+    const meeting = await Meeting.create({ startsAt: new Date(Date.now() + 7 * 86_400_000), place: 'Millbrook Hall', createdBy: null });
+    const bundleId = await shelved({ offer: 'meeting', priceMinor: null, meetingHandoverOk: false });
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'meeting', meetingId: meeting.id });
+    expect(placed.status).toBe(201);
+    expect(placed.body).toMatchObject({ checkoutUrl: null, order: { state: 'confirmed', chargeMinor: 0, meeting: { place: 'Millbrook Hall' } } });
+    expect((await Bundle.findByPk(bundleId))!.state).toBe('rehomed');
+    await waitForMail({ to: seller.email, subjectIncludes: 'Rehomed' });
+  });
+
+  it('refuses a meeting in the past and a bundle that is not offered for meetings', async () => {
+    const past = await Meeting.create({ startsAt: new Date(Date.now() - 86_400_000), place: 'Old hall', createdBy: null });
+    const bundleId = await shelved({ offer: 'postage_only', priceMinor: null, meetingHandoverOk: false });
+    const old = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'meeting', meetingId: past.id });
+    expect(old.status).toBe(400);
+    expect(old.body.error.fields.meetingId).toBeDefined();
+    const future = await Meeting.create({ startsAt: new Date(Date.now() + 86_400_000), place: 'Hall', createdBy: null });
+    const wrong = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'meeting', meetingId: future.id });
+    expect(wrong.status).toBe(422);
+    expect(wrong.body.error.fields.fulfilment).toBeDefined();
+  });
+});
+
+describe('no bundle is sold twice', () => {
+  it('30 concurrent orders for a quantity-1 bundle: exactly one 201, the rest 409', async () => {
+    const bundleId = await shelved();
+    const buyers = await Promise.all(Array.from({ length: 30 }, () => createMember()));
+    const clients = await Promise.all(buyers.map((b) => signedInClient(api.runtime.app, b)));
+    const answers = await Promise.all(clients.map((c) => c.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address })));
+    const statuses = answers.map((a) => a.status).sort();
+    expect(statuses.filter((s) => s === 201)).toHaveLength(1);
+    expect(statuses.filter((s) => s === 409)).toHaveLength(29);
+    expect((await Bundle.findByPk(bundleId))!.quantityAvailable).toBe(0);
+  }, 60_000);
+
+  it('10 concurrent orders for a quantity-3 bundle: exactly three', async () => {
+    const bundleId = await shelved({ quantity: 3, title: 'Three packs of 5-inch squares' });
+    const clients = await Promise.all(Array.from({ length: 10 }, async () => signedInClient(api.runtime.app, await createMember())));
+    const answers = await Promise.all(clients.map((c) => c.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address })));
+    expect(answers.filter((a) => a.status === 201)).toHaveLength(3);
+    expect(answers.filter((a) => a.status === 409)).toHaveLength(7);
+  }, 60_000);
+
+  it('refuses buying your own bundle, and bundles of two sellers in one order', async () => {
+    const own = await shelved();
+    expect((await sellerClient.send('post', '/api/orders', { items: [{ bundleId: own, quantity: 1 }], fulfilment: 'post', address })).status).toBe(403);
+    const otherSeller = await signedInClient(api.runtime.app, await createMember());
+    const theirs = await shelved({}, otherSeller);
+    const mixed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId: own, quantity: 1 }, { bundleId: theirs, quantity: 1 }], fulfilment: 'post', address });
+    expect(mixed.status).toBe(422);
+    expect((await Bundle.findByPk(own))!.quantityAvailable).toBe(1);
+  });
+});
+
+describe('webhooks', () => {
+  it('the same event delivered five times writes one set of ledger entries', async () => {
+    const bundleId = await shelved();
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    const sessionId = sessionIdFromUrl(placed.body.checkoutUrl);
+    await payCheckout(sessionId);
+    await waitFor(async () => (await Order.findByPk(placed.body.order.id))?.state === 'confirmed');
+    const event = (await stripeEvents('checkout.session.completed')).find((e) => e.object_id === sessionId)!;
+    for (let i = 0; i < 4; i++) expect((await resendEvent(event.id)).status).toBe(200);
+    expect(await LedgerEntry.count({ where: { orderId: placed.body.order.id } })).toBe(5);
+  });
+
+  it('refuses an event with a bad signature with 400 and writes nothing', async () => {
+    const before = await countRows(api.runtime.ctx.sequelize, ['stripe_events', 'ledger_entries']);
+    const payload = JSON.stringify({ id: 'evt_forged', type: 'checkout.session.completed', data: { object: {} } });
+    const header = Stripe.webhooks.generateTestHeaderString({ payload, secret: 'whsec_not_the_secret' });
+    const res = await new Client(api.runtime.app).agent.post('/api/stripe/webhook').set('Stripe-Signature', header).set('Content-Type', 'application/json').send(payload);
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['Stripe-Signature']).toBeDefined();
+    expect(await countRows(api.runtime.ctx.sequelize, ['stripe_events', 'ledger_entries'])).toEqual(before);
+  });
+});
+
+describe('when payment does not happen', () => {
+  it('answers 503 and releases the hold at once when the payment service cannot be reached', async () => {
+    const bundleId = await shelved();
+    const unreachable = new Stripe(api.config.stripe.secretKey, { host: '127.0.0.1', port: 9, protocol: 'http', maxNetworkRetries: 0, timeout: 2000 });
+    const app = appWith(api, (c) => c, { stripe: unreachable });
+    const client = await signedInClient(app, buyer);
+    const res = await client.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    expect(res.status).toBe(503);
+    expect(res.body.error.code).toBe('service_unavailable');
+    const bundle = await Bundle.findByPk(bundleId);
+    expect(bundle).toMatchObject({ state: 'on_shelf', quantityAvailable: 1 });
+  });
+
+  it('releases a hold past the guild’s limit by the scheduled job, and expires the payment page', async () => {
+    const bundleId = await shelved();
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    api.clock.advance(31 * 60_000);
+    try {
+      expect(await releaseOverdueHolds(api.runtime.ctx)).toBeGreaterThanOrEqual(1);
+    } finally {
+      api.clock.current = new Date();
+    }
+    expect((await Order.findByPk(placed.body.order.id))!.state).toBe('cancelled');
+    expect(await Bundle.findByPk(bundleId)).toMatchObject({ state: 'on_shelf', quantityAvailable: 1 });
+    expect((await stripeSession(sessionIdFromUrl(placed.body.checkoutUrl))).status).toBe('expired');
+  });
+});
+
+describe('cancelling, refunds and the treasurer', () => {
+  it('cancels a paid order before posting: refunded through the stand-in, ledger reversed, bundle back on the shelf', async () => {
+    const bundleId = await shelved();
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl));
+    const order = await waitFor(async () => {
+      const o = await Order.findByPk(placed.body.order.id);
+      return o?.state === 'confirmed' ? o : null;
+    });
+    const cancelled = await sellerClient.send('post', `/api/orders/${order.id}/cancel`, { reason: 'Found a moth hole' });
+    expect(cancelled.status).toBe(200);
+    expect(cancelled.body.order).toMatchObject({ state: 'cancelled', refundedAt: expect.any(String) });
+    expect(await refundedAmount(order.stripePaymentIntentId!)).toBe(order.chargeMinor);
+    expect(await Bundle.findByPk(bundleId)).toMatchObject({ state: 'on_shelf', quantityAvailable: 1 });
+    // The processor keeps its fee on a refund (from memory; a guild setting to revisit), so only that pair stands.
+    expect(await ledgerTotal(`WHERE order_id = '${order.id}' AND kind <> 'processing_cost'`)).toBe(0);
+    expect(await ledgerTotal(`WHERE order_id = '${order.id}' AND account = 'seller:${seller.id}'`)).toBe(0);
+    await waitForMail({ to: buyer.email, subjectIncludes: 'was cancelled' });
+  });
+
+  it('lets the treasurer refund a posted order after a reported problem, see balances, record a payout and export CSV', async () => {
+    const kept = await shelved({ priceMinor: 1500 });
+    const keptOrder = await buyerClient.send('post', '/api/orders', { items: [{ bundleId: kept, quantity: 1 }], fulfilment: 'post', address });
+    await payCheckout(sessionIdFromUrl(keptOrder.body.checkoutUrl));
+    await waitFor(async () => (await Order.findByPk(keptOrder.body.order.id))?.state === 'confirmed');
+
+    const bundleId = await shelved({ priceMinor: 2000 });
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl));
+    const orderId = placed.body.order.id;
+    await waitFor(async () => (await Order.findByPk(orderId))?.state === 'confirmed');
+    await sellerClient.send('post', `/api/orders/${orderId}/posted`, {});
+    const reported = await buyerClient.send('post', `/api/orders/${orderId}/problems`, { message: 'The bag arrived soaked.' });
+    expect(reported.status).toBe(201);
+    expect((await sellerClient.send('post', `/api/orders/${orderId}/refund`)).status).toBe(403);
+    const refunded = await treasurerClient.send('post', `/api/orders/${orderId}/refund`);
+    expect(refunded.body.order).toMatchObject({ state: 'refunded' });
+    await waitForMail({ to: buyer.email, subjectIncludes: 'Refund for order' });
+
+    const balances = await treasurerClient.get('/api/seller-balances');
+    const mine = balances.body.items.find((b: { sellerId: string }) => b.sellerId === seller.id);
+    expect(mine.balanceMinor).toBe(await ledgerTotal(`WHERE account = 'seller:${seller.id}'`));
+    expect(mine.balanceMinor).toBeGreaterThan(0);
+
+    const tooMuch = await treasurerClient.send('post', '/api/payouts', { sellerId: seller.id, amountMinor: mine.balanceMinor + 1, method: 'bank_transfer' });
+    expect(tooMuch.status).toBe(422);
+    const payout = await treasurerClient.send('post', '/api/payouts', { sellerId: seller.id, amountMinor: 500, method: 'bank_transfer', reference: 'Nov transfer' });
+    expect(payout.status).toBe(201);
+    const after = (await treasurerClient.get('/api/seller-balances')).body.items.find((b: { sellerId: string }) => b.sellerId === seller.id);
+    expect(after).toMatchObject({ balanceMinor: mine.balanceMinor - 500, paidOutMinor: mine.paidOutMinor + 500 });
+
+    const ledger = await treasurerClient.get('/api/ledger?kind=payout');
+    expect(ledger.body.items.every((e: { kind: string }) => e.kind === 'payout')).toBe(true);
+    const csv = await treasurerClient.get('/api/ledger.csv');
+    expect(csv.headers['content-type']).toMatch(/text\/csv/);
+    expect(csv.text.split('\n')[0]).toBe('date,transaction,kind,reverses,account,amount_minor,currency,order,payout');
+    expect((await buyerClient.get('/api/ledger')).status).toBe(403);
+  });
+
+  it('keeps the ledger balanced after everything above', async () => {
+    expect(await ledgerTotal()).toBe(0);
+    const [rows] = await api.runtime.ctx.sequelize.query(`SELECT transaction_id FROM ledger_entries GROUP BY transaction_id HAVING sum(amount_minor) <> 0`);
+    expect(rows).toEqual([]);
+  });
+});
+
+describe('bad order input', () => {
+  it.each([
+    ['no items', { items: [], fulfilment: 'post', address }, 'items'],
+    ['a negative quantity', { items: [{ bundleId: '00000000-0000-4000-8000-000000000000', quantity: -1 }], fulfilment: 'post', address }, 'items.0.quantity'],
+    ['a huge quantity', { items: [{ bundleId: '00000000-0000-4000-8000-000000000000', quantity: 1e9 }], fulfilment: 'post', address }, 'items.0.quantity'],
+    ['post without an address', { items: [{ bundleId: '00000000-0000-4000-8000-000000000000', quantity: 1 }], fulfilment: 'post' }, 'address'],
+    ['an unknown fulfilment', { items: [{ bundleId: '00000000-0000-4000-8000-000000000000', quantity: 1 }], fulfilment: 'drone' }, 'fulfilment'],
+    ['a bad country', { items: [{ bundleId: '00000000-0000-4000-8000-000000000000', quantity: 1 }], fulfilment: 'post', address: { ...address, country: 'Narnia' } }, 'address.country'],
+  ])('refuses %s with 400 naming the field', async (_label, body, field) => {
+    const before = await countRows(api.runtime.ctx.sequelize, ['orders', 'order_items']);
+    const res = await buyerClient.send('post', '/api/orders', body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields[field]).toBeDefined();
+    expect(await countRows(api.runtime.ctx.sequelize, ['orders', 'order_items'])).toEqual(before);
+  });
+
+  it('answers 409 for a bundle that does not exist', async () => {
+    const res = await buyerClient.send('post', '/api/orders', { items: [{ bundleId: '00000000-0000-4000-8000-000000000000', quantity: 1 }], fulfilment: 'post', address });
+    expect(res.status).toBe(409);
+  });
+
+  it('refuses a postage table with a band in an unknown zone, naming the field', async () => {
+    const admin = await signedInClient(api.runtime.app, await createMember({ roles: ['member', 'admin'] }));
+    const current = (await admin.get('/api/guild/postage')).body.postage;
+    const res = await admin.send('put', '/api/guild/postage', { ...current, bands: [{ zone: 'moon', maxGrams: 100, priceMinor: 100 }] });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['bands.0.zone']).toMatch(/moon/);
+  });
+});

@@ -1,0 +1,40 @@
+import { serviceEnv } from './services.ts';
+
+/** Test controls of the Stripe stand-in (docker-local/stripe-fake), for paying without a browser and replaying events. */
+async function control<T>(method: 'GET' | 'POST', path: string, body?: unknown): Promise<{ status: number; body: T }> {
+  const res = await fetch(`${serviceEnv().stripeFakeUrl}/_control${path}`, {
+    method,
+    headers: body ? { 'content-type': 'application/json' } : {},
+    body: body ? JSON.stringify(body) : undefined,
+  });
+  return { status: res.status, body: (await res.json()) as T };
+}
+
+export const sessionIdFromUrl = (url: string) => url.split('/').pop()!;
+
+export const payCheckout = (sessionId: string, card = '4242 4242 4242 4242') =>
+  control<{ status: string; payment_status: string; error?: { code: string } }>('POST', `/checkout/sessions/${sessionId}/pay`, { card });
+
+export interface FakeEvent {
+  id: string;
+  type: string;
+  object_id: string;
+  state: string;
+}
+
+export const stripeEvents = async (type?: string) => (await control<{ data: FakeEvent[] }>('GET', `/events${type ? `?type=${type}` : ''}`)).body.data;
+export const resendEvent = (id: string) => control<unknown>('POST', `/events/${id}/resend`);
+export const stripeSession = (id: string) =>
+  stripeGet<{ id: string; status: string; payment_status: string; payment_intent: string | null }>(`/checkout/sessions/${id}`);
+async function stripeGet<T>(path: string): Promise<T> {
+  const env = serviceEnv();
+  const res = await fetch(`${env.stripeFakeUrl}/v1${path}`, { headers: { authorization: `Bearer ${env.stripe.secretKey}` } });
+  return (await res.json()) as T;
+}
+
+/** How much of a payment the stand-in has refunded, in minor units. */
+export async function refundedAmount(paymentIntentId: string): Promise<number> {
+  const intent = await stripeGet<{ latest_charge: string }>(`/payment_intents/${paymentIntentId}`);
+  const charge = await stripeGet<{ amount_refunded: number }>(`/charges/${intent.latest_charge}`);
+  return charge.amount_refunded;
+}
