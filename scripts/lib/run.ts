@@ -1,4 +1,5 @@
 import { spawn } from 'node:child_process';
+import os from 'node:os';
 import { onShutdown } from './lifecycle.ts';
 
 export interface RunOptions {
@@ -41,7 +42,7 @@ export function runCommand(command: string, args: readonly string[], options: Ru
     child.once('close', (code, signal) => {
       unregister();
       // A signal death counts as failure; 128 + n is the shell convention.
-      resolve({ code: code ?? 128 + (signal === 'SIGKILL' ? 9 : 15), stdout, stderr });
+      resolve({ code: code ?? 128 + (signal === null ? 0 : os.constants.signals[signal]), stdout, stderr });
     });
   });
 }
