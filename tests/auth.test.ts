@@ -219,7 +219,7 @@ describe('password reset', () => {
       expect(res.status).toBe(400);
       expect(res.body.error.code).toBe('invalid_token');
     } finally {
-      api.clock.current = new Date();
+      api.clock.reset();
     }
     const unchanged = await Member.findByPk(member.id);
     expect(unchanged!.passwordHash).toBe(member.passwordHash);

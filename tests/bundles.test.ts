@@ -155,7 +155,7 @@ describe('listing, review and the shelf', () => {
     try {
       expect(await expireBundles(api.runtime.ctx)).toBeGreaterThanOrEqual(1);
     } finally {
-      api.clock.current = new Date();
+      api.clock.reset();
     }
     const mine = await sellerClient.get(`/api/bundles/${id}`);
     expect(mine.body.bundle).toMatchObject({ state: 'expired', abilities: { relist: true } });

@@ -242,7 +242,7 @@ describe('when payment does not happen', () => {
     try {
       expect(await releaseOverdueHolds(api.runtime.ctx)).toBeGreaterThanOrEqual(1);
     } finally {
-      api.clock.current = new Date();
+      api.clock.reset();
     }
     expect((await Order.findByPk(placed.body.order.id))!.state).toBe('cancelled');
     expect(await Bundle.findByPk(bundleId)).toMatchObject({ state: 'on_shelf', quantityAvailable: 1 });

@@ -12,12 +12,15 @@ import { DEFAULT_GUILD_SETTINGS, Guild, Member } from '../../apps/api/src/db/mod
 export const TEST_INVITE_CODE = 'TEST-GUILD-CODE';
 export const TEST_PASSWORD = 'long-enough-password';
 
-/** A settable clock, so token lifetimes and windows are tested without waiting. */
+/** Real time plus a settable offset, so token lifetimes and windows are tested without waiting. */
 export class TestClock {
-  constructor(public current = new Date()) {}
-  now = () => new Date(this.current);
+  private offsetMs = 0;
+  now = () => new Date(Date.now() + this.offsetMs);
   advance(ms: number) {
-    this.current = new Date(this.current.getTime() + ms);
+    this.offsetMs += ms;
+  }
+  reset() {
+    this.offsetMs = 0;
   }
 }
 

@@ -22,6 +22,8 @@ import { postageRoutes } from './modules/postage/postage.routes.ts';
 import { ledgerRoutes } from './modules/ledger/ledger.routes.ts';
 import { meetingsRoutes } from './modules/meetings/meetings.routes.ts';
 import { profileRoutes } from './modules/members/profile.routes.ts';
+import { starterRoutes } from './modules/starter/starter.routes.ts';
+import { handoversRoutes } from './modules/handovers/handovers.routes.ts';
 
 /** Builds the HTTP app without listening, so tests drive it with supertest and server.ts serves it. */
 export function createApp(ctx: AppContext, pool: pg.Pool): Express {
@@ -78,6 +80,8 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   api.use(ledgerRoutes(ctx));
   api.use(meetingsRoutes(ctx));
   api.use(profileRoutes());
+  api.use(starterRoutes(ctx));
+  api.use(handoversRoutes(ctx));
   api.use(notFoundHandler);
   app.use('/api', api);
 

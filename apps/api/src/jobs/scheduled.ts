@@ -3,6 +3,8 @@ import type { AppContext } from '../context.ts';
 import { bundleExpired } from '../emails/bundles.ts';
 import { loadGuild } from '../modules/guild/guild.service.ts';
 import { autoReceive, releaseOverdueHolds } from '../modules/orders/orders.service.ts';
+import { lapseOffers } from '../modules/starter/starter.service.ts';
+import { sendMeetingReminders } from '../modules/handovers/handovers.service.ts';
 
 export const EXPIRE_BUNDLES_QUEUE = 'bundles-expire';
 export const RELEASE_HOLDS_QUEUE = 'orders-release-holds';
@@ -40,6 +42,8 @@ export async function startScheduledJobs(ctx: AppContext): Promise<void> {
     [EXPIRE_BUNDLES_QUEUE, '*/15 * * * *', () => expireBundles(ctx)],
     [RELEASE_HOLDS_QUEUE, '* * * * *', () => releaseOverdueHolds(ctx)],
     [AUTO_RECEIVE_QUEUE, '17 3 * * *', () => autoReceive(ctx)],
+    ['starter-offers-lapse', '*/5 * * * *', () => lapseOffers(ctx)],
+    ['meetings-remind', '7 * * * *', () => sendMeetingReminders(ctx)],
   ];
   for (const [name, cron, run] of jobs) {
     await boss.createQueue(name, { name, policy: 'singleton' });

@@ -1,7 +1,7 @@
 import type { BundleState } from '@scrap-relay/shared';
 import type { Actor } from './index.ts';
 
-type BundleRecord = { sellerId: string; state: BundleState; quantityAvailable?: number };
+type BundleRecord = { sellerId: string; state: BundleState; quantityAvailable?: number; offer?: string | null };
 
 const EDITABLE: BundleState[] = ['draft', 'returned', 'withdrawn', 'expired'];
 const SUBMITTABLE: BundleState[] = ['draft', 'returned', 'withdrawn', 'expired'];
@@ -21,8 +21,13 @@ export const bundlePolicy = {
   'bundle.withdraw': (a: Actor, b?: BundleRecord) => isSeller(a, b) && WITHDRAWABLE.includes(b!.state),
   'bundle.relist': (a: Actor, b?: BundleRecord) => isSeller(a, b) && verified(a) && (b!.state === 'expired' || b!.state === 'withdrawn'),
   'bundle.reviewQueue': (a: Actor, _b?: undefined) => isLibrarian(a),
-  /** A librarian never reviews their own bundle; another librarian does. */
-  'bundle.review': (a: Actor, b?: BundleRecord) => isLibrarian(a) && b !== undefined && !isSeller(a, b) && b.state === 'in_review',
+  /** A librarian never reviews their own bundle (another librarian does), except a starter bundle made up from the guild's stash. */
+  'bundle.review': (a: Actor, b?: BundleRecord) =>
+    isLibrarian(a) && b !== undefined && (!isSeller(a, b) || b.offer === 'starter') && b.state === 'in_review',
   'bundle.buy': (a: Actor, b?: BundleRecord) =>
-    verified(a) && b !== undefined && !isSeller(a, b) && b.state === 'on_shelf' && (b.quantityAvailable ?? 0) > 0,
+    verified(a) && b !== undefined && b.offer !== 'starter' && !isSeller(a, b) && b.state === 'on_shelf' && (b.quantityAvailable ?? 0) > 0,
+  'bundle.claim': (a: Actor, b?: BundleRecord) =>
+    verified(a) && a.newQuilter === true && b !== undefined && b.offer === 'starter' && !isSeller(a, b) && b.state === 'on_shelf' && (b.quantityAvailable ?? 0) > 0,
+  /** Librarians keep the waiting list; they may also approve the guild's own starter bundles they made up. */
+  'starter.manage': (a: Actor, _b?: undefined) => isLibrarian(a),
 };

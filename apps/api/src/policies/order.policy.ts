@@ -6,6 +6,7 @@ type OrderRecord = { buyerId: string; sellerId: string; state: OrderState; fulfi
 const isBuyer = (a: Actor, o?: OrderRecord) => o !== undefined && o.buyerId === a.id;
 const isSeller = (a: Actor, o?: OrderRecord) => o !== undefined && o.sellerId === a.id;
 const isTreasurer = (a: Actor) => a.roles.includes('treasurer');
+const isMeetingKeeper = (a: Actor) => a.roles.includes('admin') || a.roles.includes('librarian');
 const PAID: OrderState[] = ['confirmed', 'posted', 'received', 'handed_over'];
 
 export const orderPolicy = {
@@ -15,11 +16,14 @@ export const orderPolicy = {
   'order.viewAddress': (a: Actor, o?: OrderRecord) => isBuyer(a, o) || isTreasurer(a) || (isSeller(a, o) && PAID.includes(o!.state)),
   'order.markPosted': (a: Actor, o?: OrderRecord) => isSeller(a, o) && o!.fulfilment === 'post' && o!.state === 'confirmed',
   'order.markReceived': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && o!.state === 'posted',
-  'order.cancel': (a: Actor, o?: OrderRecord) => (isBuyer(a, o) || isSeller(a, o)) && (o!.state === 'awaiting_payment' || o!.state === 'confirmed'),
+  'order.cancel': (a: Actor, o?: OrderRecord) =>
+    ((isBuyer(a, o) || isSeller(a, o)) && (o!.state === 'awaiting_payment' || o!.state === 'confirmed')) ||
+    // The librarian cancels a meeting handover that did not happen.
+    (isMeetingKeeper(a) && o !== undefined && o.fulfilment === 'meeting' && o.state === 'confirmed'),
   'order.reportProblem': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && (o!.state === 'posted' || o!.state === 'received'),
   'order.refund': (a: Actor, o?: OrderRecord) => isTreasurer(a) && o !== undefined && o.chargeMinor > 0 && PAID.includes(o.state),
   'ledger.view': (a: Actor, _o?: undefined) => isTreasurer(a),
   'payout.record': (a: Actor, _o?: undefined) => isTreasurer(a),
   'postage.manage': (a: Actor, _o?: undefined) => a.roles.includes('admin'),
-  'meeting.manage': (a: Actor, _o?: undefined) => a.roles.includes('admin') || a.roles.includes('librarian'),
+  'meeting.manage': (a: Actor, _o?: undefined) => isMeetingKeeper(a),
 };

@@ -17,6 +17,7 @@ export interface BundleAbilities {
   relist: boolean;
   review: boolean;
   buy: boolean;
+  claim: boolean;
 }
 
 export interface SellerSummary {

@@ -1,8 +1,10 @@
 import { z } from 'zod';
 import { COLOUR_FAMILIES, COLOUR_VALUES, CUT_KINDS, FIBRES } from '../domain/fibres.ts';
 
-/** Offers a member can choose when listing; `starter` donations come with the starter programme. */
-export const LISTING_OFFERS = ['sale', 'postage_only', 'meeting'] as const;
+/** Offers a member can choose when listing; `starter` donates the bundle to the starter programme for new quilters. */
+export const LISTING_OFFERS = ['sale', 'postage_only', 'meeting', 'starter'] as const;
+/** The shelf shows what can be bought or asked for; starter bundles are claimed through the starter programme. */
+export const SHELF_OFFERS = ['sale', 'postage_only', 'meeting'] as const;
 export const listingOfferSchema = z.enum(LISTING_OFFERS, { error: 'Choose how the bundle changes hands.' });
 
 export const MAX_PHOTOS_PER_BUNDLE = 8;
@@ -81,7 +83,7 @@ const queryInt = (max: number) => z.coerce.number({ error: 'Enter a whole number
 
 /** Shelf filters: the shelf's query string, a saved wish's criteria. */
 export const shelfFiltersSchema = z.strictObject({
-  offer: z.enum(LISTING_OFFERS, { error: 'Unknown offer.' }).optional(),
+  offer: z.enum(SHELF_OFFERS, { error: 'Unknown offer.' }).optional(),
   cut: z.enum(CUT_KINDS, { error: 'Unknown cut kind.' }).optional(),
   value: z.enum(COLOUR_VALUES, { error: 'Unknown colour value.' }).optional(),
   family: z.enum(COLOUR_FAMILIES, { error: 'Unknown colour family.' }).optional(),
@@ -107,6 +109,18 @@ export const wishSchema = z.strictObject({
   }),
 });
 export type WishInput = z.infer<typeof wishSchema>;
+
+export const starterClaimSchema = z.strictObject({
+  meetingId: z.uuid({ error: 'Choose a meeting.' }).optional(),
+});
+
+export const waitlistRemovalSchema = z.strictObject({
+  reason: z.string({ error: 'Give a reason.' }).trim().min(3, { error: 'Give a reason.' }).max(300),
+});
+
+export const handoverMoveSchema = z.strictObject({
+  toMeetingId: z.uuid({ error: 'Choose the meeting to move them to.' }),
+});
 
 export const yieldRequestSchema = z.strictObject({
   weightGrams: fields.weightGrams,

@@ -12,14 +12,16 @@ import { OrderItem } from './order-item.ts';
 import { OrderProblem } from './order-problem.ts';
 import { Payout } from './payout.ts';
 import { LedgerEntry } from './ledger-entry.ts';
+import { StarterClaim } from './starter-claim.ts';
+import { WaitlistEntry, WaitlistOffer } from './waitlist.ts';
 
-export { Bundle, BundlePhoto, BundleReview, Guild, LedgerEntry, Meeting, Member, MemberToken, Order, OrderItem, OrderProblem, Payout, Wish };
+export { Bundle, BundlePhoto, BundleReview, Guild, LedgerEntry, Meeting, Member, MemberToken, Order, OrderItem, OrderProblem, Payout, StarterClaim, WaitlistEntry, WaitlistOffer, Wish };
 export { DEFAULT_GUILD_SETTINGS, type GuildSettingsDocument } from './guild.ts';
 export type { TokenPurpose as TokenPurposeType } from './member-token.ts';
 
 /** Initialises every model on one connection and wires the associations in one place. */
 export function initModels(sequelize: Sequelize) {
-  for (const model of [Guild, Member, MemberToken, Bundle, BundlePhoto, BundleReview, Wish, Meeting, Order, OrderItem, OrderProblem, Payout, LedgerEntry]) {
+  for (const model of [Guild, Member, MemberToken, Bundle, BundlePhoto, BundleReview, Wish, Meeting, Order, OrderItem, OrderProblem, Payout, LedgerEntry, StarterClaim, WaitlistEntry, WaitlistOffer]) {
     model.initModel(sequelize);
   }
 
@@ -37,4 +39,8 @@ export function initModels(sequelize: Sequelize) {
   Order.belongsTo(Member, { foreignKey: 'sellerId', as: 'seller' });
   Order.belongsTo(Meeting, { foreignKey: 'meetingId', as: 'meeting' });
   Order.hasMany(OrderProblem, { foreignKey: 'orderId', as: 'problems' });
+  StarterClaim.belongsTo(Bundle, { foreignKey: 'bundleId', as: 'bundle' });
+  StarterClaim.belongsTo(Member, { foreignKey: 'memberId', as: 'member' });
+  StarterClaim.belongsTo(Meeting, { foreignKey: 'meetingId', as: 'meeting' });
+  WaitlistEntry.belongsTo(Member, { foreignKey: 'memberId', as: 'member' });
 }

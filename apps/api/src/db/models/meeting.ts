@@ -6,6 +6,7 @@ export class Meeting extends Model<InferAttributes<Meeting>, InferCreationAttrib
   declare place: string;
   declare notes: CreationOptional<string>;
   declare createdBy: string | null;
+  declare reminderSentAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -17,6 +18,7 @@ export class Meeting extends Model<InferAttributes<Meeting>, InferCreationAttrib
         place: { type: DataTypes.TEXT, allowNull: false },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         createdBy: { type: DataTypes.UUID, allowNull: true },
+        reminderSentAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

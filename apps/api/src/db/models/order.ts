@@ -31,6 +31,7 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
   declare trackingNumber: CreationOptional<string | null>;
   declare receivedAt: CreationOptional<Date | null>;
   declare handedOverAt: CreationOptional<Date | null>;
+  declare handedOverBy: CreationOptional<string | null>;
   declare cancelledAt: CreationOptional<Date | null>;
   declare cancelReason: CreationOptional<string | null>;
   declare refundedAt: CreationOptional<Date | null>;
@@ -73,6 +74,7 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
         trackingNumber: { type: DataTypes.TEXT, allowNull: true },
         receivedAt: date(),
         handedOverAt: date(),
+        handedOverBy: { type: DataTypes.UUID, allowNull: true },
         cancelledAt: date(),
         cancelReason: { type: DataTypes.TEXT, allowNull: true },
         refundedAt: date(),

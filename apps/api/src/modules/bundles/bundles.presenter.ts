@@ -87,6 +87,7 @@ export function presentBundle(bundle: Bundle, viewer: Actor, seller: SellerSumma
       relist: can(viewer, 'bundle.relist', bundle),
       review: can(viewer, 'bundle.review', bundle),
       buy: can(viewer, 'bundle.buy', bundle),
+      claim: can(viewer, 'bundle.claim', bundle),
     },
   };
 }

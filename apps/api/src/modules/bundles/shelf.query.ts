@@ -30,7 +30,7 @@ interface ShelfRow {
 
 /** Builds the WHERE clause from the filters; every value goes in as a bind parameter. */
 function whereClause(q: ShelfQuery): { sql: string; bind: unknown[] } {
-  const conditions = [`b.state = 'on_shelf'`];
+  const conditions = [`b.state = 'on_shelf'`, `b.offer <> 'starter'`];
   const bind: unknown[] = [];
   const add = (sql: (n: string) => string, value: unknown) => {
     bind.push(value);

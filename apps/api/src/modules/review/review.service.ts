@@ -7,6 +7,7 @@ import type { AppContext } from '../../context.ts';
 import { loadGuild } from '../guild/guild.service.ts';
 import { findBundle } from '../bundles/bundles.service.ts';
 import { WISH_MATCH_SQL } from '../wishes/wishes.service.ts';
+import { offerToNextInLine } from '../starter/starter.service.ts';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
@@ -56,6 +57,9 @@ export async function decide(ctx: AppContext, librarian: Actor, bundleId: string
       { transaction },
     );
     await ctx.queue.enqueueEmail({ to: seller.email, ...bundleApproved({ guildName: guild.name, name: seller.name, title: bundle.title, link }) }, transaction);
+
+    // A starter bundle goes first to whoever has waited longest.
+    if (bundle.offer === 'starter') await offerToNextInLine(ctx, bundle.id, transaction);
 
     const matches = await ctx.sequelize.query<{ wish_name: string; member_name: string; member_email: string }>(WISH_MATCH_SQL, {
       bind: [bundle.id],

@@ -15,7 +15,7 @@ export const WISH_MATCH_SQL = `
     FROM wishes w
     JOIN bundles b ON b.id = $1
     JOIN members m ON m.id = w.member_id AND m.active AND m.email_verified_at IS NOT NULL
-    WHERE w.member_id <> b.seller_id
+    WHERE w.member_id <> b.seller_id AND b.offer <> 'starter'
       AND (w.filters->>'offer' IS NULL OR w.filters->>'offer' = b.offer)
       AND (w.filters->>'cut' IS NULL OR b.cut_kinds @> ARRAY[w.filters->>'cut'])
       AND (w.filters->>'value' IS NULL OR w.filters->>'value' = b.colour_value)

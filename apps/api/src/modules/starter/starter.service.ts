@@ -1,0 +1,285 @@
+import { Op, QueryTypes, type Transaction } from 'sequelize';
+import { isNewQuilter, offerExpiresAtFrom, starterEligibility, type StarterEligibility } from '@scrap-relay/shared';
+import { Bundle, Meeting, Member, StarterClaim, WaitlistEntry, WaitlistOffer, type Guild } from '../../db/models/index.ts';
+import { AppError, badRequest, conflict, notFound } from '../../errors/index.ts';
+import { starterClaimed, starterOffered } from '../../emails/starter.ts';
+import { authorize, type Actor } from '../../policies/index.ts';
+import type { AppContext } from '../../context.ts';
+import { loadGuild } from '../guild/guild.service.ts';
+
+const DAY_MS = 86_400_000;
+
+const meetingLabel = (m: Meeting | null) => (m ? `${m.startsAt.toISOString().slice(0, 16).replace('T', ' ')} UTC, ${m.place}` : null);
+
+/** Whether the member may claim now, from the guild's window and limit and their claims not cancelled. */
+export async function eligibilityOf(member: Member, guild: Guild, now: Date, transaction?: Transaction): Promise<StarterEligibility> {
+  const newQuilter = isNewQuilter({ joinedAt: member.joinedAt, newQuilterFlag: member.newQuilterFlag, newcomerWindowMonths: guild.settings.newcomerWindowMonths, now });
+  const claims = await StarterClaim.findAll({
+    where: { memberId: member.id, state: { [Op.ne]: 'cancelled' }, claimedAt: { [Op.gt]: new Date(now.getTime() - guild.settings.starterWindowDays * DAY_MS) } },
+    transaction,
+  });
+  return starterEligibility({
+    isNewQuilter: newQuilter,
+    claimsAt: claims.map((c) => c.claimedAt),
+    limitPerWindow: guild.settings.starterLimitPerWindow,
+    windowDays: guild.settings.starterWindowDays,
+    now,
+  });
+}
+
+export function ineligible(e: Exclude<StarterEligibility, { eligible: true }>): AppError {
+  if (e.reason === 'not_new_quilter') {
+    return new AppError(403, 'forbidden', 'Starter bundles are for new quilters. Ask the librarian if you think you should be on the list.');
+  }
+  const when = e.nextEligibleAt.toISOString().slice(0, 10);
+  return new AppError(403, 'forbidden', `You have had your starter bundle for now; you may claim another from ${when}.`, { nextEligibleAt: when });
+}
+
+export async function availableStarterBundles(): Promise<Bundle[]> {
+  return Bundle.findAll({
+    where: { offer: 'starter', state: 'on_shelf', quantityAvailable: { [Op.gt]: 0 } },
+    include: [{ association: 'photos' }, { association: 'seller' }],
+    order: [
+      ['onShelfAt', 'ASC'],
+      ['photos', 'position', 'ASC'],
+    ],
+  });
+}
+
+async function nextMeeting(now: Date, transaction?: Transaction) {
+  return Meeting.findOne({ where: { startsAt: { [Op.gt]: now } }, order: [['startsAt', 'ASC']], transaction });
+}
+
+async function chosenMeeting(meetingId: string | undefined, now: Date, transaction: Transaction) {
+  if (!meetingId) return nextMeeting(now, transaction);
+  const meeting = await Meeting.findByPk(meetingId, { transaction });
+  if (!meeting || meeting.startsAt <= now) throw badRequest('Choose a meeting that is still to come.', { meetingId: 'Not a coming meeting.' });
+  return meeting;
+}
+
+/** Takes one unit of a starter bundle for the member and records the claim; the caller holds the bundle's row lock. */
+async function recordClaim(ctx: AppContext, guild: Guild, member: Member, bundle: Bundle, meeting: Meeting | null, transaction: Transaction) {
+  const remaining = bundle.quantityAvailable - 1;
+  await bundle.update({ quantityAvailable: remaining, state: remaining === 0 ? 'rehomed' : 'on_shelf' }, { transaction });
+  const claim = await StarterClaim.create({ bundleId: bundle.id, memberId: member.id, meetingId: meeting?.id ?? null, claimedAt: ctx.now() }, { transaction });
+  await WaitlistEntry.update({ status: 'claimed' }, { where: { memberId: member.id, status: { [Op.in]: ['waiting', 'offered'] } }, transaction });
+  const mail = starterClaimed({ guildName: guild.name, name: member.name, title: bundle.title, link: `${ctx.config.appUrl}/starter`, meeting: meetingLabel(meeting) });
+  await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
+  return claim;
+}
+
+/**
+ * First come, first served: the member's row is locked (so their own limit holds under
+ * concurrency), then the bundle's; the last unit goes to exactly one claimant.
+ */
+export async function claimStarterBundle(ctx: AppContext, memberId: string, bundleId: string, meetingId: string | undefined): Promise<StarterClaim> {
+  const guild = await loadGuild();
+  return ctx.sequelize.transaction(async (transaction) => {
+    const member = (await Member.findByPk(memberId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    const eligibility = await eligibilityOf(member, guild, ctx.now(), transaction);
+    if (!eligibility.eligible) throw ineligible(eligibility);
+    const bundle = await Bundle.findByPk(bundleId, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!bundle || bundle.offer !== 'starter') throw notFound('That starter bundle');
+    if (bundle.sellerId === member.id) throw new AppError(403, 'forbidden', 'You cannot claim a bundle you gave.');
+    if (bundle.state !== 'on_shelf' || bundle.quantityAvailable < 1) {
+      throw conflict('Someone else claimed that one a moment ago. You can join the waiting list for the next.', { bundleId: 'Already claimed.' });
+    }
+    const meeting = await chosenMeeting(meetingId, ctx.now(), transaction);
+    return recordClaim(ctx, guild, member, bundle, meeting, transaction);
+  });
+}
+
+/** A new quilter joins the queue once; when a starter bundle is free they should claim it instead. */
+export async function joinWaitlist(ctx: AppContext, memberId: string): Promise<WaitlistEntry> {
+  const guild = await loadGuild();
+  return ctx.sequelize.transaction(async (transaction) => {
+    const member = (await Member.findByPk(memberId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    const eligibility = await eligibilityOf(member, guild, ctx.now(), transaction);
+    if (!eligibility.eligible) throw ineligible(eligibility);
+    const open = await WaitlistEntry.findOne({ where: { memberId, status: { [Op.in]: ['waiting', 'offered'] } }, transaction });
+    if (open) throw conflict('You are already on the waiting list.', { waitlist: 'Already waiting.' });
+    const free = await Bundle.count({ where: { offer: 'starter', state: 'on_shelf', quantityAvailable: { [Op.gt]: 0 } }, transaction });
+    if (free > 0) throw conflict('A starter bundle is free right now: claim it instead of waiting.', { waitlist: 'One is free now.' });
+    return WaitlistEntry.create({ memberId, joinedAt: ctx.now() }, { transaction });
+  });
+}
+
+/**
+ * Offers the bundle to the first eligible person in the queue (in the order they asked),
+ * holding it for them until the deadline; people who are no longer eligible leave the
+ * queue on the way. With nobody waiting the bundle stays on the shelf for anyone eligible.
+ */
+export async function offerToNextInLine(ctx: AppContext, bundleId: string, transaction: Transaction): Promise<WaitlistOffer | null> {
+  const guild = await loadGuild();
+  const bundle = await Bundle.findByPk(bundleId, { transaction, lock: transaction.LOCK.UPDATE });
+  if (!bundle || bundle.offer !== 'starter' || bundle.quantityAvailable < 1 || !['on_shelf', 'held'].includes(bundle.state)) return null;
+  const openOffer = await WaitlistOffer.findOne({ where: { bundleId, status: 'open' }, transaction });
+  if (openOffer) return openOffer;
+  const now = ctx.now();
+  const queue = await WaitlistEntry.findAll({
+    where: { status: 'waiting' },
+    order: [
+      ['joinedAt', 'ASC'],
+      ['id', 'ASC'],
+    ],
+    transaction,
+    lock: transaction.LOCK.UPDATE,
+    skipLocked: true,
+  });
+  for (const entry of queue) {
+    const member = await Member.findByPk(entry.memberId, { transaction });
+    if (!member || !member.active) {
+      await entry.update({ status: 'removed', removedReason: 'Account closed or switched off.' }, { transaction });
+      continue;
+    }
+    const eligibility = await eligibilityOf(member, guild, now, transaction);
+    if (!eligibility.eligible) {
+      await entry.update({ status: 'removed', removedReason: 'No longer eligible for a starter bundle.' }, { transaction });
+      continue;
+    }
+    const offer = await WaitlistOffer.create(
+      { entryId: entry.id, bundleId, offeredAt: now, expiresAt: offerExpiresAtFrom(now, guild.settings.starterOfferHours) },
+      { transaction },
+    );
+    await entry.update({ status: 'offered' }, { transaction });
+    await bundle.update({ state: 'held' }, { transaction });
+    const mail = starterOffered({
+      guildName: guild.name,
+      name: member.name,
+      title: bundle.title,
+      link: `${ctx.config.appUrl}/starter/offers/${offer.id}`,
+      deadline: `${offer.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`,
+    });
+    await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
+    return offer;
+  }
+  if (bundle.state === 'held') await bundle.update({ state: 'on_shelf' }, { transaction });
+  return null;
+}
+
+async function lockedOffer(offerId: string, memberId: string, transaction: Transaction) {
+  const offer = await WaitlistOffer.findByPk(offerId, { transaction, lock: transaction.LOCK.UPDATE });
+  if (!offer) throw notFound('That offer');
+  const entry = (await WaitlistEntry.findByPk(offer.entryId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+  if (entry.memberId !== memberId) throw notFound('That offer');
+  return { offer, entry };
+}
+
+export async function acceptOffer(ctx: AppContext, memberId: string, offerId: string, meetingId: string | undefined): Promise<StarterClaim> {
+  const guild = await loadGuild();
+  return ctx.sequelize.transaction(async (transaction) => {
+    const member = (await Member.findByPk(memberId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    const { offer, entry } = await lockedOffer(offerId, memberId, transaction);
+    if (offer.status !== 'open' || offer.expiresAt <= ctx.now()) throw conflict('This offer has ended; it went to the next person in line.', { offer: 'Ended.' });
+    const bundle = (await Bundle.findByPk(offer.bundleId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    const meeting = await chosenMeeting(meetingId, ctx.now(), transaction);
+    await offer.update({ status: 'accepted', answeredAt: ctx.now() }, { transaction });
+    await entry.update({ status: 'claimed' }, { transaction });
+    const claim = await recordClaim(ctx, guild, member, bundle, meeting, transaction);
+    if (bundle.quantityAvailable > 0) await offerToNextInLine(ctx, bundle.id, transaction);
+    return claim;
+  });
+}
+
+export async function declineOffer(ctx: AppContext, memberId: string, offerId: string): Promise<void> {
+  await ctx.sequelize.transaction(async (transaction) => {
+    const { offer, entry } = await lockedOffer(offerId, memberId, transaction);
+    if (offer.status !== 'open') throw conflict('This offer has already ended.', { offer: 'Ended.' });
+    await offer.update({ status: 'declined', answeredAt: ctx.now() }, { transaction });
+    await entry.update({ status: 'declined' }, { transaction });
+    await offerToNextInLine(ctx, offer.bundleId, transaction);
+  });
+}
+
+/** Scheduled: offers past their deadline lapse and pass to the next person in line. */
+export async function lapseOffers(ctx: AppContext): Promise<number> {
+  const due = await WaitlistOffer.findAll({ where: { status: 'open', expiresAt: { [Op.lte]: ctx.now() } }, limit: 200 });
+  for (const stale of due) {
+    await ctx.sequelize.transaction(async (transaction) => {
+      const offer = (await WaitlistOffer.findByPk(stale.id, { transaction, lock: transaction.LOCK.UPDATE }))!;
+      if (offer.status !== 'open') return;
+      await offer.update({ status: 'lapsed', answeredAt: ctx.now() }, { transaction });
+      await WaitlistEntry.update({ status: 'lapsed' }, { where: { id: offer.entryId }, transaction });
+      await offerToNextInLine(ctx, offer.bundleId, transaction);
+    });
+  }
+  return due.length;
+}
+
+/** Leaving (by the member) or removal (by the librarian, with a reason): an open offer passes to the next person. */
+export async function leaveWaitlist(ctx: AppContext, memberId: string, removal?: { by: Actor; reason: string; entryId: string }): Promise<void> {
+  await ctx.sequelize.transaction(async (transaction) => {
+    const entry = removal
+      ? await WaitlistEntry.findByPk(removal.entryId, { transaction, lock: transaction.LOCK.UPDATE })
+      : await WaitlistEntry.findOne({ where: { memberId, status: { [Op.in]: ['waiting', 'offered'] } }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!entry || !['waiting', 'offered'].includes(entry.status)) throw notFound('A place on the waiting list');
+    if (removal) authorize(removal.by, 'starter.manage');
+    await entry.update(removal ? { status: 'removed', removedReason: removal.reason } : { status: 'left' }, { transaction });
+    const offer = await WaitlistOffer.findOne({ where: { entryId: entry.id, status: 'open' }, transaction, lock: transaction.LOCK.UPDATE });
+    if (offer) {
+      await offer.update({ status: 'withdrawn', answeredAt: ctx.now() }, { transaction });
+      await offerToNextInLine(ctx, offer.bundleId, transaction);
+    }
+  });
+}
+
+export interface WaitlistRow {
+  id: string;
+  position: number;
+  memberId: string;
+  name: string;
+  status: string;
+  joinedAt: string;
+  waitingDays: number;
+  offer: { id: string; bundleTitle: string; expiresAt: string } | null;
+}
+
+export async function waitlistQueue(sequelize: AppContext['sequelize'], now: Date): Promise<WaitlistRow[]> {
+  const rows = await sequelize.query<{ id: string; member_id: string; name: string; status: string; joined_at: Date; offer_id: string | null; title: string | null; expires_at: Date | null }>(
+    `SELECT e.id, e.member_id, m.name, e.status, e.joined_at, o.id AS offer_id, b.title, o.expires_at
+     FROM waitlist_entries e JOIN members m ON m.id = e.member_id
+     LEFT JOIN waitlist_offers o ON o.entry_id = e.id AND o.status = 'open'
+     LEFT JOIN bundles b ON b.id = o.bundle_id
+     WHERE e.status IN ('waiting', 'offered')
+     ORDER BY e.joined_at, e.id`,
+    { type: QueryTypes.SELECT },
+  );
+  return rows.map((r, i) => ({
+    id: r.id,
+    position: i + 1,
+    memberId: r.member_id,
+    name: r.name,
+    status: r.status,
+    joinedAt: new Date(r.joined_at).toISOString(),
+    waitingDays: Math.floor((now.getTime() - new Date(r.joined_at).getTime()) / DAY_MS),
+    offer: r.offer_id ? { id: r.offer_id, bundleTitle: r.title ?? '', expiresAt: new Date(r.expires_at!).toISOString() } : null,
+  }));
+}
+
+/** A member's own view: eligibility, claims, place in the queue and any open offer. */
+export async function myStarterStatus(ctx: AppContext, member: Member) {
+  const guild = await loadGuild();
+  const now = ctx.now();
+  const eligibility = await eligibilityOf(member, guild, now);
+  const claims = await StarterClaim.findAll({ where: { memberId: member.id }, include: [{ association: 'bundle' }, { association: 'meeting' }], order: [['claimedAt', 'DESC']] });
+  const entry = await WaitlistEntry.findOne({ where: { memberId: member.id, status: { [Op.in]: ['waiting', 'offered'] } } });
+  const position = entry
+    ? await WaitlistEntry.count({ where: { status: { [Op.in]: ['waiting', 'offered'] }, [Op.or]: [{ joinedAt: { [Op.lt]: entry.joinedAt } }, { joinedAt: entry.joinedAt, id: { [Op.lte]: entry.id } }] } })
+    : null;
+  const offer = entry ? await WaitlistOffer.findOne({ where: { entryId: entry.id, status: 'open' } }) : null;
+  const offerBundle = offer ? await Bundle.findByPk(offer.bundleId) : null;
+  return {
+    eligibility: eligibility.eligible
+      ? { eligible: true as const }
+      : { eligible: false as const, reason: eligibility.reason, nextEligibleAt: eligibility.reason === 'over_limit' ? eligibility.nextEligibleAt.toISOString() : null },
+    waitlist: entry ? { status: entry.status, position, joinedAt: entry.joinedAt.toISOString() } : null,
+    offer: offer && offerBundle ? { id: offer.id, bundleId: offerBundle.id, title: offerBundle.title, expiresAt: offer.expiresAt.toISOString() } : null,
+    claims: claims.map((c) => ({
+      id: c.id,
+      state: c.state,
+      claimedAt: c.claimedAt.toISOString(),
+      bundle: { id: c.bundleId, title: c.bundle?.title ?? '' },
+      meeting: c.meeting ? { id: c.meeting.id, startsAt: c.meeting.startsAt.toISOString(), place: c.meeting.place } : null,
+    })),
+  };
+}
