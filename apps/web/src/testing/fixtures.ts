@@ -1,0 +1,60 @@
+import type { GuildSummary, MemberRow, SessionResponse, SessionUser, UserAbilities } from '@scrap-relay/shared';
+
+/** Invented people and an invented guild for unit tests; each test states what differs from these. */
+
+export const NO_ABILITIES: UserAbilities = {
+  listBundles: false,
+  buy: false,
+  claimStarter: false,
+  reviewBundles: false,
+  runStarterProgramme: false,
+  viewLedger: false,
+  manageMembers: false,
+  manageSettings: false,
+};
+
+export const MEMBER_ABILITIES: UserAbilities = { ...NO_ABILITIES, listBundles: true, buy: true };
+
+export const ADMIN_ABILITIES: UserAbilities = { ...MEMBER_ABILITIES, manageMembers: true, manageSettings: true };
+
+export const testGuild: GuildSummary = { name: 'Larkhollow Quilting Circle', town: 'Larkhollow', currency: 'GBP', defaultUnits: 'metric' };
+
+export function makeUser(overrides: Partial<SessionUser> = {}): SessionUser {
+  return {
+    id: 'u-1',
+    name: 'Hester Quill',
+    email: 'hester@larkhollow.example',
+    roles: ['member'],
+    newQuilter: false,
+    emailVerified: true,
+    units: 'metric',
+    abilities: MEMBER_ABILITIES,
+    ...overrides,
+  };
+}
+
+export function makeSession(user: SessionUser | null, csrfToken = 'csrf-1'): SessionResponse {
+  return { user, guild: testGuild, csrfToken };
+}
+
+export function makeMember(index: number, overrides: Partial<MemberRow> = {}): MemberRow {
+  return {
+    id: `m-${index}`,
+    name: `Member ${String(index).padStart(2, '0')}`,
+    email: `member${index}@larkhollow.example`,
+    roles: ['member'],
+    newQuilter: false,
+    newQuilterFlag: false,
+    emailVerified: true,
+    active: true,
+    joinedAt: new Date(Date.UTC(2024, 0, index)).toISOString(),
+    abilities: { changeRoles: true, deactivate: true, flagNewQuilter: true },
+    ...overrides,
+  };
+}
+
+export const jsonResponse = (status: number, body?: unknown): Response =>
+  new Response(body === undefined ? null : JSON.stringify(body), {
+    status,
+    headers: body === undefined ? {} : { 'Content-Type': 'application/json' },
+  });

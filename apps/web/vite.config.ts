@@ -1,0 +1,24 @@
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+import { defineConfig } from 'vitest/config';
+
+// The API runs on its own port in development; proxying keeps cookies and CSRF same-origin.
+const apiTarget = `http://127.0.0.1:${process.env.SR_API_PORT ?? 4301}`;
+
+export default defineConfig({
+  root: import.meta.dirname,
+  plugins: [react(), tailwindcss()],
+  server: {
+    proxy: {
+      '/api': { target: apiTarget, changeOrigin: false },
+      '/uploads': { target: apiTarget, changeOrigin: false },
+    },
+  },
+  build: { outDir: 'dist', emptyOutDir: true },
+  test: {
+    // Also when the root vitest.config.ts extends this file as its "web" project.
+    root: import.meta.dirname,
+    environment: 'happy-dom',
+    include: ['src/**/*.test.{ts,tsx}'],
+  },
+});
