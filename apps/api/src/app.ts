@@ -24,6 +24,7 @@ import { meetingsRoutes } from './modules/meetings/meetings.routes.ts';
 import { profileRoutes } from './modules/members/profile.routes.ts';
 import { starterRoutes } from './modules/starter/starter.routes.ts';
 import { handoversRoutes } from './modules/handovers/handovers.routes.ts';
+import { officeRoutes } from './modules/office/office.routes.ts';
 
 /** Builds the HTTP app without listening, so tests drive it with supertest and server.ts serves it. */
 export function createApp(ctx: AppContext, pool: pg.Pool): Express {
@@ -79,7 +80,8 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   api.use(ordersRoutes(ctx));
   api.use(ledgerRoutes(ctx));
   api.use(meetingsRoutes(ctx));
-  api.use(profileRoutes());
+  api.use(profileRoutes(ctx));
+  api.use(officeRoutes(ctx));
   api.use(starterRoutes(ctx));
   api.use(handoversRoutes(ctx));
   api.use(notFoundHandler);

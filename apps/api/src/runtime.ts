@@ -4,7 +4,7 @@ import type { Express } from 'express';
 import type { Config } from './config/index.ts';
 import type { AppContext } from './context.ts';
 import { createApp } from './app.ts';
-import { initModels } from './db/models/index.ts';
+import { initModels, Member } from './db/models/index.ts';
 import { createSequelize } from './db/sequelize.ts';
 import { createMailer } from './integrations/mailer.ts';
 import { createJobQueue } from './jobs/queue.ts';
@@ -38,6 +38,11 @@ export async function createRuntime(
     mailer,
     logger,
     pollingIntervalSeconds: options.pollingIntervalSeconds,
+    wanted: async (mail) => {
+      if (!mail.kind) return true;
+      const member = await Member.findOne({ where: { email: mail.to } });
+      return member?.emailPreferences[mail.kind] !== false;
+    },
   });
   const storage = localStorage(config.uploadDir);
   const stripe = createStripe(config.stripe);

@@ -1,8 +1,11 @@
+import type { OptionalEmailKind } from '@scrap-relay/shared';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Config } from '../config/index.ts';
 
 export interface OutgoingMail {
   to: string;
+  /** Set for kinds a member may turn off; money and account mail leave it unset and always go. */
+  kind?: OptionalEmailKind;
   subject: string;
   text: string;
   html: string;
@@ -24,7 +27,7 @@ export function createMailer(smtp: Config['smtp']): Mailer {
     greetingTimeout: 5_000,
   });
   return {
-    async send(mail) {
+    async send({ kind: _kind, ...mail }) {
       await transport.sendMail({ from: smtp.from, ...mail });
     },
     close: () => transport.close(),

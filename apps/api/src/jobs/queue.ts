@@ -37,6 +37,8 @@ export async function createJobQueue(opts: {
   mailer: Mailer;
   logger: Logger;
   pollingIntervalSeconds?: number;
+  /** Decides at send time whether the recipient still wants this kind of mail. */
+  wanted?: (mail: OutgoingMail) => Promise<boolean>;
 }): Promise<JobQueue> {
   const boss = new PgBoss({ connectionString: opts.databaseUrl, max: 4, application_name: 'scrap-relay-jobs' });
   boss.on('error', (err) => opts.logger.error({ err }, 'job queue error'));
@@ -51,10 +53,18 @@ export async function createJobQueue(opts: {
       await boss.send(EMAIL_QUEUE, mail, options);
     },
     async startWorkers() {
-      await boss.work<OutgoingMail>(EMAIL_QUEUE, { pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 2 }, async (jobs) => {
+      // A batch per poll keeps a burst of wish e-mails moving; each job succeeds or fails on its own,
+      // so one bad address never makes the others go twice.
+      await boss.work<OutgoingMail>(EMAIL_QUEUE, { batchSize: 20, pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 2 }, async (jobs) => {
         for (const job of jobs) {
-          await opts.mailer.send(job.data);
-          opts.logger.info({ to: job.data.to, subject: job.data.subject }, 'e-mail sent');
+          try {
+            if (opts.wanted && !(await opts.wanted(job.data))) continue;
+            await opts.mailer.send(job.data);
+            opts.logger.info({ to: job.data.to, subject: job.data.subject }, 'e-mail sent');
+          } catch (err) {
+            opts.logger.warn({ err, to: job.data.to }, 'e-mail not sent; it will be retried');
+            await boss.fail(EMAIL_QUEUE, job.id, { message: err instanceof Error ? err.message : String(err) });
+          }
         }
       });
     },

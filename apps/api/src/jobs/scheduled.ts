@@ -29,7 +29,7 @@ export async function expireBundles(ctx: AppContext): Promise<number> {
         days: guild.settings.shelfLimitDays,
         link: `${ctx.config.appUrl}/my-bundles`,
       });
-      await ctx.queue.enqueueEmail({ to: row.email, ...mail }, transaction);
+      await ctx.queue.enqueueEmail({ to: row.email, kind: 'review', ...mail }, transaction);
     }
     return expired.length;
   });

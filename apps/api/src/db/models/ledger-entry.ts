@@ -26,9 +26,10 @@ export class LedgerEntry extends Model<InferAttributes<LedgerEntry>, InferCreati
         account: { type: DataTypes.TEXT, allowNull: false },
         amountMinor: { type: DataTypes.INTEGER, allowNull: false },
         currency: { type: DataTypes.CHAR(3), allowNull: false },
-        createdAt: DataTypes.DATE,
+        createdAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
       },
-      { sequelize, tableName: 'ledger_entries', updatedAt: false },
+      // The time is the service's clock, passed in, so statements can be tested by month.
+      { sequelize, tableName: 'ledger_entries', timestamps: false },
     );
   }
 }

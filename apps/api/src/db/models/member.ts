@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { PostalAddress, Role, UnitSystem } from '@scrap-relay/shared';
+import type { OptionalEmailKind, PostalAddress, Role, UnitSystem } from '@scrap-relay/shared';
 
 export class Member extends Model<InferAttributes<Member>, InferCreationAttributes<Member>> {
   declare id: CreationOptional<string>;
@@ -13,6 +13,8 @@ export class Member extends Model<InferAttributes<Member>, InferCreationAttribut
   declare active: CreationOptional<boolean>;
   declare units: UnitSystem | null;
   declare postalAddress: CreationOptional<PostalAddress | null>;
+  declare emailPreferences: CreationOptional<Partial<Record<OptionalEmailKind, boolean>>>;
+  declare closedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -30,6 +32,8 @@ export class Member extends Model<InferAttributes<Member>, InferCreationAttribut
         active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
         units: { type: DataTypes.TEXT, allowNull: true },
         postalAddress: { type: DataTypes.JSONB, allowNull: true },
+        emailPreferences: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+        closedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -150,7 +150,7 @@ export async function moveOpenHandovers(ctx: AppContext, actor: Actor, fromMeeti
       const member = await Member.findByPk(memberId, { transaction });
       if (!member) continue;
       const mail = handoverMoved({ guildName: guild.name, name: member.name, titles, meeting: meetingLabel(to), link: ctx.config.appUrl });
-      await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
+      await ctx.queue.enqueueEmail({ to: member.email, kind: 'meetings', ...mail }, transaction);
     }
     return orders.length + claims.length;
   });
@@ -205,7 +205,7 @@ export async function sendMeetingReminders(ctx: AppContext): Promise<number> {
         const member = await Member.findByPk(id, { transaction });
         if (!member || !member.active) continue;
         const mail = meetingReminder({ guildName: guild.name, name: member.name, meeting: meetingLabel(meeting), bring: bring.get(id) ?? [], collect: collect.get(id) ?? [], link: ctx.config.appUrl });
-        await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
+        await ctx.queue.enqueueEmail({ to: member.email, kind: 'meetings', ...mail }, transaction);
         sent++;
       }
       await meeting.update({ reminderSentAt: now }, { transaction });

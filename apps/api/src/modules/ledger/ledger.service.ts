@@ -102,10 +102,10 @@ export async function recordPayout(ctx: AppContext, actor: Actor, input: PayoutI
       throw unprocessable(`That is more than the guild owes ${seller.name} (${balance} minor units).`, { amountMinor: 'More than the balance.' });
     }
     const payout = await Payout.create(
-      { sellerId: seller.id, amountMinor: input.amountMinor, currency: guild.currency, method: input.method, reference: input.reference, recordedBy: actor.id },
+      { sellerId: seller.id, amountMinor: input.amountMinor, currency: guild.currency, method: input.method, reference: input.reference, recordedBy: actor.id, createdAt: ctx.now() },
       { transaction },
     );
-    await writeLedger(payoutEntries({ sellerId: seller.id, amountMinor: input.amountMinor }), { payoutId: payout.id, currency: guild.currency }, transaction);
+    await writeLedger(payoutEntries({ sellerId: seller.id, amountMinor: input.amountMinor }), { payoutId: payout.id, currency: guild.currency, at: ctx.now() }, transaction);
     return payout;
   });
 }

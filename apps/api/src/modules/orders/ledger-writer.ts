@@ -6,7 +6,7 @@ import { LedgerEntry } from '../../db/models/index.ts';
 /** Writes one balanced transaction of ledger entries; an unbalanced set is a bug, so it throws before writing. */
 export async function writeLedger(
   entries: DomainEntry[],
-  link: { orderId?: string; payoutId?: string; currency: string },
+  link: { orderId?: string; payoutId?: string; currency: string; at: Date },
   transaction: Transaction,
 ): Promise<void> {
   if (entries.length === 0) return;
@@ -22,6 +22,7 @@ export async function writeLedger(
       account: e.account,
       amountMinor: e.amountMinor,
       currency: link.currency,
+      createdAt: link.at,
     })),
     { transaction },
   );

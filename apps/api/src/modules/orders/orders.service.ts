@@ -294,7 +294,7 @@ export async function confirmPayment(ctx: AppContext, sessionId: string, payment
     sellerCreditMinor: order.sellerCreditMinor,
     guildNetMinor: order.guildFeeMinor - order.processingCostMinor,
   };
-  await writeLedger(ledgerEntriesForPaidOrder({ sellerId: order.sellerId, money }), { orderId: order.id, currency: order.currency }, transaction);
+  await writeLedger(ledgerEntriesForPaidOrder({ sellerId: order.sellerId, money }), { orderId: order.id, currency: order.currency, at: ctx.now() }, transaction);
   await emailConfirmation(ctx, guild, order, transaction);
   return 'confirmed';
 }
@@ -315,12 +315,12 @@ export async function refundLatePayment(ctx: AppContext, sessionId: string) {
   if (order) await refundPayment(ctx, order);
 }
 
-async function reverseLedger(order: Order, transaction: Transaction) {
+async function reverseLedger(ctx: AppContext, order: Order, transaction: Transaction) {
   const original = await LedgerEntry.findAll({ where: { orderId: order.id, kind: { [Op.ne]: 'refund' } }, transaction });
   const reversals = reversalEntries(
     original.map((e) => ({ kind: e.kind, account: e.account as DomainEntry['account'], amountMinor: e.amountMinor })),
   );
-  await writeLedger(reversals, { orderId: order.id, currency: order.currency }, transaction);
+  await writeLedger(reversals, { orderId: order.id, currency: order.currency, at: ctx.now() }, transaction);
 }
 
 async function notifyBoth(ctx: AppContext, order: Order, transaction: Transaction, render: (name: string, link: string, titles: string[]) => { subject: string; text: string; html: string }) {
@@ -353,7 +353,7 @@ export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string
       { state: 'cancelled', cancelledAt: now, cancelReason: reason ?? null, holdExpiresAt: null, ...(paid && { refundedAt: now }) },
       { transaction },
     );
-    if (paid) await reverseLedger(order, transaction);
+    if (paid) await reverseLedger(ctx, order, transaction);
     await releaseUnits(order, transaction);
     const refunded = paid ? formatMoney(order.chargeMinor, order.currency) : null;
     await notifyBoth(ctx, order, transaction, (name, link, titles) =>
@@ -374,7 +374,7 @@ export async function refundOrder(ctx: AppContext, actor: Actor, orderId: string
     authorize(actor, 'order.refund', order);
     const wasPosted = order.state !== 'confirmed';
     await order.update({ state: 'refunded', refundedAt: ctx.now() }, { transaction });
-    await reverseLedger(order, transaction);
+    await reverseLedger(ctx, order, transaction);
     if (!wasPosted) await releaseUnits(order, transaction);
     await OrderProblem.update({ resolvedAt: ctx.now() }, { where: { orderId, resolvedAt: null }, transaction });
     const buyer = (await Member.findByPk(order.buyerId, { transaction }))!;
@@ -408,7 +408,7 @@ export async function markPosted(ctx: AppContext, actor: Actor, orderId: string,
       link: `${ctx.config.appUrl}/orders/${order.id}`,
       trackingNumber: order.trackingNumber,
     });
-    await ctx.queue.enqueueEmail({ to: buyer.email, ...mail }, transaction);
+    await ctx.queue.enqueueEmail({ to: buyer.email, kind: 'posting', ...mail }, transaction);
     return order;
   });
 }
@@ -424,7 +424,7 @@ async function markReceivedInTransaction(ctx: AppContext, order: Order, guild: G
     titles: items.map((i) => i.title),
     link: `${ctx.config.appUrl}/orders/${order.id}`,
   });
-  await ctx.queue.enqueueEmail({ to: seller.email, ...mail }, transaction);
+  await ctx.queue.enqueueEmail({ to: seller.email, kind: 'posting', ...mail }, transaction);
 }
 
 export async function markReceived(ctx: AppContext, actor: Actor, orderId: string): Promise<Order> {

@@ -41,7 +41,7 @@ export async function decide(ctx: AppContext, librarian: Actor, bundleId: string
     if (input.decision === 'return') {
       await bundle.update({ state: 'returned', reviewNotes: input.notes ?? '', reviewedAt: now }, { transaction });
       const mail = bundleReturned({ guildName: guild.name, name: seller.name, title: bundle.title, link: `${ctx.config.appUrl}/my-bundles/${bundle.id}/edit`, notes: input.notes ?? '' });
-      await ctx.queue.enqueueEmail({ to: seller.email, ...mail }, transaction);
+      await ctx.queue.enqueueEmail({ to: seller.email, kind: 'review', ...mail }, transaction);
       return bundle;
     }
 
@@ -56,7 +56,7 @@ export async function decide(ctx: AppContext, librarian: Actor, bundleId: string
       },
       { transaction },
     );
-    await ctx.queue.enqueueEmail({ to: seller.email, ...bundleApproved({ guildName: guild.name, name: seller.name, title: bundle.title, link }) }, transaction);
+    await ctx.queue.enqueueEmail({ to: seller.email, kind: 'review', ...bundleApproved({ guildName: guild.name, name: seller.name, title: bundle.title, link }) }, transaction);
 
     // A starter bundle goes first to whoever has waited longest.
     if (bundle.offer === 'starter') await offerToNextInLine(ctx, bundle.id, transaction);
@@ -68,7 +68,7 @@ export async function decide(ctx: AppContext, librarian: Actor, bundleId: string
     });
     for (const match of matches) {
       const mail = wishMatched({ guildName: guild.name, name: match.member_name, title: bundle.title, link, wishName: match.wish_name });
-      await ctx.queue.enqueueEmail({ to: match.member_email, ...mail }, transaction);
+      await ctx.queue.enqueueEmail({ to: match.member_email, kind: 'wishes', ...mail }, transaction);
     }
     return bundle;
   });

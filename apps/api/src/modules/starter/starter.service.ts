@@ -150,7 +150,7 @@ export async function offerToNextInLine(ctx: AppContext, bundleId: string, trans
       link: `${ctx.config.appUrl}/starter/offers/${offer.id}`,
       deadline: `${offer.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`,
     });
-    await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
+    await ctx.queue.enqueueEmail({ to: member.email, kind: 'starter', ...mail }, transaction);
     return offer;
   }
   if (bundle.state === 'held') await bundle.update({ state: 'on_shelf' }, { transaction });

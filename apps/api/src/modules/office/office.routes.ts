@@ -1,0 +1,63 @@
+import { Router } from 'express';
+import { stringify } from 'csv-stringify/sync';
+import { dashboardQuerySchema, statementQuerySchema } from '@scrap-relay/shared';
+import { requireMember } from '../../middleware/authenticate.ts';
+import { parseInput } from '../../middleware/validate.ts';
+import { authorize, can } from '../../policies/index.ts';
+import type { AppContext } from '../../context.ts';
+import { actorOf } from '../members/members.presenter.ts';
+import { loadGuild } from '../guild/guild.service.ts';
+import { dashboardFigures, dashboardRows, periodBounds } from './dashboard.service.ts';
+import { librarianReport, monthStatement } from './reports.service.ts';
+
+export function officeRoutes(ctx: AppContext): Router {
+  const router = Router();
+
+  /** Every member sees what the exchange has done; the money figures only officers who see the ledger. */
+  const figures = async (req: Parameters<typeof requireMember>[0]) => {
+    const actor = actorOf(requireMember(req));
+    const query = parseInput(dashboardQuerySchema, req.query);
+    return dashboardFigures(ctx.sequelize, await loadGuild(), query, ctx.now(), can(actor, 'ledger.view'));
+  };
+
+  router.get('/dashboard', async (req, res) => {
+    res.json({ figures: await figures(req) });
+  });
+
+  router.get('/dashboard.csv', async (req, res) => {
+    const f = await figures(req);
+    res.type('text/csv').attachment('scrap-relay-dashboard.csv').send(stringify(dashboardRows(f), { header: true, columns: ['figure', 'value'] }));
+  });
+
+  router.get('/reports/statement', async (req, res) => {
+    authorize(actorOf(requireMember(req)), 'ledger.view');
+    const { month } = parseInput(statementQuerySchema, req.query);
+    res.json({ statement: await monthStatement(ctx.sequelize, await loadGuild(), month) });
+  });
+
+  router.get('/reports/statement.csv', async (req, res) => {
+    authorize(actorOf(requireMember(req)), 'ledger.view');
+    const { month } = parseInput(statementQuerySchema, req.query);
+    const s = await monthStatement(ctx.sequelize, await loadGuild(), month);
+    const rows = [
+      ['charges', '', s.chargesMinor],
+      ['guild_fees', '', s.guildFeesMinor],
+      ['refunds', '', s.refundsMinor],
+      ['processing_cost', '', s.processingCostMinor],
+      ['payouts', '', s.payoutsMinor],
+      ['seller_credits', '', s.sellerCreditsMinor],
+      ...s.closingBalances.map((b) => ['closing_balance', b.name, b.balanceMinor]),
+      ['closing_balances_total', '', s.closingBalancesTotalMinor],
+    ];
+    res.type('text/csv').attachment(`scrap-relay-statement-${month}.csv`).send(stringify(rows, { header: true, columns: ['line', 'seller', `amount_minor_${s.currency}`] }));
+  });
+
+  router.get('/reports/librarian', async (req, res) => {
+    authorize(actorOf(requireMember(req)), 'starter.manage');
+    const query = parseInput(dashboardQuerySchema, req.query);
+    const { from, to } = periodBounds(query, ctx.now());
+    res.json({ report: await librarianReport(ctx.sequelize, from, to, ctx.now()) });
+  });
+
+  return router;
+}

@@ -1,0 +1,44 @@
+export interface DashboardFigures {
+  period: { from: string | null; to: string | null; label: string };
+  weightRehomedGrams: number;
+  bundlesRehomedByOffer: { offer: string; units: number }[];
+  newQuiltersServed: number;
+  waitingForReview: number;
+  medianReviewHours: number | null;
+  bundlesExpired: number;
+  /** Money figures are present only for officers who see the guild's money. */
+  money: {
+    fundsRaisedMinor: number;
+    sellerCreditsMinor: number;
+    payoutsMinor: number;
+    postagePaidMinor: number;
+    refundsMinor: number;
+    currency: string;
+  } | null;
+  charts: {
+    weightByMonth: { month: string; offer: string; grams: number }[];
+    shelfByValue: { value: string; bundles: number }[];
+    shelfByCut: { cut: string; bundles: number }[];
+    reviewHoursByMonth: { month: string; medianHours: number }[];
+  };
+}
+
+export interface MonthStatement {
+  month: string;
+  currency: string;
+  chargesMinor: number;
+  guildFeesMinor: number;
+  refundsMinor: number;
+  processingCostMinor: number;
+  payoutsMinor: number;
+  sellerCreditsMinor: number;
+  closingBalances: { sellerId: string; name: string; balanceMinor: number }[];
+  closingBalancesTotalMinor: number;
+}
+
+export interface MemberHistory {
+  bundlesRehomed: number;
+  gramsPassedOn: number;
+  bundlesReceived: number;
+  gramsReceived: number;
+}
