@@ -47,8 +47,12 @@ const signalExitCodes: Record<string, number> = { SIGINT: 130, SIGTERM: 143, SIG
 
 function installSignalHandlers(): void {
   let received = 0;
+  let firstAt = 0;
   for (const signal of Object.keys(signalExitCodes) as NodeJS.Signals[]) {
     process.on(signal, () => {
+      // npm and tsx pass a signal on to us as well, so one Ctrl-C or kill can arrive twice at once.
+      if (received > 0 && Date.now() - firstAt < 1_000) return;
+      if (received === 0) firstAt = Date.now();
       received += 1;
       if (received === 1) {
         console.log(`\n${colour.yellow(`${signal} received: stopping everything this command started…`)}`);

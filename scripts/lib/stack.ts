@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { SetupError } from './errors.ts';
-import { bin, fromRoot, REPO_ROOT } from './paths.ts';
+import { bin, fromRoot, machineScratchDir } from './paths.ts';
 import type { Ports } from './ports.ts';
 import { runCommand, tail } from './run.ts';
 import type { ServiceSpec } from './services.ts';
@@ -159,12 +159,13 @@ export function seedDemoGuild(env: Record<string, string>): Promise<void> {
 
 /**
  * Builds apps/web for the API to serve in end-to-end tests, into a folder of
- * this port range's own (.local/build/web-<base>) rather than apps/web/dist:
- * a run on another port range in the same checkout would otherwise empty the
- * folder under a running test. Returns the folder.
+ * this port range's own rather than apps/web/dist: a run on another port range
+ * in the same checkout would otherwise empty the folder under a running test.
+ * It lives in the scratch folder, not in .local/, because Express's sendFile
+ * refuses any path with a dot-folder in it. Returns the folder.
  */
 export async function buildWeb(ports: Ports): Promise<string> {
-  const outDir = fromRoot('.local', 'build', `web-${ports.base}`);
+  const outDir = path.join(machineScratchDir(), `web-dist-${ports.base}`);
   const env: NodeJS.ProcessEnv = { ...process.env, SR_API_PORT: String(ports.api) };
   // A production build must not inherit NODE_ENV=test or development from a parent.
   delete env.NODE_ENV;
@@ -172,7 +173,7 @@ export async function buildWeb(ports: Ports): Promise<string> {
   const result = await runCommand(bin('vite'), ['build', '--outDir', outDir, '--emptyOutDir', '--bypass-lock'], { cwd: WEB_DIR, env, capture: true });
   if (result.code !== 0) throw new SetupError(`vite build of apps/web failed (exit ${result.code}):\n${tail(result.stdout + result.stderr, 30)}`);
   if (!fs.existsSync(path.join(outDir, 'index.html'))) {
-    throw new SetupError(`vite build finished but ${path.relative(REPO_ROOT, outDir)}/index.html is missing.`);
+    throw new SetupError(`vite build finished but ${outDir}/index.html is missing.`);
   }
   return outDir;
 }
