@@ -4,6 +4,7 @@ import type { Role } from '@scrap-relay/shared';
 import { hashPassword } from '../auth/passwords.ts';
 import { createSequelize } from './sequelize.ts';
 import { DEFAULT_GUILD_SETTINGS, Guild, Member, initModels } from './models/index.ts';
+import { seedDemoShelf } from './demo-bundles.ts';
 
 /** The invented demo guild: Ferncombe is a made-up town, and every person here is made up. */
 export const DEMO_GUILD = { name: 'Ferncombe Patchwork Guild', town: 'Ferncombe', currency: 'USD', inviteCode: 'FERNCOMBE-2026' };
@@ -69,6 +70,8 @@ async function main() {
   initModels(sequelize);
   try {
     await seedDemo(sequelize);
+    // The demo shelf needs somewhere to keep its photos; without UPLOAD_DIR only people and the guild are loaded.
+    if (process.env.UPLOAD_DIR) await seedDemoShelf(sequelize, process.env.UPLOAD_DIR, DEMO_GUILD.currency, new Date());
   } finally {
     await sequelize.close();
   }
