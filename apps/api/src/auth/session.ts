@@ -17,10 +17,12 @@ export function sessionMiddleware(config: Config, pool: pg.Pool) {
   return session({
     name: 'sr.sid',
     secret: config.sessionSecret,
-    store: new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+    // No write per request: a session lasts 30 days from its last change (sign-in, CSRF token), which keeps
+    // reads cheap for every API process sharing the table.
+    store: new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60, disableTouch: true }),
     resave: false,
     saveUninitialized: false,
-    rolling: true,
+    rolling: false,
     cookie: {
       httpOnly: true,
       sameSite: 'lax',

@@ -86,6 +86,11 @@ export interface Page<T> {
   total: number;
 }
 
+/** The shelf's page: `total` stops at 1,000, and `totalCapped` says there are more. */
+export interface ShelfPage extends Page<BundleCard> {
+  totalCapped: boolean;
+}
+
 export interface ReviewQueueRow {
   id: string;
   title: string;

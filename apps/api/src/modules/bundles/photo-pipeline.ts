@@ -32,17 +32,22 @@ export async function processPhoto(input: Buffer, field = 'photos'): Promise<Pro
   if ((meta.width ?? 0) * (meta.height ?? 0) > MAX_INPUT_PIXELS) throw tooBig(field);
 
   try {
-    const display = await sharp(input, { limitInputPixels: MAX_INPUT_PIXELS })
+    // Decode and resize once; both sizes are encoded from the same upright pixels (WebP effort 2: fast, nearly as small).
+    const upright = await sharp(input, { limitInputPixels: MAX_INPUT_PIXELS })
       .rotate()
       .resize({ width: DISPLAY_MAX_PX, height: DISPLAY_MAX_PX, fit: 'inside', withoutEnlargement: true })
-      .webp({ quality: 80 })
+      .removeAlpha()
+      .raw()
       .toBuffer({ resolveWithObject: true });
-    const thumb = await sharp(display.data)
+    const raw = { raw: { width: upright.info.width, height: upright.info.height, channels: upright.info.channels } };
+    const display = await sharp(upright.data, raw).webp({ quality: 80, effort: 2 }).toBuffer({ resolveWithObject: true });
+    const thumbPixels = await sharp(upright.data, raw)
       .resize({ width: THUMB_MAX_PX, height: THUMB_MAX_PX, fit: 'inside', withoutEnlargement: true })
-      .webp({ quality: 72 })
+      .raw()
       .toBuffer({ resolveWithObject: true });
-    const pixels = await sharp(thumb.data).removeAlpha().raw().toBuffer();
-    const average = averageColour(pixels, 3) ?? { r: 128, g: 128, b: 128 };
+    const thumbRaw = { raw: { width: thumbPixels.info.width, height: thumbPixels.info.height, channels: thumbPixels.info.channels } };
+    const thumb = await sharp(thumbPixels.data, thumbRaw).webp({ quality: 72, effort: 2 }).toBuffer({ resolveWithObject: true });
+    const average = averageColour(thumbPixels.data, thumbPixels.info.channels as 3 | 4) ?? { r: 128, g: 128, b: 128 };
     return {
       display: { data: display.data, width: display.info.width, height: display.info.height },
       thumb: { data: thumb.data, width: thumb.info.width, height: thumb.info.height },

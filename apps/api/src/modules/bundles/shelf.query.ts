@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { BundleCard, CutKind, Fibre, Offer, Page, ShelfQuery, ColourFamily, ColourValue } from '@scrap-relay/shared';
+import type { CutKind, Fibre, Offer, ShelfPage, ShelfQuery, ColourFamily, ColourValue } from '@scrap-relay/shared';
 import { estimateYield } from '@scrap-relay/shared';
 import type { FileStorage } from '../../integrations/storage.ts';
 
@@ -49,7 +49,9 @@ function whereClause(q: ShelfQuery): { sql: string; bind: unknown[] } {
   return { sql: conditions.join(' AND '), bind };
 }
 
-export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q: ShelfQuery): Promise<Page<BundleCard>> {
+export const SHELF_COUNT_CAP = 1000;
+
+export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q: ShelfQuery): Promise<ShelfPage> {
   const where = whereClause(q);
   const offset = (q.page - 1) * q.pageSize;
   const [rows, countRows] = await Promise.all([
@@ -62,7 +64,8 @@ export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q:
        LIMIT ${q.pageSize} OFFSET ${offset}`,
       { bind: where.bind, type: QueryTypes.SELECT },
     ),
-    sequelize.query<{ total: number }>(`SELECT count(*)::int AS total FROM bundles b WHERE ${where.sql}`, {
+    // Counting stops at the cap: past it the shelf says "more than 1,000", and nobody pages that far.
+    sequelize.query<{ total: number }>(`SELECT count(*)::int AS total FROM (SELECT 1 FROM bundles b WHERE ${where.sql} LIMIT ${SHELF_COUNT_CAP + 1}) capped`, {
       bind: where.bind,
       type: QueryTypes.SELECT,
     }),
@@ -86,6 +89,7 @@ export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q:
     })),
     page: q.page,
     pageSize: q.pageSize,
-    total: countRows[0]?.total ?? 0,
+    total: Math.min(countRows[0]?.total ?? 0, SHELF_COUNT_CAP),
+    totalCapped: (countRows[0]?.total ?? 0) > SHELF_COUNT_CAP,
   };
 }
