@@ -53,7 +53,6 @@ class Browser {
     });
     const set = res.headers.get('set-cookie');
     if (set) this.cookie = set.split(';')[0]!;
-    // eslint-disable-next-line @typescript-eslint/no-explicit-any -- test client reading loose JSON
     const json: any = res.status === 204 ? null : await res.json();
     if (json?.csrfToken) this.csrf = json.csrfToken;
     return { status: res.status, body: json };
