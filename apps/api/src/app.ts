@@ -1,6 +1,7 @@
 import path from 'node:path';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
+import compression from 'compression';
 import { pinoHttp } from 'pino-http';
 import { randomUUID } from 'node:crypto';
 import type pg from 'pg';
@@ -59,6 +60,9 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
       hsts: ctx.config.env === 'production',
     }),
   );
+
+  // Text answers (JSON, the built app's scripts and styles) go compressed; photos are already compressed.
+  app.use(compression());
 
   const api = express.Router();
   api.use(healthRoutes(ctx));
