@@ -1,21 +1,11 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import net from 'node:net';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { freePort } from './support/net.ts';
 import { createMember, signedInClient, startTestApi, type TestApi } from './support/api.ts';
 import { listAndSubmit } from './support/bundles.ts';
 
 /** A mail server that is down delays mail, never loses it: the approval e-mail waits in the queue and goes once one is back. */
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const server = net.createServer();
-    server.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
-    server.on('error', reject);
-  });
-
 let api: TestApi;
 let smtpPort: number;
 let webPort: number;

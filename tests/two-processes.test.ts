@@ -1,7 +1,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import net from 'node:net';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { freePort } from './support/net.ts';
 import { Bundle } from '../apps/api/src/db/models/index.ts';
 import { createMember, signedInClient, startTestApi, TEST_PASSWORD, type TestApi } from './support/api.ts';
 import { listAndSubmit } from './support/bundles.ts';
@@ -11,16 +11,6 @@ import { listAndSubmit } from './support/bundles.ts';
  * database. Sessions, holds and scheduled jobs live in PostgreSQL, so any process serves
  * any request and each unit is still sold once.
  */
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const server = net.createServer();
-    server.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
-    server.on('error', reject);
-  });
-
 let api: TestApi;
 const processes: ChildProcess[] = [];
 let urls: string[] = [];

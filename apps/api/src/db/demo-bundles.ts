@@ -1,6 +1,6 @@
 import sharp from 'sharp';
 import type { Sequelize } from 'sequelize';
-import type { BundleDraftInput } from '@scrap-relay/shared';
+import { toHex, type BundleDraftInput } from '@scrap-relay/shared';
 import { localStorage } from '../integrations/storage.ts';
 import { processPhoto } from '../modules/bundles/photo-pipeline.ts';
 import { Bundle, BundlePhoto, Meeting, Member } from './models/index.ts';
@@ -103,9 +103,8 @@ export async function seedDemoShelf(sequelize: Sequelize, uploadDir: string, cur
       const key = `photos/${bundle.id}/demo`;
       await storage.put(`${key}-1600.webp`, photo.display.data);
       await storage.put(`${key}-400.webp`, photo.thumb.data);
-      const hex = `#${[photo.average.r, photo.average.g, photo.average.b].map((c) => c.toString(16).padStart(2, '0')).join('')}`;
       await BundlePhoto.create(
-        { bundleId: bundle.id, position: 0, displayKey: `${key}-1600.webp`, thumbKey: `${key}-400.webp`, contentType: photo.contentType, width: photo.display.width, height: photo.display.height, averageHex: hex },
+        { bundleId: bundle.id, position: 0, displayKey: `${key}-1600.webp`, thumbKey: `${key}-400.webp`, contentType: photo.contentType, width: photo.display.width, height: photo.display.height, averageHex: toHex(photo.average) },
         { transaction },
       );
     });

@@ -4,6 +4,7 @@ import {
   bundleCompleteSchema,
   bundleDraftSchema,
   MAX_PHOTOS_PER_BUNDLE,
+  toHex,
   type BundleDraftInput,
 } from '@scrap-relay/shared';
 import { Bundle, BundlePhoto, type Member } from '../../db/models/index.ts';
@@ -133,7 +134,7 @@ export async function addPhotos(ctx: AppContext, seller: Member, id: string, fil
             contentType: photo.contentType,
             width: photo.display.width,
             height: photo.display.height,
-            averageHex: `#${[photo.average.r, photo.average.g, photo.average.b].map((c) => c.toString(16).padStart(2, '0')).join('')}`,
+            averageHex: toHex(photo.average),
           },
           { transaction },
         );

@@ -3,6 +3,7 @@ import QRCode from 'qrcode';
 import { Bundle, BundlePhoto, Meeting, Member, Order, OrderItem, StarterClaim } from '../../db/models/index.ts';
 import { conflict, notFound } from '../../errors/index.ts';
 import { handoverMoved, meetingReminder } from '../../emails/starter.ts';
+import { meetingLabel } from '../../emails/format.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { loadGuild } from '../guild/guild.service.ts';
@@ -26,7 +27,6 @@ export interface HandoverView {
   abilities: { markDone: boolean; undo: boolean; cancel: boolean };
 }
 
-const meetingLabel = (m: Meeting) => `${m.startsAt.toISOString().slice(0, 16).replace('T', ' ')} UTC, ${m.place}`;
 
 /** Ticks can be undone until the end of the meeting's day (UTC), so a slip at the door can be put right that evening. */
 export const undoDeadline = (meeting: Meeting) => new Date(Math.floor(meeting.startsAt.getTime() / DAY_MS) * DAY_MS + DAY_MS);

@@ -20,6 +20,7 @@ import {
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { loadGuild } from '../guild/guild.service.ts';
+import { meetingLabel } from '../../emails/format.ts';
 import { quoteOrThrow } from '../postage/postage.service.ts';
 import { writeLedger } from './ledger-writer.ts';
 import { newOrderReference } from './order-reference.ts';
@@ -60,9 +61,6 @@ export async function listOrders(actor: Actor, as: 'buyer' | 'seller'): Promise<
   });
 }
 
-const meetingLabel = (meeting: Meeting | null | undefined) =>
-  meeting ? `${meeting.startsAt.toISOString().slice(0, 16).replace('T', ' ')} UTC, ${meeting.place}` : null;
-
 /** Which fulfilments an offer allows: posting for sales and postage-only gifts, meetings for meeting gifts and sales that allow it. */
 function allowsFulfilment(bundle: Bundle, fulfilment: 'post' | 'meeting'): boolean {
   if (fulfilment === 'post') return bundle.offer === 'sale' || bundle.offer === 'postage_only';
@@ -79,7 +77,7 @@ async function emailConfirmation(ctx: AppContext, guild: Guild, order: Order, tr
   const titles = items.map((i) => (i.quantity > 1 ? `${i.title} × ${i.quantity}` : i.title));
   const amount = order.chargeMinor > 0 ? formatMoney(order.chargeMinor, order.currency) : '';
   const link = `${ctx.config.appUrl}/orders/${order.id}`;
-  const when = meetingLabel(meeting);
+  const when = meeting ? meetingLabel(meeting) : null;
   await ctx.queue.enqueueEmail(
     { to: seller!.email, ...orderSoldToSeller({ guildName: guild.name, name: seller!.name, reference: order.reference, titles, link, buyerName: buyer!.name, address: order.address, meeting: when, amount: amount || 'nothing (a gift)' }) },
     transaction,

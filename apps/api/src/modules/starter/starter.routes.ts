@@ -8,6 +8,9 @@ import { actorOf } from '../members/members.presenter.ts';
 import { routeId } from '../bundles/bundles.routes.ts';
 import { presentBundle, sellerStats } from '../bundles/bundles.presenter.ts';
 import * as starter from './starter.service.ts';
+import type { StarterClaim } from '../../db/models/index.ts';
+
+const presentClaim = (c: StarterClaim) => ({ id: c.id, bundleId: c.bundleId, meetingId: c.meetingId, state: c.state, claimedAt: c.claimedAt.toISOString() });
 
 export function starterRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -26,7 +29,7 @@ export function starterRoutes(ctx: AppContext): Router {
     const member = requireVerifiedMember(req);
     const { meetingId } = parseInput(starterClaimSchema, req.body);
     const claim = await starter.claimStarterBundle(ctx, member.id, routeId(req.params.id, 'That starter bundle'), meetingId);
-    res.status(201).json({ claim: { id: claim.id, bundleId: claim.bundleId, meetingId: claim.meetingId, state: claim.state, claimedAt: claim.claimedAt.toISOString() } });
+    res.status(201).json({ claim: presentClaim(claim) });
   });
 
   router.get('/waitlist', async (req, res) => {
@@ -58,7 +61,7 @@ export function starterRoutes(ctx: AppContext): Router {
     const member = requireVerifiedMember(req);
     const { meetingId } = parseInput(starterClaimSchema, req.body);
     const claim = await starter.acceptOffer(ctx, member.id, routeId(req.params.id, 'That offer'), meetingId);
-    res.status(201).json({ claim: { id: claim.id, bundleId: claim.bundleId, meetingId: claim.meetingId, state: claim.state, claimedAt: claim.claimedAt.toISOString() } });
+    res.status(201).json({ claim: presentClaim(claim) });
   });
 
   router.post('/waitlist/offers/:id/decline', async (req, res) => {

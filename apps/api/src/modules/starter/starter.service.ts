@@ -3,13 +3,13 @@ import { isNewQuilter, offerExpiresAtFrom, starterEligibility, type StarterEligi
 import { Bundle, Meeting, Member, StarterClaim, WaitlistEntry, WaitlistOffer, type Guild } from '../../db/models/index.ts';
 import { AppError, badRequest, conflict, notFound } from '../../errors/index.ts';
 import { starterClaimed, starterOffered } from '../../emails/starter.ts';
+import { meetingLabel } from '../../emails/format.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { loadGuild } from '../guild/guild.service.ts';
 
 const DAY_MS = 86_400_000;
 
-const meetingLabel = (m: Meeting | null) => (m ? `${m.startsAt.toISOString().slice(0, 16).replace('T', ' ')} UTC, ${m.place}` : null);
 
 /** Whether the member may claim now, from the guild's window and limit and their claims not cancelled. */
 export async function eligibilityOf(member: Member, guild: Guild, now: Date, transaction?: Transaction): Promise<StarterEligibility> {
@@ -63,7 +63,7 @@ async function recordClaim(ctx: AppContext, guild: Guild, member: Member, bundle
   await bundle.update({ quantityAvailable: remaining, state: remaining === 0 ? 'rehomed' : 'on_shelf' }, { transaction });
   const claim = await StarterClaim.create({ bundleId: bundle.id, memberId: member.id, meetingId: meeting?.id ?? null, claimedAt: ctx.now() }, { transaction });
   await WaitlistEntry.update({ status: 'claimed' }, { where: { memberId: member.id, status: { [Op.in]: ['waiting', 'offered'] } }, transaction });
-  const mail = starterClaimed({ guildName: guild.name, name: member.name, title: bundle.title, link: `${ctx.config.appUrl}/starter`, meeting: meetingLabel(meeting) });
+  const mail = starterClaimed({ guildName: guild.name, name: member.name, title: bundle.title, link: `${ctx.config.appUrl}/starter`, meeting: meeting ? meetingLabel(meeting) : null });
   await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
   return claim;
 }
