@@ -88,3 +88,30 @@ export interface SellerBalanceView {
   balanceMinor: number;
   currency: string;
 }
+
+/** One thing to change hands at a meeting: a meeting order, or a starter claim. */
+export interface HandoverView {
+  id: string;
+  kind: 'order' | 'starter';
+  reference: string;
+  giver: { id: string; name: string };
+  collector: { id: string; name: string };
+  items: { title: string; quantity: number; thumbUrl: string | null }[];
+  done: boolean;
+  doneAt: string | null;
+  doneBy: string | null;
+  checkOffUrl: string;
+  qrSvg: string;
+  abilities: { markDone: boolean; undo: boolean; cancel: boolean };
+}
+
+export interface WaitlistRow {
+  id: string;
+  position: number;
+  memberId: string;
+  name: string;
+  status: string;
+  joinedAt: string;
+  waitingDays: number;
+  offer: { id: string; bundleTitle: string; expiresAt: string } | null;
+}

@@ -1,5 +1,6 @@
 import { Op, type Transaction } from 'sequelize';
 import QRCode from 'qrcode';
+import type { HandoverView } from '@scrap-relay/shared';
 import { Bundle, BundlePhoto, Meeting, Member, Order, OrderItem, StarterClaim } from '../../db/models/index.ts';
 import { conflict, notFound } from '../../errors/index.ts';
 import { handoverMoved, meetingReminder } from '../../emails/starter.ts';
@@ -12,20 +13,6 @@ import { offerToNextInLine } from '../starter/starter.service.ts';
 
 const DAY_MS = 86_400_000;
 
-export interface HandoverView {
-  id: string;
-  kind: 'order' | 'starter';
-  reference: string;
-  giver: { id: string; name: string };
-  collector: { id: string; name: string };
-  items: { title: string; quantity: number; thumbUrl: string | null }[];
-  done: boolean;
-  doneAt: string | null;
-  doneBy: string | null;
-  checkOffUrl: string;
-  qrSvg: string;
-  abilities: { markDone: boolean; undo: boolean; cancel: boolean };
-}
 
 
 /** Ticks can be undone until the end of the meeting's day (UTC), so a slip at the door can be put right that evening. */

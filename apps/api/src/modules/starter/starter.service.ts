@@ -1,5 +1,5 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { isNewQuilter, offerExpiresAtFrom, starterEligibility, type StarterEligibility } from '@scrap-relay/shared';
+import { isNewQuilter, offerExpiresAtFrom, starterEligibility, type StarterEligibility, type WaitlistRow } from '@scrap-relay/shared';
 import { Bundle, Meeting, Member, StarterClaim, WaitlistEntry, WaitlistOffer, type Guild } from '../../db/models/index.ts';
 import { AppError, badRequest, conflict, notFound } from '../../errors/index.ts';
 import { starterClaimed, starterOffered } from '../../emails/starter.ts';
@@ -223,16 +223,6 @@ export async function leaveWaitlist(ctx: AppContext, memberId: string, removal?:
   });
 }
 
-export interface WaitlistRow {
-  id: string;
-  position: number;
-  memberId: string;
-  name: string;
-  status: string;
-  joinedAt: string;
-  waitingDays: number;
-  offer: { id: string; bundleTitle: string; expiresAt: string } | null;
-}
 
 export async function waitlistQueue(sequelize: AppContext['sequelize'], now: Date): Promise<WaitlistRow[]> {
   const rows = await sequelize.query<{ id: string; member_id: string; name: string; status: string; joined_at: Date; offer_id: string | null; title: string | null; expires_at: Date | null }>(
