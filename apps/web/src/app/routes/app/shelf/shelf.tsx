@@ -1,0 +1,23 @@
+import { Page } from '../../../../components/layouts/page.tsx';
+import { useSession, useSessionUser } from '../../../../features/auth/api/get-session.ts';
+import { ShelfBrowser } from '../../../../features/shelf/components/shelf-browser.tsx';
+import { SaveWishPanel } from '../../../../features/wishes/components/save-wish-panel.tsx';
+
+export function Component() {
+  const user = useSessionUser();
+  const guild = useSession().data?.guild;
+  if (!guild) throw new Error('The shelf opened before the session was read.');
+  return (
+    <Page
+      title="The shelf"
+      intro="Bundles your fellow members are passing on, each checked by the librarian. Filter for what you want to make."
+      width="wide"
+    >
+      <ShelfBrowser
+        units={user.units}
+        currency={guild.currency}
+        renderForFilters={(filters) => <SaveWishPanel filters={filters} units={user.units} currency={guild.currency} />}
+      />
+    </Page>
+  );
+}

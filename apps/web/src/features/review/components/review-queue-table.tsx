@@ -1,0 +1,180 @@
+import { FIBRE_LABELS, formatWeight, OFFER_LABELS, OFFERS, type Offer, type ReviewQueueRow, type UnitSystem } from '@scrap-relay/shared';
+import { useId, useMemo, useState } from 'react';
+import { Link } from 'react-router-dom';
+import { paths } from '../../../config/paths.ts';
+import { Alert } from '../../../components/ui/alert.tsx';
+import { Button } from '../../../components/ui/button.tsx';
+import { Select } from '../../../components/ui/field.tsx';
+import { Loading } from '../../../components/ui/loading.tsx';
+import { DataTable, dataTableColumns } from '../../../components/ui/table.tsx';
+import { formatOffer } from '../../../utils/bundle-text.ts';
+import { formatDate } from '../../../utils/format.ts';
+import { useReviewQueue } from '../api/get-review-queue.ts';
+import { formatWaitingTime } from '../utils/waiting-time.ts';
+import { Disclosures } from './disclosures.tsx';
+
+const column = dataTableColumns<ReviewQueueRow>();
+
+const offerFilterOptions = [{ value: '', label: 'Any offer' }, ...OFFERS.map((offer) => ({ value: offer, label: OFFER_LABELS[offer] }))];
+
+/** The librarian's queue: oldest first, narrowed by offer or seller, each row opening the review page. */
+export function ReviewQueueTable({ units }: { units: UnitSystem }) {
+  const queue = useReviewQueue();
+  const [offer, setOffer] = useState<Offer | ''>('');
+  const [sellerId, setSellerId] = useState('');
+  const offerId = useId();
+  const sellerSelectId = useId();
+
+  const columns = useMemo(
+    () =>
+      column.columns([
+        column.display({
+          id: 'photo',
+          header: 'Photo',
+          cell: ({ row }) => <QueueThumbnail row={row.original} />,
+        }),
+        column.accessor('title', {
+          header: 'Bundle',
+          sortFn: 'text',
+          cell: ({ row }) => <QueueTitle row={row.original} />,
+        }),
+        column.accessor((row) => row.seller.id, {
+          id: 'seller',
+          header: 'Seller',
+          enableSorting: false,
+          filterFn: 'includesString',
+          cell: ({ row }) => <SellerHistory row={row.original} />,
+        }),
+        column.accessor('offer', {
+          header: 'Offer and price',
+          enableSorting: false,
+          filterFn: 'includesString',
+          cell: ({ row }) => (
+            <div>
+              <p className="font-semibold">{formatOffer(row.original.offer, row.original.priceMinor, row.original.currency)}</p>
+              {/* A price alone does not say "sale"; the free offers already say what they are. */}
+              {row.original.offer === 'sale' ? <p className="text-thread-soft">{OFFER_LABELS.sale}</p> : null}
+            </div>
+          ),
+        }),
+        column.accessor('weightGrams', {
+          header: 'Weight',
+          enableSorting: false,
+          cell: ({ getValue }) => formatWeight(getValue(), units),
+        }),
+        column.display({
+          id: 'disclosures',
+          header: 'Disclosures',
+          cell: ({ row }) => <Disclosures {...row.original.disclosures} />,
+        }),
+        column.accessor('submittedAt', {
+          header: 'Waiting',
+          // ISO timestamps sort correctly as text; the queue starts with whoever has waited longest.
+          sortFn: 'text',
+          meta: { sortLabels: ['Longest first', 'Newest first'] },
+          cell: ({ getValue }) => (
+            <div>
+              <p className="font-semibold">{formatWaitingTime(getValue())}</p>
+              <p className="text-thread-soft">since {formatDate(getValue())}</p>
+            </div>
+          ),
+        }),
+      ]),
+    [units],
+  );
+
+  const columnFilters = useMemo(
+    () => [...(offer ? [{ id: 'offer', value: offer }] : []), ...(sellerId ? [{ id: 'seller', value: sellerId }] : [])],
+    [offer, sellerId],
+  );
+
+  const sellerOptions = useMemo(() => {
+    const sellers = new Map((queue.data?.items ?? []).map((row) => [row.seller.id, row.seller.name]));
+    return [
+      { value: '', label: 'Any seller' },
+      ...[...sellers].sort((a, b) => a[1].localeCompare(b[1])).map(([value, label]) => ({ value, label })),
+    ];
+  }, [queue.data]);
+
+  if (queue.isPending) return <Loading label="Loading the review queue…" />;
+  if (queue.isError) {
+    return (
+      <Alert tone="error" title="The review queue could not be loaded">
+        <p>{queue.error.message}</p>
+        <Button variant="secondary" onClick={() => queue.refetch()} isPending={queue.isFetching} pendingLabel="Trying…">
+          Try again
+        </Button>
+      </Alert>
+    );
+  }
+
+  const filtered = offer !== '' || sellerId !== '';
+  return (
+    <div className="space-y-6">
+      <div role="search" aria-label="Narrow the queue" className="grid gap-4 rounded-stitch border-2 border-seam bg-muslin p-4 sm:grid-cols-2">
+        <div className="space-y-1.5">
+          <label htmlFor={offerId} className="block font-semibold">
+            Offer
+          </label>
+          <Select id={offerId} options={offerFilterOptions} value={offer} onChange={(event) => setOffer(event.target.value as Offer | '')} />
+        </div>
+        <div className="space-y-1.5">
+          <label htmlFor={sellerSelectId} className="block font-semibold">
+            Seller
+          </label>
+          <Select id={sellerSelectId} options={sellerOptions} value={sellerId} onChange={(event) => setSellerId(event.target.value)} />
+        </div>
+      </div>
+
+      <DataTable
+        caption="Bundles waiting for review"
+        data={queue.data.items}
+        columns={columns}
+        getRowId={(row) => row.id}
+        columnFilters={columnFilters}
+        initialSorting={[{ id: 'submittedAt', desc: false }]}
+        pageSize={20}
+        noun={['bundle', 'bundles']}
+        emptyMessage={filtered ? 'No bundle in the queue matches.' : 'Nothing is waiting for review. Well done!'}
+      />
+    </div>
+  );
+}
+
+function QueueThumbnail({ row }: { row: ReviewQueueRow }) {
+  return (
+    <div className="flex items-center gap-3 md:block">
+      {row.thumbUrl ? (
+        <img src={row.thumbUrl} alt={`Photo: ${row.title}`} loading="lazy" decoding="async" className="size-24 rounded-stitch object-cover" />
+      ) : (
+        <p className="flex size-24 items-center justify-center rounded-stitch bg-linen-deep text-thread-soft">No photo</p>
+      )}
+      <p className="text-thread-soft">{row.photoCount === 1 ? '1 photo' : `${row.photoCount} photos`}</p>
+    </div>
+  );
+}
+
+function SellerHistory({ row }: { row: ReviewQueueRow }) {
+  const { name, rehomedCount, returnedCount } = row.seller;
+  return (
+    <div>
+      <p className="font-semibold">{name}</p>
+      <p className="text-thread-soft">
+        {rehomedCount} rehomed · {returnedCount} returned
+      </p>
+    </div>
+  );
+}
+
+/** The title opens the review page; the link is tall enough to tap. */
+function QueueTitle({ row }: { row: ReviewQueueRow }) {
+  return (
+    <div className="md:min-w-48">
+      <Link to={paths.app.reviewBundle.getHref(row.id)} className="inline-flex min-h-11 items-center text-lg font-bold">
+        {row.title}
+      </Link>
+      <p className="text-thread-soft">{FIBRE_LABELS[row.fibre]}</p>
+      {row.abilities.review ? null : <p className="font-semibold text-ochre">Your own listing: another librarian reviews it.</p>}
+    </div>
+  );
+}

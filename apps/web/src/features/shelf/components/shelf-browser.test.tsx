@@ -1,0 +1,125 @@
+// @vitest-environment happy-dom
+import type { BundleCard, Page } from '@scrap-relay/shared';
+import { estimateYield } from '@scrap-relay/shared';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { act } from 'react';
+import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { createQueryClient } from '../../../lib/react-query.ts';
+import { jsonResponse } from '../../../testing/fixtures.ts';
+import { buttonNamed, byLabel, cleanup, click, render, typeInto, waitFor } from '../../../testing/render.tsx';
+import { ShelfBrowser } from './shelf-browser.tsx';
+
+afterEach(() => {
+  cleanup();
+  vi.unstubAllGlobals();
+});
+
+const card = (overrides: Partial<BundleCard> = {}): BundleCard => ({
+  id: 'b-1',
+  title: 'Indigo batik strips',
+  offer: 'sale',
+  priceMinor: 1200,
+  currency: 'USD',
+  meetingHandoverOk: false,
+  quantityAvailable: 1,
+  weightGrams: 454,
+  fibre: 'batik',
+  cutKinds: ['strips'],
+  colour: { value: 'dark', family: 'cool' },
+  thumbUrl: '/uploads/photos/b-1-thumb.webp',
+  yield: estimateYield({ grams: 454, fibre: 'batik' }),
+  onShelfAt: '2026-03-01T10:00:00.000Z',
+  ...overrides,
+});
+
+/** The shelf API: answers every search with `page`, and records the query strings it was asked. */
+function serveShelf(page: Page<BundleCard>) {
+  const asked: URLSearchParams[] = [];
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async (input: RequestInfo | URL) => {
+      const url = new URL(String(input), 'http://app.test');
+      if (url.pathname !== '/api/bundles') return jsonResponse(404, { error: { code: 'not_found', message: 'Not here.' } });
+      asked.push(url.searchParams);
+      return jsonResponse(200, page);
+    }),
+  );
+  return asked;
+}
+
+async function openShelf(url: string) {
+  const router = createMemoryRouter([{ path: '/shelf', element: <ShelfBrowser units="imperial" currency="USD" /> }], { initialEntries: [url] });
+  const rendered = await render(
+    <QueryClientProvider client={createQueryClient()}>
+      <RouterProvider router={router} />
+    </QueryClientProvider>,
+  );
+  return { router, ...rendered };
+}
+
+const statusText = (root: HTMLElement) => [...root.querySelectorAll('[role="status"]')].map((el) => el.textContent).join(' | ');
+
+describe('the shelf', () => {
+  it('asks the API for what the address says and shows each bundle as a card', async () => {
+    const asked = serveShelf({ items: [card()], page: 2, pageSize: 24, total: 25 });
+    const { container } = await openShelf('/shelf?fibre=batik&page=2');
+
+    await waitFor(() => expect(statusText(container)).toContain('Showing 25–25 of 25 bundles'));
+    expect(Object.fromEntries(asked[0]!)).toEqual({ fibre: 'batik', sort: 'newest', page: '2', pageSize: '24' });
+
+    const link = [...container.querySelectorAll('a')].find((a) => a.textContent === 'Indigo batik strips');
+    expect(link?.getAttribute('href')).toBe('/bundles/b-1');
+    const item = link!.closest('li')!;
+    expect(item.textContent).toContain('$12.00');
+    // 454 g is 1 lb to the nearest ounce (NIST SP 811).
+    expect(item.textContent).toContain('1 lb · Batik');
+    expect(item.textContent).toMatch(/≈ \d+ five-inch squares · \d+ strips/);
+    const photo = item.querySelector('img')!;
+    expect(photo.getAttribute('alt')).toBe('Photo: Indigo batik strips');
+    expect(photo.getAttribute('loading')).toBe('lazy');
+
+    expect(container.textContent).toContain('Page 2 of 2');
+    const previous = [...container.querySelectorAll('a')].find((a) => a.textContent?.includes('Previous page'));
+    expect(previous?.getAttribute('href')).toBe('/shelf?fibre=batik');
+  });
+
+  it('puts applied filters in the address, weights in grams, and starts again at page 1', async () => {
+    const asked = serveShelf({ items: [card()], page: 1, pageSize: 24, total: 1 });
+    const { container, router } = await openShelf('/shelf?page=3&sort=price_asc');
+    await waitFor(() => expect(asked.length).toBe(1));
+
+    await typeInto(byLabel(container, 'Words in the title or description'), 'indigo');
+    await typeInto(byLabel(container, 'At least'), '8 oz');
+    const fibre = byLabel<HTMLSelectElement>(container, 'Fibre');
+    await act(async () => {
+      fibre.value = 'batik';
+      fibre.dispatchEvent(new Event('change', { bubbles: true }));
+    });
+    await click(buttonNamed(container, 'Show bundles'));
+
+    // 8 oz = 226.796185 g → 227 (NIST SP 811).
+    await waitFor(() => expect(router.state.location.search).toBe('?fibre=batik&minGrams=227&q=indigo&sort=price_asc'));
+    await waitFor(() => expect(Object.fromEntries(asked.at(-1)!)).toEqual({ fibre: 'batik', minGrams: '227', q: 'indigo', sort: 'price_asc', page: '1', pageSize: '24' }));
+  });
+
+  it('refuses a weight it cannot read, on the field, and leaves the search alone', async () => {
+    serveShelf({ items: [], page: 1, pageSize: 24, total: 0 });
+    const { container, router } = await openShelf('/shelf?cut=selvages');
+    await waitFor(() => expect(statusText(container)).toContain('No bundle matches these filters.'));
+
+    await typeInto(byLabel(container, 'At most'), 'a big bag');
+    await click(buttonNamed(container, 'Show bundles'));
+
+    await waitFor(() => expect(byLabel(container, 'At most').getAttribute('aria-invalid')).toBe('true'));
+    expect(container.textContent).toContain('Enter a weight such as 12 oz.');
+    expect(router.state.location.search).toBe('?cut=selvages');
+  });
+
+  it('says so when the shelf is empty', async () => {
+    serveShelf({ items: [], page: 1, pageSize: 24, total: 0 });
+    const { container } = await openShelf('/shelf');
+    await waitFor(() => expect(statusText(container)).toContain('The shelf is empty just now.'));
+    expect(container.textContent).toContain('once the librarian has checked and approved them');
+  });
+});

@@ -1,0 +1,220 @@
+import type { BundleCard as BundleCardData, Page, ShelfFilters, UnitSystem } from '@scrap-relay/shared';
+import { useId, useRef, useState, type ReactNode } from 'react';
+import { Alert } from '../../../components/ui/alert.tsx';
+import { Button, ButtonLink } from '../../../components/ui/button.tsx';
+import { Select } from '../../../components/ui/field.tsx';
+import { Loading } from '../../../components/ui/loading.tsx';
+import { cn } from '../../../utils/cn.ts';
+import { countFilters, type ShelfSort } from '../../../utils/shelf-filters.ts';
+import { useShelf } from '../api/get-shelf.ts';
+import { useShelfSearch } from '../hooks/use-shelf-search.ts';
+import { BundleCard } from './bundle-card.tsx';
+import { ShelfFiltersForm } from './shelf-filters-form.tsx';
+
+const SHELF_PAGE_SIZE = 24;
+
+const SORT_OPTIONS: { value: ShelfSort; label: string }[] = [
+  { value: 'newest', label: 'Newest first' },
+  { value: 'price_asc', label: 'Price: lowest first' },
+  { value: 'price_desc', label: 'Price: highest first' },
+  { value: 'weight_asc', label: 'Weight: lightest first' },
+  { value: 'weight_desc', label: 'Weight: heaviest first' },
+];
+
+export interface ShelfBrowserProps {
+  units: UnitSystem;
+  /** The guild's currency, for the price limit. */
+  currency: string;
+  /** Something to offer beside the results for the filters in force (the wishes feature's "save as a wish"). */
+  renderForFilters?: (filters: ShelfFilters) => ReactNode;
+}
+
+/** Filters (folded away on phones), sort, one page of bundle cards and the way to the next page. */
+export function ShelfBrowser({ units, currency, renderForFilters }: ShelfBrowserProps) {
+  const { search, setFilters, setSort, pageHref } = useShelfSearch();
+  const shelf = useShelf({ ...search.filters, sort: search.sort, page: search.page, pageSize: SHELF_PAGE_SIZE });
+  const [filtersOpen, setFiltersOpen] = useState(false);
+  const filtersId = useId();
+  const sortId = useId();
+  const resultsHeadingId = useId();
+  const resultsHeading = useRef<HTMLHeadingElement>(null);
+  const chosen = countFilters(search.filters);
+
+  const showResults = () => {
+    setFiltersOpen(false);
+    resultsHeading.current?.focus();
+  };
+
+  return (
+    <div className="grid gap-6 md:grid-cols-[18rem_1fr] md:items-start">
+      <div className="space-y-3">
+        <Button
+          variant="secondary"
+          className="w-full justify-between md:hidden"
+          aria-expanded={filtersOpen}
+          aria-controls={filtersId}
+          onClick={() => setFiltersOpen((open) => !open)}
+        >
+          <span>{chosen > 0 ? `Filters (${chosen} chosen)` : 'Filters'}</span>
+          <span aria-hidden="true">{filtersOpen ? '▲' : '▼'}</span>
+        </Button>
+        {/* On phones the filters (and what goes with them) fold away behind the button above. */}
+        <div id={filtersId} className={cn('space-y-3', !filtersOpen && 'max-md:hidden')}>
+          <section
+            aria-label="Filter the shelf"
+            role="search"
+            className="rounded-stitch border-2 border-seam bg-muslin p-4 shadow-quilt"
+          >
+            <h2 className="mb-4 text-xl font-bold max-md:sr-only">Filters</h2>
+            <ShelfFiltersForm
+              filters={search.filters}
+              units={units}
+              currency={currency}
+              onApply={(filters) => {
+                setFilters(filters);
+                showResults();
+              }}
+              onClear={() => {
+                setFilters({});
+                showResults();
+              }}
+            />
+          </section>
+          {renderForFilters ? renderForFilters(search.filters) : null}
+        </div>
+      </div>
+
+      <section aria-labelledby={resultsHeadingId} className="min-w-0 space-y-4">
+        <h2 id={resultsHeadingId} ref={resultsHeading} tabIndex={-1} className="text-2xl font-bold focus:outline-none">
+          {chosen > 0 ? 'Bundles that match' : 'Bundles on the shelf'}
+        </h2>
+        <div className="flex flex-wrap items-end justify-between gap-3">
+          {shelf.isSuccess ? (
+            <p role="status" className="font-semibold">
+              {shelfStatus(shelf.data, shelf.isPlaceholderData, chosen > 0)}
+            </p>
+          ) : null}
+          <div className="w-full sm:ml-auto sm:w-64">
+            <label htmlFor={sortId} className="block font-semibold">
+              Sort by
+            </label>
+            <Select id={sortId} options={SORT_OPTIONS} value={search.sort} onChange={(event) => setSort(event.target.value as ShelfSort)} />
+          </div>
+        </div>
+
+        {shelf.isPending ? <Loading label="Loading the shelf…" /> : null}
+
+        {shelf.isError ? (
+          <Alert tone="error" title="The shelf could not be loaded">
+            <p>{shelf.error.message}</p>
+            <div className="flex flex-wrap gap-3">
+              <Button variant="secondary" onClick={() => shelf.refetch()} isPending={shelf.isFetching} pendingLabel="Trying…">
+                Try again
+              </Button>
+              {chosen > 0 ? (
+                <Button variant="quiet" onClick={() => setFilters({})}>
+                  Clear filters
+                </Button>
+              ) : null}
+            </div>
+          </Alert>
+        ) : null}
+
+        {shelf.isSuccess ? (
+          <Results
+            shelf={shelf.data}
+            units={units}
+            updating={shelf.isPlaceholderData}
+            filtered={chosen > 0}
+            pageHref={pageHref}
+            // A new page replaces the cards in place: take the reader back to the top of the list.
+            onPage={() => resultsHeading.current?.focus()}
+            onClear={() => setFilters({})}
+          />
+        ) : null}
+      </section>
+    </div>
+  );
+}
+
+/** One line saying what is shown, read out as it changes. */
+function shelfStatus({ items, page, pageSize, total }: ShelfPage, updating: boolean, filtered: boolean): string {
+  if (updating) return 'Updating…';
+  if (total === 0) return filtered ? 'No bundle matches these filters.' : 'The shelf is empty just now.';
+  const pageCount = Math.ceil(total / pageSize);
+  if (items.length === 0) return `There is no page ${page}; this search has ${pageCount === 1 ? 'one page' : `${pageCount} pages`}.`;
+  const first = (page - 1) * pageSize + 1;
+  return `Showing ${first}–${first + items.length - 1} of ${total} ${total === 1 ? 'bundle' : 'bundles'}`;
+}
+
+type ShelfPage = Page<BundleCardData>;
+
+interface ResultsProps {
+  shelf: ShelfPage;
+  units: UnitSystem;
+  updating: boolean;
+  filtered: boolean;
+  pageHref: (page: number) => string;
+  onPage: () => void;
+  onClear: () => void;
+}
+
+function Results({ shelf, units, updating, filtered, pageHref, onPage, onClear }: ResultsProps) {
+  const { items, page, pageSize, total } = shelf;
+  const pageCount = Math.max(1, Math.ceil(total / pageSize));
+
+  return (
+    <div className="space-y-4">
+      {total === 0 && !updating ? (
+        filtered ? (
+          <div className="space-y-3 rounded-stitch border-2 border-dashed border-seam p-6">
+            <p>Try fewer filters, or save these as a wish (the button under the filters): you will hear by e-mail when a bundle like this is approved.</p>
+            <Button variant="secondary" onClick={onClear}>
+              Clear filters
+            </Button>
+          </div>
+        ) : (
+          <p className="rounded-stitch border-2 border-dashed border-seam p-6">
+            Bundles appear here once the librarian has checked and approved them. Come back soon, or save a wish to hear by e-mail.
+          </p>
+        )
+      ) : null}
+
+      {items.length === 0 && total > 0 && !updating ? (
+        <ButtonLink to={pageHref(1)} variant="secondary">
+          Go to the first page
+        </ButtonLink>
+      ) : null}
+
+      {items.length > 0 ? (
+        <ul aria-busy={updating || undefined} className={cn('grid gap-4 sm:grid-cols-2 xl:grid-cols-3', updating && 'opacity-60')}>
+          {items.map((bundle) => (
+            <BundleCard key={bundle.id} bundle={bundle} units={units} />
+          ))}
+        </ul>
+      ) : null}
+
+      {pageCount > 1 ? (
+        <nav aria-label="Shelf pages" className="flex flex-wrap items-center justify-between gap-3">
+          {page > 1 ? (
+            <ButtonLink to={pageHref(Math.min(page - 1, pageCount))} variant="secondary" onClick={onPage}>
+              ← Previous page
+            </ButtonLink>
+          ) : (
+            <span />
+          )}
+          <p className="font-semibold">
+            Page {Math.min(page, pageCount)} of {pageCount}
+          </p>
+          {page < pageCount ? (
+            <ButtonLink to={pageHref(page + 1)} variant="secondary" onClick={onPage}>
+              Next page →
+            </ButtonLink>
+          ) : (
+            <span />
+          )}
+        </nav>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,60 @@
+import { describe, expect, it } from 'vitest';
+import { countFilters, describeShelfFilters, parseShelfFilters, readShelfSearch, shelfSearchParams } from './shelf-filters.ts';
+
+describe('the shelf search in the address', () => {
+  it('reads filters, sort and page from the query string', () => {
+    const search = readShelfSearch(new URLSearchParams('fibre=batik&value=dark&minGrams=200&maxPriceMinor=1000&q=reds&sort=price_asc&page=2'));
+    expect(search).toEqual({
+      filters: { fibre: 'batik', value: 'dark', minGrams: 200, maxPriceMinor: 1000, q: 'reds' },
+      sort: 'price_asc',
+      page: 2,
+    });
+  });
+
+  it('drops what the API would refuse instead of failing the whole shelf', () => {
+    const search = readShelfSearch(new URLSearchParams('fibre=spider_silk&cut=strips&minGrams=-3&maxGrams=heavy&sort=sideways&page=0&colour=red'));
+    expect(search).toEqual({ filters: { cut: 'strips' }, sort: 'newest', page: 1 });
+  });
+
+  it('writes a short address: no defaults, filters in a fixed order', () => {
+    expect(shelfSearchParams({ filters: {} }).toString()).toBe('');
+    expect(shelfSearchParams({ filters: { q: 'reds', fibre: 'batik' }, sort: 'newest', page: 1 }).toString()).toBe('fibre=batik&q=reds');
+    expect(shelfSearchParams({ filters: { cut: 'selvages' }, sort: 'weight_desc', page: 3 }).toString()).toBe('cut=selvages&sort=weight_desc&page=3');
+  });
+
+  it('comes back the same after a round trip', () => {
+    const search = { filters: { offer: 'meeting' as const, family: 'warm' as const, maxGrams: 907 }, sort: 'price_desc' as const, page: 4 };
+    expect(readShelfSearch(shelfSearchParams(search))).toEqual(search);
+  });
+
+  it('reads a saved wish, whose numbers are stored as numbers', () => {
+    const wish: Record<string, string | number> = { fibre: 'flannel', minGrams: 454, maxPriceMinor: 0 };
+    expect(parseShelfFilters((key) => wish[key])).toEqual({ fibre: 'flannel', minGrams: 454, maxPriceMinor: 0 });
+    expect(countFilters(parseShelfFilters((key) => wish[key]))).toBe(3);
+  });
+});
+
+describe('filters in words', () => {
+  const usd = { units: 'imperial' as const, currency: 'USD' };
+
+  it('reads like a request', () => {
+    expect(describeShelfFilters({ fibre: 'batik', value: 'dark', cut: 'strips' }, usd)).toBe('Batik, dark, strips (by width)');
+    expect(describeShelfFilters({ family: 'black_white', offer: 'postage_only' }, usd)).toBe('Black and white, free — postage only');
+  });
+
+  it('keeps the capital of English paper piecing inside the sentence', () => {
+    expect(describeShelfFilters({ value: 'light', cut: 'epp_shapes' }, usd)).toBe('Light, English paper piecing shapes');
+  });
+
+  it('gives weights in the member’s units and the price in the guild’s currency', () => {
+    // 454 g is 1 lb to the nearest ounce (NIST SP 811: 1 lb = 453.59237 g).
+    expect(describeShelfFilters({ minGrams: 454, maxGrams: 907 }, usd)).toBe('1 lb to 2 lb');
+    expect(describeShelfFilters({ minGrams: 500 }, { units: 'metric', currency: 'GBP' })).toBe('At least 500 g');
+    expect(describeShelfFilters({ maxGrams: 1500, maxPriceMinor: 750 }, { units: 'metric', currency: 'GBP' })).toBe('Up to 1.5 kg, costing up to £7.50');
+    expect(describeShelfFilters({ q: 'reds' }, usd)).toBe('Matching “reds”');
+  });
+
+  it('says when nothing is chosen', () => {
+    expect(describeShelfFilters({}, usd)).toBe('Everything on the shelf');
+  });
+});
