@@ -1,0 +1,20 @@
+import { useLocation } from 'react-router-dom';
+import { Page } from '../../../../components/layouts/page.tsx';
+import { useSession, useSessionUser } from '../../../../features/auth/api/get-session.ts';
+import { BasketView } from '../../../../features/checkout/components/basket-view.tsx';
+import { isBundleId } from '../../../../lib/basket-store.ts';
+
+export function Component() {
+  const user = useSessionUser();
+  const guild = useSession().data?.guild;
+  const added = (useLocation().state as { added?: unknown } | null)?.added;
+  return (
+    <Page title="Your basket" intro="Bundles you mean to buy or claim for postage. Each member’s bundles check out together as one order.">
+      <BasketView
+        member={{ id: user.id, units: user.units, emailVerified: user.emailVerified }}
+        guild={{ name: guild?.name ?? 'The guild', currency: guild?.currency ?? 'USD' }}
+        addedBundleId={isBundleId(added) ? added : null}
+      />
+    </Page>
+  );
+}

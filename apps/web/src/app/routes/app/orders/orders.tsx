@@ -1,0 +1,15 @@
+import { useSearchParams } from 'react-router-dom';
+import { Page } from '../../../../components/layouts/page.tsx';
+import type { OrderSide } from '../../../../features/orders/api/get-orders.ts';
+import { OrderSideSwitch, OrdersList } from '../../../../features/orders/components/orders-list.tsx';
+
+export function Component() {
+  const [search] = useSearchParams();
+  const side: OrderSide = search.get('as') === 'seller' ? 'seller' : 'buyer';
+  return (
+    <Page title="Orders" intro="Everything you have bought or been given, and everything of yours that found a new home.">
+      <OrderSideSwitch side={side} />
+      <OrdersList side={side} />
+    </Page>
+  );
+}

@@ -1,0 +1,175 @@
+// @vitest-environment happy-dom
+import type { BundleView, MeetingView, PostageQuoteView } from '@scrap-relay/shared';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { BASKET_STORAGE_KEY } from '../../../lib/basket-store.ts';
+import { createQueryClient } from '../../../lib/react-query.ts';
+import { jsonResponse, makeSession, makeUser } from '../../../testing/fixtures.ts';
+import { buttonNamed, cleanup, click, render, waitFor } from '../../../testing/render.tsx';
+import { BasketView } from './basket-view.tsx';
+
+const member = makeUser();
+const BUNDLE_ID = '0b7f1c52-6a0e-4c7e-9a51-3f0e8a6d2b11';
+const MEETING_ID = '7c1d2e3f-4a5b-4c6d-8e7f-9a0b1c2d3e4f';
+
+function bundle(overrides: Partial<BundleView> = {}): BundleView {
+  return {
+    id: BUNDLE_ID,
+    title: 'Dark batik 2½-inch strips',
+    description: '',
+    state: 'on_shelf',
+    offer: 'sale',
+    priceMinor: 1200,
+    currency: 'GBP',
+    meetingHandoverOk: false,
+    quantity: 1,
+    quantityAvailable: 1,
+    weightGrams: 454,
+    fibre: 'batik',
+    cutKinds: ['strips'],
+    colour: { value: 'dark', family: 'cool', suggested: null },
+    prewashed: true,
+    disclosures: { smokeFree: true, petFree: true },
+    pieces: [],
+    photos: [],
+    yield: null,
+    cutPlan: null,
+    seller: { id: 'seller-orla', firstName: 'Orla', rehomedCount: 2, returnedCount: 0 },
+    reviewNotes: null,
+    submittedAt: null,
+    onShelfAt: null,
+    expiresAt: null,
+    createdAt: '2026-11-01T10:00:00.000Z',
+    updatedAt: '2026-11-01T10:00:00.000Z',
+    abilities: { edit: false, submit: false, withdraw: false, relist: false, review: false, buy: true, claim: false },
+    ...overrides,
+  };
+}
+
+const quote: PostageQuoteView = {
+  zone: 'local',
+  parcels: [
+    {
+      number: 1,
+      units: [{ ref: 'Dark batik 2½-inch strips', grams: 454 }],
+      packageCode: 'padded_mailer',
+      packageName: 'Padded mailer',
+      contentGrams: 454,
+      tareGrams: 25,
+      dimensionalGrams: null,
+      billableGrams: 479,
+      zone: 'local',
+      bandMaxGrams: 907,
+      priceMinor: 680,
+    },
+  ],
+  handlingMinor: 50,
+  totalMinor: 730,
+  explanation: ['Postal code “LH1 4QT” is in zone local (prefix “LH1”).', 'Total postage: £7.30.'],
+  currency: 'GBP',
+};
+
+const meeting: MeetingView = { id: MEETING_ID, startsAt: '2026-12-10T19:00:00.000Z', place: 'Larkhollow Chapel Hall', notes: '', abilities: { edit: false } };
+const savedAddress = { name: 'Hester Quill', line1: '3 Loom Street', line2: '', town: 'Larkhollow', region: '', postalCode: 'LH1 4QT', country: 'GB' };
+
+interface ApiScript {
+  bundleAnswers: BundleView[];
+  orderAnswer: Response;
+}
+
+/** The API as the basket sees it; each GET of the bundle takes the next answer (the last one repeats). */
+function serveApi(script: ApiScript) {
+  const orders: unknown[] = [];
+  let bundleCalls = 0;
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
+      const path = new URL(String(input), 'http://app.test').pathname;
+      if (path === '/api/session') return jsonResponse(200, makeSession(member));
+      if (path === `/api/bundles/${BUNDLE_ID}`) {
+        const answer = script.bundleAnswers[Math.min(bundleCalls++, script.bundleAnswers.length - 1)];
+        return jsonResponse(200, { bundle: answer });
+      }
+      if (path === '/api/me/address') return jsonResponse(200, { address: savedAddress });
+      if (path === '/api/meetings') return jsonResponse(200, { items: [meeting] });
+      if (path === '/api/postage-quotes') return jsonResponse(200, quote);
+      if (path === '/api/orders' && init?.method === 'POST') {
+        orders.push(JSON.parse(String(init.body)));
+        return script.orderAnswer;
+      }
+      return jsonResponse(404, { error: { code: 'not_found', message: 'Not here.' } });
+    }),
+  );
+  return { orders };
+}
+
+async function openBasket() {
+  window.localStorage.setItem(BASKET_STORAGE_KEY, JSON.stringify({ memberId: member.id, items: [{ bundleId: BUNDLE_ID, quantity: 1 }] }));
+  const router = createMemoryRouter(
+    [
+      { path: '/basket', element: <BasketView member={{ id: member.id, units: 'metric', emailVerified: true }} guild={{ name: 'Larkhollow Quilting Circle', currency: 'GBP' }} /> },
+      { path: '/orders/:id', element: <p>The order page</p> },
+    ],
+    { initialEntries: ['/basket'] },
+  );
+  const rendered = await render(
+    <QueryClientProvider client={createQueryClient()}>
+      <RouterProvider router={router} />
+    </QueryClientProvider>,
+  );
+  return { router, ...rendered };
+}
+
+afterEach(() => {
+  cleanup();
+  vi.unstubAllGlobals();
+  window.localStorage.clear();
+});
+
+describe('checking out the basket', () => {
+  it('quotes the postage to the saved address, and keeps the basket when the payment service is down', async () => {
+    const { orders } = serveApi({ bundleAnswers: [bundle()], orderAnswer: jsonResponse(503, { error: { code: 'service_unavailable', message: 'The card payment service is not answering just now.' } }) });
+    const { container } = await openBasket();
+
+    const pay = await waitFor(() => buttonNamed(container, 'Pay £19.30 by card'), 3000);
+    expect(container.textContent).toContain('Padded mailer');
+    await click(pay);
+
+    await waitFor(() => expect(container.querySelector('[role="alert"]')?.textContent).toContain('The card payment service is not answering just now.'));
+    expect(container.textContent).toContain('Nothing was taken from your card and nothing is held.');
+    expect(orders).toEqual([{ items: [{ bundleId: BUNDLE_ID, quantity: 1 }], fulfilment: 'post', address: savedAddress, saveAddress: false }]);
+    // Nothing was held, so the bundle stays in the basket to try again.
+    expect(JSON.parse(window.localStorage.getItem(BASKET_STORAGE_KEY) ?? '{}').items).toHaveLength(1);
+  });
+
+  it('takes out a bundle someone else bought first, says why, and charges nothing', async () => {
+    serveApi({
+      bundleAnswers: [bundle(), bundle({ state: 'rehomed', quantityAvailable: 0 })],
+      orderAnswer: jsonResponse(409, { error: { code: 'conflict', message: '“Dark batik 2½-inch strips” is no longer available.', fields: { items: 'No longer available.' } } }),
+    });
+    const { container } = await openBasket();
+
+    await click(await waitFor(() => buttonNamed(container, 'Pay £19.30 by card'), 3000));
+
+    await waitFor(() => expect(container.textContent).toContain('“Dark batik 2½-inch strips” has found a new home. It has been taken out of your basket.'));
+    expect(container.textContent).toContain('Your basket is empty.');
+    expect(JSON.parse(window.localStorage.getItem(BASKET_STORAGE_KEY) ?? '{}').items).toEqual([]);
+  });
+
+  it('confirms a free meeting handover at once and opens the order, with nothing to pay', async () => {
+    const { orders } = serveApi({
+      bundleAnswers: [bundle({ offer: 'meeting', priceMinor: null })],
+      orderAnswer: jsonResponse(201, { order: { id: 'order-77', reference: 'SR-7QK2' }, checkoutUrl: null }),
+    });
+    const { container, router } = await openBasket();
+
+    const confirm = await waitFor(() => buttonNamed(container, 'Confirm: I will collect it at the meeting'));
+    expect(container.textContent).toContain('Larkhollow Chapel Hall');
+    await click(confirm);
+
+    await waitFor(() => expect(router.state.location.pathname).toBe('/orders/order-77'));
+    expect(orders).toEqual([{ items: [{ bundleId: BUNDLE_ID, quantity: 1 }], fulfilment: 'meeting', meetingId: MEETING_ID }]);
+    expect(JSON.parse(window.localStorage.getItem(BASKET_STORAGE_KEY) ?? '{}').items).toEqual([]);
+  });
+});

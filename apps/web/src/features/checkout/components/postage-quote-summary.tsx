@@ -1,0 +1,34 @@
+import { formatMoney, formatWeight, type PostageQuoteView, type UnitSystem } from '@scrap-relay/shared';
+
+/** The quote in a few lines, with the full working in a disclosure for anyone who wants to check it. */
+export function PostageQuoteSummary({ quote, units }: { quote: PostageQuoteView; units: UnitSystem }) {
+  const money = (minor: number) => formatMoney(minor, quote.currency);
+  return (
+    <div className="space-y-3">
+      <ul className="space-y-1">
+        {quote.parcels.map((parcel) => (
+          <li key={parcel.number}>
+            <span className="font-semibold">
+              {quote.parcels.length > 1 ? `Parcel ${parcel.number}: ` : ''}
+              {parcel.packageName}
+            </span>
+            {' — '}
+            {formatWeight(parcel.contentGrams, units)} of fabric, billed as {formatWeight(parcel.billableGrams, units)}: {money(parcel.priceMinor)}
+          </li>
+        ))}
+        {quote.handlingMinor > 0 ? <li>Packing and handling: {money(quote.handlingMinor)}</li> : null}
+      </ul>
+      <details className="rounded-stitch border-2 border-seam bg-muslin p-3">
+        <summary className="min-h-11 cursor-pointer py-2 font-semibold">How the postage was worked out</summary>
+        <ol className="mt-2 space-y-1 text-thread-soft">
+          {quote.explanation.map((line, index) => (
+            // Lines starting with spaces are the packages tried for the parcel above them.
+            <li key={index} className={line.startsWith(' ') ? 'pl-6' : undefined}>
+              {line.trim()}
+            </li>
+          ))}
+        </ol>
+      </details>
+    </div>
+  );
+}

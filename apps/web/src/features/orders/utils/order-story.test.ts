@@ -1,0 +1,98 @@
+import type { OrderView } from '@scrap-relay/shared';
+import { describe, expect, it } from 'vitest';
+import { orderNextStep, orderTimeline } from './order-story.ts';
+
+const base: OrderView = {
+  id: 'o-1',
+  reference: 'SR-7QK2',
+  state: 'awaiting_payment',
+  fulfilment: 'post',
+  viewerIs: 'buyer',
+  buyer: { id: 'b-1', name: 'Maud Tilling', email: null },
+  seller: { id: 's-1', name: 'Orla Vance', email: null },
+  meeting: null,
+  address: null,
+  items: [{ bundleId: 'x', title: 'Dark 5-inch squares', quantity: 1, unitPriceMinor: 1200, weightGrams: 454, thumbUrl: null }],
+  currency: 'USD',
+  subtotalMinor: 1200,
+  postageMinor: 730,
+  chargeMinor: 1930,
+  guildFeeMinor: null,
+  sellerCreditMinor: null,
+  postageExplanation: [],
+  checkoutUrl: null,
+  holdExpiresAt: null,
+  paidAt: null,
+  postedAt: null,
+  trackingNumber: null,
+  receivedAt: null,
+  handedOverAt: null,
+  cancelledAt: null,
+  cancelReason: null,
+  refundedAt: null,
+  problems: [],
+  createdAt: '2026-11-02T10:00:00.000Z',
+  abilities: { pay: false, markPosted: false, markReceived: false, cancel: false, refund: false, reportProblem: false, viewAddress: false },
+};
+
+describe('order timeline', () => {
+  it('lists what happened in time order, with the tracking number and money', () => {
+    const order: OrderView = {
+      ...base,
+      state: 'received',
+      paidAt: '2026-11-02T10:05:00.000Z',
+      postedAt: '2026-11-03T09:00:00.000Z',
+      trackingNumber: 'FERN-2231',
+      receivedAt: '2026-11-06T16:00:00.000Z',
+    };
+    expect(orderTimeline(order).map((e) => [e.title, e.detail])).toEqual([
+      ['Order placed', undefined],
+      ['Paid', '$19.30 by card'],
+      ['Posted', 'Tracking number FERN-2231'],
+      ['Received', undefined],
+    ]);
+  });
+
+  it('calls a free order confirmed, not paid, even when placed and confirmed in the same moment', () => {
+    const at = '2026-11-02T10:00:00.000Z';
+    const order: OrderView = { ...base, state: 'confirmed', fulfilment: 'meeting', chargeMinor: 0, subtotalMinor: 0, postageMinor: 0, paidAt: at, createdAt: at };
+    expect(orderTimeline(order).map((e) => e.title)).toEqual(['Order placed', 'Confirmed']);
+  });
+
+  it('shows a reported problem and the refund that followed it', () => {
+    const order: OrderView = {
+      ...base,
+      state: 'refunded',
+      paidAt: '2026-11-02T10:05:00.000Z',
+      postedAt: '2026-11-03T09:00:00.000Z',
+      problems: [{ id: 'p-1', message: 'The bag arrived soaked.', createdAt: '2026-11-05T12:00:00.000Z', resolvedAt: '2026-11-06T08:00:00.000Z' }],
+      refundedAt: '2026-11-06T08:00:00.000Z',
+    };
+    const events = orderTimeline(order);
+    expect(events.map((e) => e.title)).toEqual(['Order placed', 'Paid', 'Posted', 'Problem reported (resolved)', 'Refunded']);
+    expect(events.at(-1)?.detail).toBe('$19.30 back to the card');
+  });
+
+  it('gives the cancellation reason', () => {
+    const order: OrderView = { ...base, state: 'cancelled', cancelledAt: '2026-11-02T11:00:00.000Z', cancelReason: 'Found a moth hole' };
+    expect(orderTimeline(order).at(-1)).toMatchObject({ title: 'Cancelled', detail: 'Found a moth hole' });
+  });
+});
+
+describe('what happens next', () => {
+  it('tells the seller of a paid posted order to pack and post it, and the buyer to wait', () => {
+    const paid: OrderView = { ...base, state: 'confirmed', paidAt: '2026-11-02T10:05:00.000Z' };
+    expect(orderNextStep({ ...paid, viewerIs: 'seller' })).toMatch(/^Paid\. Pack the bundles/);
+    expect(orderNextStep(paid)).toBe('Paid. Orla Vance will post it to you.');
+  });
+
+  it('asks the buyer to mark a posted order received', () => {
+    expect(orderNextStep({ ...base, state: 'posted' })).toBe('On its way. Mark it received when it arrives.');
+    expect(orderNextStep({ ...base, state: 'posted', viewerIs: 'seller' })).toBe('Posted. Waiting for Maud Tilling to say it arrived.');
+  });
+
+  it('says whether a cancelled order was refunded', () => {
+    expect(orderNextStep({ ...base, state: 'cancelled' })).toBe('Cancelled. Nothing was charged.');
+    expect(orderNextStep({ ...base, state: 'cancelled', refundedAt: '2026-11-02T11:00:00.000Z' })).toMatch(/refunded in full/);
+  });
+});
