@@ -14,6 +14,7 @@ let sellerClient: Client;
 let librarianClient: Client;
 let buyer: Member;
 let buyerClient: Client;
+let treasurer: Member;
 let treasurerClient: Client;
 
 const address = { name: 'Pearl Dunmore', line1: '4 Weir Lane', town: 'Millbrook', postalCode: '97451', country: 'US' };
@@ -26,7 +27,8 @@ beforeAll(async () => {
   sellerClient = await signedInClient(api.runtime.app, seller);
   buyerClient = await signedInClient(api.runtime.app, buyer);
   librarianClient = await signedInClient(api.runtime.app, await createMember({ roles: ['member', 'librarian'] }));
-  treasurerClient = await signedInClient(api.runtime.app, await createMember({ roles: ['member', 'treasurer'] }));
+  treasurer = await createMember({ roles: ['member', 'treasurer'] });
+  treasurerClient = await signedInClient(api.runtime.app, treasurer);
 });
 afterAll(async () => {
   await stopListening();
@@ -284,10 +286,16 @@ describe('cancelling, refunds and the treasurer', () => {
     await sellerClient.send('post', `/api/orders/${orderId}/posted`, {});
     const reported = await buyerClient.send('post', `/api/orders/${orderId}/problems`, { message: 'The bag arrived soaked.' });
     expect(reported.status).toBe(201);
+    const problems = await treasurerClient.get('/api/orders?as=treasurer&problems=open');
+    expect(problems.body.items.map((o: { id: string }) => o.id)).toContain(orderId);
+    expect((await buyerClient.get('/api/orders?as=treasurer')).status).toBe(403);
+    await waitForMail({ to: treasurer.email, subjectIncludes: 'A problem was reported' });
     expect((await sellerClient.send('post', `/api/orders/${orderId}/refund`)).status).toBe(403);
     const refunded = await treasurerClient.send('post', `/api/orders/${orderId}/refund`);
     expect(refunded.body.order).toMatchObject({ state: 'refunded' });
     await waitForMail({ to: buyer.email, subjectIncludes: 'Refund for order' });
+    const afterRefund = await treasurerClient.get('/api/orders?as=treasurer&problems=open');
+    expect(afterRefund.body.items.map((o: { id: string }) => o.id)).not.toContain(orderId);
 
     const balances = await treasurerClient.get('/api/seller-balances');
     const mine = balances.body.items.find((b: { sellerId: string }) => b.sellerId === seller.id);

@@ -73,3 +73,13 @@ export function orderRefunded(p: Base & { refunded: string }): RenderedEmail {
     bodyHtml: html`<p>Hello ${p.name},</p><p>The guild’s treasurer refunded <strong>${p.refunded}</strong> for order <strong>${p.reference}</strong>. Card refunds can take a few days to show.</p>${button(p.link, 'See the order')}`,
   });
 }
+
+export function problemReported(p: Base & { message: string }): RenderedEmail {
+  return layout({
+    guildName: p.guildName,
+    subject: `A problem was reported on order ${p.reference}`,
+    text: `Hello ${p.name},\n\nThe buyer of order ${p.reference} reported a problem:\n\n${p.message}\n\nThe order, and a refund if one is due: ${p.link}`,
+    bodyHtml: html`<p>Hello ${p.name},</p><p>The buyer of order <strong>${p.reference}</strong> reported a problem:</p>
+<blockquote style="margin:0 0 16px;padding:12px 16px;border-left:4px solid #8a2b2b;background:#f6f1e7;white-space:pre-wrap">${p.message}</blockquote>${button(p.link, 'Open the order')}`,
+  });
+}

@@ -12,7 +12,10 @@ import { routeId } from '../bundles/bundles.routes.ts';
 import { presentOrder } from './orders.presenter.ts';
 import * as orders from './orders.service.ts';
 
-const listQuerySchema = z.strictObject({ as: z.enum(['buyer', 'seller'], { error: 'Use as=buyer or as=seller.' }).default('buyer') });
+const listQuerySchema = z.strictObject({
+  as: z.enum(['buyer', 'seller', 'treasurer'], { error: 'Use as=buyer, as=seller or as=treasurer.' }).default('buyer'),
+  problems: z.enum(['open'], { error: 'Use problems=open.' }).optional(),
+});
 
 async function firstThumbs(ctx: AppContext, list: Order[]): Promise<Map<string, string | null>> {
   const bundleIds = [...new Set(list.flatMap((o) => (o.items ?? []).map((i) => i.bundleId)))];
@@ -40,8 +43,8 @@ export function ordersRoutes(ctx: AppContext): Router {
 
   router.get('/orders', async (req, res) => {
     const actor = actorOf(requireMember(req));
-    const { as } = parseInput(listQuerySchema, req.query);
-    const list = await orders.listOrders(actor, as);
+    const { as, problems } = parseInput(listQuerySchema, req.query);
+    const list = as === 'treasurer' ? await orders.ordersWithOpenProblems(actor, problems === 'open') : await orders.listOrders(actor, as);
     const thumbs = await firstThumbs(ctx, list);
     res.json({ items: list.map((o) => presentOrder(o, actor, thumbs)) });
   });

@@ -16,6 +16,7 @@ import {
   orderReceivedToSeller,
   orderRefunded,
   orderSoldToSeller,
+  problemReported,
 } from '../../emails/orders.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
@@ -50,6 +51,17 @@ export async function viewableOrder(actor: Actor, id: string): Promise<Order> {
   if (!order) throw notFound('That order');
   authorize(actor, 'order.view', order);
   return order;
+}
+
+/** The treasurer's list: orders with a reported problem (only the open ones, when asked). */
+export async function ordersWithOpenProblems(actor: Actor, openOnly: boolean): Promise<Order[]> {
+  authorize(actor, 'ledger.view');
+  const [rows] = await Order.sequelize!.query(
+    `SELECT DISTINCT order_id FROM order_problems ${openOnly ? 'WHERE resolved_at IS NULL' : ''}`,
+  );
+  const ids = (rows as { order_id: string }[]).map((r) => r.order_id);
+  if (ids.length === 0) return [];
+  return Order.findAll({ where: { id: ids }, include: ORDER_INCLUDE, order: [['createdAt', 'DESC']], limit: 200 });
 }
 
 export async function listOrders(actor: Actor, as: 'buyer' | 'seller'): Promise<Order[]> {
@@ -435,10 +447,19 @@ export async function markReceived(ctx: AppContext, actor: Actor, orderId: strin
   });
 }
 
+/** The buyer reports a problem; every treasurer is told, since refunds are theirs to decide. */
 export async function reportProblem(ctx: AppContext, actor: Actor, orderId: string, message: string): Promise<void> {
-  const order = await findOrder(orderId);
-  authorize(actor, 'order.reportProblem', order);
-  await OrderProblem.create({ orderId, reporterId: actor.id, message });
+  const guild = await loadGuild();
+  await ctx.sequelize.transaction(async (transaction) => {
+    const order = await findOrder(orderId, transaction, true);
+    authorize(actor, 'order.reportProblem', order);
+    await OrderProblem.create({ orderId, reporterId: actor.id, message }, { transaction });
+    const treasurers = await Member.findAll({ where: { active: true, roles: { [Op.contains]: ['treasurer' as const] } }, transaction });
+    for (const treasurer of treasurers) {
+      const mail = problemReported({ guildName: guild.name, name: treasurer.name, reference: order.reference, titles: [], link: `${ctx.config.appUrl}/orders/${order.id}`, message });
+      await ctx.queue.enqueueEmail({ to: treasurer.email, ...mail }, transaction);
+    }
+  });
 }
 
 /** Scheduled: holds past the guild's limit are cancelled (the session expired first, so a late payment cannot land). */
