@@ -76,6 +76,7 @@ export interface LedgerEntryView {
   accountLabel: string;
   amountMinor: number;
   currency: string;
+  orderId: string | null;
   orderReference: string | null;
   payoutId: string | null;
 }

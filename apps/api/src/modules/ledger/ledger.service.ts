@@ -23,6 +23,7 @@ interface LedgerRow {
   account: string;
   amount_minor: number;
   currency: string;
+  order_id: string | null;
   order_reference: string | null;
   payout_id: string | null;
   seller_name: string | null;
@@ -37,7 +38,7 @@ export async function ledgerEntries(sequelize: Sequelize, actor: Actor, q: Ledge
   if (q.kind) where.push(`e.kind = $${bind.push(q.kind)}`);
   const rows = await sequelize.query<LedgerRow>(
     `SELECT e.id, e.transaction_id, e.created_at, e.kind, e.reverses, e.account, e.amount_minor, e.currency,
-            o.reference AS order_reference, e.payout_id, m.name AS seller_name
+            e.order_id, o.reference AS order_reference, e.payout_id, m.name AS seller_name
      FROM ledger_entries e
      LEFT JOIN orders o ON o.id = e.order_id
      LEFT JOIN members m ON m.id = (CASE WHEN e.account LIKE 'seller:%' THEN substring(e.account from 8)::uuid END)
@@ -56,6 +57,7 @@ export async function ledgerEntries(sequelize: Sequelize, actor: Actor, q: Ledge
     accountLabel: r.seller_name ? `Seller: ${r.seller_name}` : (ACCOUNT_LABELS[r.account] ?? r.account),
     amountMinor: r.amount_minor,
     currency: r.currency,
+    orderId: r.order_id,
     orderReference: r.order_reference,
     payoutId: r.payout_id,
   }));
