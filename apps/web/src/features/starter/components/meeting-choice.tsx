@@ -1,0 +1,28 @@
+import type { MeetingView } from '@scrap-relay/shared';
+import { MeetingSelect } from '../../../components/meeting-select.tsx';
+import { Loading } from '../../../components/ui/loading.tsx';
+import { useMeetings } from '../../../lib/meetings.ts';
+
+/**
+ * Where the member will collect: one of the coming meetings. Left empty, the API
+ * picks the next one (or, with none set, the librarian arranges it).
+ */
+export function MeetingChoice({ value, onChange, error }: { value: string; onChange: (meetingId: string) => void; error?: string | undefined }) {
+  const meetings = useMeetings('upcoming');
+  if (meetings.isPending) return <Loading label="Loading the coming meetings…" />;
+  const items: MeetingView[] = meetings.data?.items ?? [];
+  if (items.length === 0) {
+    return <p>No guild meeting is set yet. The librarian will tell you when and where to collect it.</p>;
+  }
+  return (
+    <MeetingSelect
+      label="Collect it at"
+      hint="Bundles change hands at the door of a guild meeting."
+      meetings={items}
+      value={value}
+      onChange={onChange}
+      emptyLabel="The next meeting"
+      error={error}
+    />
+  );
+}

@@ -1,0 +1,111 @@
+// @vitest-environment happy-dom
+import type { BundleView, MeetingView } from '@scrap-relay/shared';
+import { MemoryRouter } from 'react-router-dom';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { AppProvider, makeQueryClient } from '../../../app/provider.tsx';
+import { jsonResponse, makeSession, makeUser } from '../../../testing/fixtures.ts';
+import { buttonNamed, cleanup, click, render, waitFor } from '../../../testing/render.tsx';
+import type { StarterBundlesResponse } from '../types.ts';
+import { StarterProgramme } from './starter-programme.tsx';
+
+afterEach(() => {
+  cleanup();
+  vi.unstubAllGlobals();
+});
+
+const meeting: MeetingView = { id: 'mt-1', startsAt: '2031-03-13T19:00:00Z', place: 'Larkhollow chapel room', notes: '', abilities: { edit: false } };
+
+function starterBundle(): BundleView {
+  return {
+    id: 'b-1',
+    title: 'Starter bag of lawn squares',
+    description: '',
+    state: 'on_shelf',
+    offer: 'starter',
+    priceMinor: null,
+    currency: 'GBP',
+    meetingHandoverOk: false,
+    quantity: 1,
+    quantityAvailable: 1,
+    weightGrams: 300,
+    fibre: 'lawn_voile',
+    cutKinds: ['squares'],
+    colour: { value: 'light', family: 'cool', suggested: null },
+    prewashed: true,
+    disclosures: { smokeFree: true, petFree: false },
+    pieces: [],
+    photos: [],
+    yield: null,
+    cutPlan: null,
+    seller: { id: 's-1', firstName: 'Mabel', rehomedCount: 3, returnedCount: 0 },
+    reviewNotes: null,
+    submittedAt: null,
+    onShelfAt: '2031-03-01T10:00:00Z',
+    expiresAt: null,
+    createdAt: '2031-03-01T10:00:00Z',
+    updatedAt: '2031-03-01T10:00:00Z',
+    abilities: { edit: false, submit: false, withdraw: false, relist: false, review: false, buy: false, claim: true },
+  };
+}
+
+/** The API for one new quilter: one free bundle at first; the claim loses the race; then nothing is free. */
+function serveApi() {
+  let free = true;
+  const calls: string[] = [];
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
+      const url = new URL(String(input), 'http://app.test');
+      const method = init?.method ?? 'GET';
+      calls.push(`${method} ${url.pathname}${method === 'POST' ? ` ${String(init?.body)}` : ''}`);
+      if (url.pathname === '/api/session') return jsonResponse(200, makeSession(makeUser({ newQuilter: true })));
+      if (url.pathname === '/api/meetings') return jsonResponse(200, { items: [meeting] });
+      if (url.pathname === '/api/starter-bundles') {
+        const body: StarterBundlesResponse = {
+          status: { eligibility: { eligible: true }, waitlist: null, offer: null, claims: [] },
+          items: free ? [starterBundle()] : [],
+        };
+        return jsonResponse(200, body);
+      }
+      if (url.pathname === '/api/starter-bundles/b-1/claims') {
+        free = false;
+        return jsonResponse(409, { error: { code: 'conflict', message: 'Someone else claimed that one a moment ago.', fields: { bundleId: 'Already claimed.' } } });
+      }
+      return jsonResponse(404, { error: { code: 'not_found', message: 'Not here.' } });
+    }),
+  );
+  return calls;
+}
+
+describe('claiming a starter bundle', () => {
+  it('sends the chosen meeting, and when someone else was quicker says so and offers the waiting list', async () => {
+    const calls = serveApi();
+    const { container } = await render(
+      <AppProvider queryClient={makeQueryClient()}>
+        <MemoryRouter>
+          <StarterProgramme units="metric" runsProgramme={false} />
+        </MemoryRouter>
+      </AppProvider>,
+    );
+    await waitFor(() => expect(container.textContent).toContain('Starter bag of lawn squares'));
+    expect(container.textContent).toContain('Lawn / voile');
+    expect(container.textContent).toContain('300 g');
+    expect(container.textContent).toContain('pets live there');
+
+    await click(buttonNamed(container, /^Claim/));
+    const select = await waitFor(() => {
+      const found = container.querySelector<HTMLSelectElement>('dialog select');
+      if (!found) throw new Error('No meeting choice yet');
+      return found;
+    });
+    expect([...select.options].map((o) => o.textContent)).toEqual(['The next meeting', expect.stringContaining('Larkhollow chapel room')]);
+    select.value = 'mt-1';
+    select.dispatchEvent(new Event('change', { bubbles: true }));
+    await click(buttonNamed(container, 'Claim it'));
+
+    await waitFor(() => expect(container.textContent).toContain('Someone else claimed it a moment ago'));
+    expect(calls).toContain('POST /api/starter-bundles/b-1/claims {"meetingId":"mt-1"}');
+    await waitFor(() => expect(buttonNamed(container, 'Join the waiting list')).toBeTruthy());
+    expect(container.textContent).not.toContain('Starter bag of lawn squares');
+  });
+});
