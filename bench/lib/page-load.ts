@@ -143,8 +143,8 @@ async function throttle(cdp: CDPSession): Promise<void> {
 /**
  * One cold load of `pathname` in a new tab: the browser's HTTP cache is
  * emptied first (cookies stay), then the page loads under throttling until
- * the network has been quiet for 500 ms, and the paint timings are read.
- * With `throttled: false` it only warms the server.
+ * it has settled (QUIET_MS without a request, no "Loading…" line), and the
+ * paint timings are read. With `throttled: false` it only warms the server.
  */
 export async function coldLoad(context: BrowserContext, pathname: string, options: { throttled: boolean }): Promise<PageLoad> {
   const page = await context.newPage();
