@@ -73,6 +73,7 @@ export function AppShell({ guildName, homeHref, nav, headerEnd, children }: AppS
                 <li key={entry.page.path}>
                   <NavLink to={entry.page.getHref()} end={entry.page.path === '/'} className={navLinkClass}>
                     {entry.label}
+                    {entry.Count ? <entry.Count /> : null}
                   </NavLink>
                 </li>
               ))}
