@@ -1,5 +1,5 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { isNewQuilter, offerExpiresAtFrom, starterEligibility, type StarterEligibility, type WaitlistRow } from '@scrap-relay/shared';
+import { isNewQuilter, offerExpiresAtFrom, starterEligibility, type StarterEligibility, type StarterStatus, type WaitlistRow } from '@scrap-relay/shared';
 import { Bundle, Meeting, Member, StarterClaim, WaitlistEntry, WaitlistOffer, type Guild } from '../../db/models/index.ts';
 import { AppError, badRequest, conflict, notFound } from '../../errors/index.ts';
 import { starterClaimed, starterOffered } from '../../emails/starter.ts';
@@ -247,7 +247,7 @@ export async function waitlistQueue(sequelize: AppContext['sequelize'], now: Dat
 }
 
 /** A member's own view: eligibility, claims, place in the queue and any open offer. */
-export async function myStarterStatus(ctx: AppContext, member: Member) {
+export async function myStarterStatus(ctx: AppContext, member: Member): Promise<StarterStatus> {
   const guild = await loadGuild();
   const now = ctx.now();
   const eligibility = await eligibilityOf(member, guild, now);
@@ -259,10 +259,11 @@ export async function myStarterStatus(ctx: AppContext, member: Member) {
   const offer = entry ? await WaitlistOffer.findOne({ where: { entryId: entry.id, status: 'open' } }) : null;
   const offerBundle = offer ? await Bundle.findByPk(offer.bundleId) : null;
   return {
+    rules: { limitPerWindow: guild.settings.starterLimitPerWindow, windowDays: guild.settings.starterWindowDays, offerHours: guild.settings.starterOfferHours },
     eligibility: eligibility.eligible
       ? { eligible: true as const }
       : { eligible: false as const, reason: eligibility.reason, nextEligibleAt: eligibility.reason === 'over_limit' ? eligibility.nextEligibleAt.toISOString() : null },
-    waitlist: entry ? { status: entry.status, position, joinedAt: entry.joinedAt.toISOString() } : null,
+    waitlist: entry ? { status: entry.status as 'waiting' | 'offered', position: position!, joinedAt: entry.joinedAt.toISOString() } : null,
     offer: offer && offerBundle ? { id: offer.id, bundleId: offerBundle.id, title: offerBundle.title, expiresAt: offer.expiresAt.toISOString() } : null,
     claims: claims.map((c) => ({
       id: c.id,

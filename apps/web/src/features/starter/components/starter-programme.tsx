@@ -95,7 +95,7 @@ export function StarterProgramme({ units, runsProgramme }: StarterProgrammeProps
           <MyClaims claims={starter.data.status.claims} />
         </>
       ) : null}
-      <ProgrammeExplainer />
+      <ProgrammeExplainer rules={starter.data?.status.rules} />
       {claiming ? <ClaimDialog bundle={claiming} onClaimed={claimed} onTaken={taken} onClose={() => setClaiming(null)} /> : null}
     </>
   );
