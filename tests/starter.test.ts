@@ -1,6 +1,6 @@
 import { Op } from 'sequelize';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { Bundle, Meeting, Order, StarterClaim, WaitlistEntry, type Member } from '../apps/api/src/db/models/index.ts';
+import { Bundle, DEFAULT_GUILD_SETTINGS, Guild, Meeting, Order, StarterClaim, WaitlistEntry, type Member } from '../apps/api/src/db/models/index.ts';
 import { lapseOffers } from '../apps/api/src/modules/starter/starter.service.ts';
 import { sendMeetingReminders } from '../apps/api/src/modules/handovers/handovers.service.ts';
 import { createMember, signedInClient, startTestApi, type Client, type TestApi } from './support/api.ts';
@@ -201,5 +201,42 @@ describe('meeting reminders and moving handovers', () => {
   it('does not let an ordinary member open the sheet or tick', async () => {
     const member = await signedInClient(api.runtime.app, await createMember());
     expect((await member.get(`/api/meetings/${meeting.id}/handovers`)).status).toBe(403);
+  });
+});
+
+describe('posting a starter bundle where the guild allows it', () => {
+  const address = { name: 'Posy Newcomer', line1: '2 Lane End', town: 'Millbrook', postalCode: '97451', country: 'US' };
+
+  it('is refused while the guild hands starter bundles over at meetings only', async () => {
+    const id = await donated({ title: 'Starter to post, not allowed' });
+    const client = await signedInClient(api.runtime.app, await newQuilter());
+    const res = await client.send('post', '/api/orders', { items: [{ bundleId: id, quantity: 1 }], fulfilment: 'post', address });
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields.fulfilment).toBeDefined();
+  });
+
+  it('lets an eligible new quilter pay the postage only; cancelling ends the claim and frees the bundle', async () => {
+    await Guild.update({ settings: { ...DEFAULT_GUILD_SETTINGS, starterPostingAllowed: true } }, { where: { id: 1 } });
+    try {
+      const id = await donated({ title: 'Starter to post', weightGrams: 200 });
+      const posy = await newQuilter('Posy Newcomer');
+      const client = await signedInClient(api.runtime.app, posy);
+      const placed = await client.send('post', '/api/orders', { items: [{ bundleId: id, quantity: 1 }], fulfilment: 'post', address });
+      expect(placed.status).toBe(201);
+      // 200 g + 15 g envelope → the ½ lb local band 450¢ + 50¢ handling (the guild's default table); nothing for the bundle itself.
+      expect(placed.body.order).toMatchObject({ subtotalMinor: 0, postageMinor: 500, chargeMinor: 500, state: 'awaiting_payment' });
+      expect(await StarterClaim.count({ where: { memberId: posy.id, state: 'claimed' } })).toBe(1);
+
+      const other = await donated({ title: 'Second starter' });
+      const again = await client.send('post', `/api/starter-bundles/${other}/claims`, {});
+      expect(again.status).toBe(403);
+
+      expect((await client.send('post', `/api/orders/${placed.body.order.id}/cancel`, {})).status).toBe(200);
+      expect(await StarterClaim.count({ where: { memberId: posy.id, state: 'claimed' } })).toBe(0);
+      expect((await Bundle.findByPk(id))!.state).toBe('on_shelf');
+      expect((await client.send('post', `/api/starter-bundles/${other}/claims`, {})).status).toBe(201);
+    } finally {
+      await Guild.update({ settings: DEFAULT_GUILD_SETTINGS }, { where: { id: 1 } });
+    }
   });
 });

@@ -21,7 +21,7 @@ export interface StarterClaimSummary {
 
 export interface StarterStatus {
   /** The guild's own limits, as its settings say. */
-  rules: { limitPerWindow: number; windowDays: number; offerHours: number };
+  rules: { limitPerWindow: number; windowDays: number; offerHours: number; postingAllowed: boolean };
   eligibility: StarterEligibilityView;
   /** The member's open place in the queue (1 = next in line), if any. */
   waitlist: { status: 'waiting' | 'offered'; position: number; joinedAt: string } | null;

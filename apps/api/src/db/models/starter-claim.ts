@@ -8,6 +8,7 @@ export class StarterClaim extends Model<InferAttributes<StarterClaim>, InferCrea
   declare bundleId: string;
   declare memberId: string;
   declare meetingId: string | null;
+  declare orderId: CreationOptional<string | null>;
   declare state: CreationOptional<'claimed' | 'handed_over' | 'cancelled'>;
   declare claimedAt: Date;
   declare handedOverAt: CreationOptional<Date | null>;
@@ -28,6 +29,7 @@ export class StarterClaim extends Model<InferAttributes<StarterClaim>, InferCrea
         bundleId: { type: DataTypes.UUID, allowNull: false },
         memberId: { type: DataTypes.UUID, allowNull: false },
         meetingId: { type: DataTypes.UUID, allowNull: true },
+        orderId: { type: DataTypes.UUID, allowNull: true },
         state: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'claimed' },
         claimedAt: { type: DataTypes.DATE, allowNull: false },
         handedOverAt: { type: DataTypes.DATE, allowNull: true },

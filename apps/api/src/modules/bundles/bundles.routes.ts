@@ -6,7 +6,8 @@ import { parseInput } from '../../middleware/validate.ts';
 import { photoUpload } from '../../middleware/upload.ts';
 import { notFound } from '../../errors/index.ts';
 import type { AppContext } from '../../context.ts';
-import { actorOf } from '../members/members.presenter.ts';
+import { actorOf, newQuilterStatus } from '../members/members.presenter.ts';
+import { loadGuild } from '../guild/guild.service.ts';
 import { presentBundle, sellerStats } from './bundles.presenter.ts';
 import * as bundles from './bundles.service.ts';
 import { searchShelf } from './shelf.query.ts';
@@ -25,7 +26,8 @@ export function bundlesRoutes(ctx: AppContext): Router {
 
   /** Re-reads the bundle with its photos and seller, and presents it for the signed-in viewer. */
   const present = async (req: Request, id: string) => {
-    const actor = actorOf(requireMember(req));
+    const member = requireMember(req);
+    const actor = { ...actorOf(member), newQuilter: newQuilterStatus(member, await loadGuild(), ctx.now()) };
     const bundle = await bundles.viewableBundle(actor, id);
     const stats = await sellerStats(ctx.sequelize, [bundle.seller!]);
     return presentBundle(bundle, actor, stats.get(bundle.sellerId)!, ctx.storage);

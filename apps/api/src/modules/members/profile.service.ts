@@ -28,7 +28,8 @@ export async function memberHistory(ctx: AppContext, memberId: string): Promise<
        SELECT o.seller_id AS giver, o.buyer_id AS taker, i.quantity AS n, i.quantity * i.weight_grams AS grams
        FROM order_items i JOIN orders o ON o.id = i.order_id WHERE o.state IN ('confirmed', 'posted', 'received', 'handed_over')
        UNION ALL
-       SELECT b.seller_id, c.member_id, 1, b.weight_grams FROM starter_claims c JOIN bundles b ON b.id = c.bundle_id WHERE c.state <> 'cancelled')
+       SELECT b.seller_id, c.member_id, 1, b.weight_grams FROM starter_claims c JOIN bundles b ON b.id = c.bundle_id
+       WHERE c.state <> 'cancelled' AND c.order_id IS NULL)
      SELECT coalesce(sum(n) FILTER (WHERE giver = $1), 0)::int AS given,
             coalesce(sum(grams) FILTER (WHERE giver = $1), 0)::int AS given_grams,
             coalesce(sum(n) FILTER (WHERE taker = $1), 0)::int AS received,

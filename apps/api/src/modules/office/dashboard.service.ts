@@ -37,7 +37,7 @@ export async function dashboardFigures(sequelize: Sequelize, guild: Guild, q: Da
     WHERE o.state IN ${PAID_STATES}
     UNION ALL
     SELECT 'starter', 1, b.weight_grams, c.claimed_at
-    FROM starter_claims c JOIN bundles b ON b.id = c.bundle_id WHERE c.state <> 'cancelled'`;
+    FROM starter_claims c JOIN bundles b ON b.id = c.bundle_id WHERE c.state <> 'cancelled' AND c.order_id IS NULL`;
 
   const [weight, byOffer, served, waiting, review, expired, weightByMonth, shelfByValue, shelfByCut, reviewByMonth] = await Promise.all([
     one<{ grams: number }>(`SELECT coalesce(sum(grams), 0)::int AS grams FROM (${rehomedUnits}) r WHERE ${inPeriod('r.at')}`),

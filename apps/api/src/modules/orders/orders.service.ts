@@ -7,7 +7,8 @@ import {
   type LedgerEntry as DomainEntry,
   type OrderCreateInput,
 } from '@scrap-relay/shared';
-import { Bundle, LedgerEntry, Meeting, Member, Order, OrderItem, OrderProblem, type Guild } from '../../db/models/index.ts';
+import { Bundle, LedgerEntry, Meeting, Member, Order, OrderItem, OrderProblem, StarterClaim, WaitlistEntry, type Guild } from '../../db/models/index.ts';
+import { eligibilityOf, ineligible, offerToNextInLine } from '../starter/starter.service.ts';
 import { badRequest, conflict, forbidden, notFound, serviceUnavailable, unprocessable } from '../../errors/index.ts';
 import {
   orderCancelled,
@@ -73,9 +74,9 @@ export async function listOrders(actor: Actor, as: 'buyer' | 'seller'): Promise<
   });
 }
 
-/** Which fulfilments an offer allows: posting for sales and postage-only gifts, meetings for meeting gifts and sales that allow it. */
+/** Which fulfilments an offer allows: posting for sales, postage-only gifts and starter claims; meetings for meeting gifts and sales that allow it. */
 function allowsFulfilment(bundle: Bundle, fulfilment: 'post' | 'meeting'): boolean {
-  if (fulfilment === 'post') return bundle.offer === 'sale' || bundle.offer === 'postage_only';
+  if (fulfilment === 'post') return bundle.offer === 'sale' || bundle.offer === 'postage_only' || bundle.offer === 'starter';
   return bundle.offer === 'meeting' || (bundle.offer === 'sale' && bundle.meetingHandoverOk);
 }
 
@@ -113,8 +114,11 @@ async function settleBundleStates(bundleIds: string[], transaction: Transaction)
   );
 }
 
-/** Puts an order's units back: a held or rehomed bundle returns to the shelf; a withdrawn one stays withdrawn. */
-async function releaseUnits(order: Order, transaction: Transaction) {
+/**
+ * Puts an order's units back: a held or rehomed bundle returns to the shelf; a withdrawn one
+ * stays withdrawn. A posted starter claim is cancelled, and its bundle offered to the waiting list.
+ */
+async function releaseUnits(ctx: AppContext, order: Order, transaction: Transaction) {
   const items = await OrderItem.findAll({ where: { orderId: order.id }, transaction, order: [['bundleId', 'ASC']] });
   for (const item of items) {
     await Bundle.sequelize!.query(
@@ -124,6 +128,35 @@ async function releaseUnits(order: Order, transaction: Transaction) {
       { bind: [item.bundleId, item.quantity], transaction, type: QueryTypes.UPDATE },
     );
   }
+  const [cancelled] = await StarterClaim.update(
+    { state: 'cancelled', cancelledAt: ctx.now(), cancelReason: order.cancelReason ?? 'Order cancelled.' },
+    { where: { orderId: order.id, state: 'claimed' }, transaction },
+  );
+  if (cancelled > 0) for (const item of items) await offerToNextInLine(ctx, item.bundleId, transaction);
+}
+
+/**
+ * A new quilter may have a starter bundle posted, paying the postage, where the guild allows
+ * it: one starter bundle on its own, within the same eligibility and limits as a claim at a
+ * meeting (the member's row is locked so the limit holds under concurrency).
+ */
+async function checkPostedStarterClaim(
+  ctx: AppContext,
+  guild: Guild,
+  buyer: Member,
+  lines: { bundle: Bundle; quantity: number }[],
+  fulfilment: 'post' | 'meeting',
+  transaction: Transaction,
+) {
+  if (lines.length !== 1 || lines[0]!.quantity !== 1) {
+    throw unprocessable('A starter bundle is posted on its own, one at a time.', { items: 'One starter bundle per order.' });
+  }
+  if (fulfilment !== 'post' || !guild.settings.starterPostingAllowed) {
+    throw unprocessable('Starter bundles are claimed on the starter page and handed over at a meeting.', { fulfilment: 'Claim it for a meeting instead.' });
+  }
+  await Member.findByPk(buyer.id, { transaction, lock: transaction.LOCK.UPDATE });
+  const eligibility = await eligibilityOf(buyer, guild, ctx.now(), transaction);
+  if (!eligibility.eligible) throw ineligible(eligibility);
 }
 
 /**
@@ -154,8 +187,9 @@ export async function placeOrder(ctx: AppContext, buyer: Member, input: OrderCre
     if (lines.some((l) => l.bundle.sellerId !== sellerId)) {
       throw unprocessable('Bundles from different sellers check out as separate orders.', { items: 'All bundles in one order come from one seller.' });
     }
+    const starter = lines.some((l) => l.bundle.offer === 'starter');
+    if (starter) await checkPostedStarterClaim(ctx, guild, buyer, lines, input.fulfilment, transaction);
     for (const { bundle } of lines) {
-      if (bundle.offer === 'starter') throw unprocessable('Starter bundles are claimed, not bought.', { items: 'A starter bundle.' });
       if (!allowsFulfilment(bundle, input.fulfilment)) {
         throw unprocessable(`“${bundle.title}” cannot be ${input.fulfilment === 'post' ? 'posted' : 'handed over at a meeting'}.`, {
           fulfilment: 'Not offered for this bundle.',
@@ -215,6 +249,10 @@ export async function placeOrder(ctx: AppContext, buyer: Member, input: OrderCre
       { transaction },
     );
     await settleBundleStates(ids, transaction);
+    if (starter) {
+      await StarterClaim.create({ bundleId: lines[0]!.bundle.id, memberId: buyer.id, meetingId: null, orderId: created.id, claimedAt: now }, { transaction });
+      await WaitlistEntry.update({ status: 'claimed' }, { where: { memberId: buyer.id, status: ['waiting', 'offered'] }, transaction });
+    }
     if (input.saveAddress && input.address) await buyer.update({ postalAddress: input.address }, { transaction });
     if (!needsPayment) await emailConfirmation(ctx, guild, created, transaction);
     return created;
@@ -275,7 +313,7 @@ export async function cancelUnpaid(ctx: AppContext, orderId: string, reason: str
     const order = await findOrder(orderId, transaction, true);
     if (order.state !== 'awaiting_payment') return false;
     await order.update({ state: 'cancelled', cancelledAt: ctx.now(), cancelReason: reason, holdExpiresAt: null }, { transaction });
-    await releaseUnits(order, transaction);
+    await releaseUnits(ctx, order, transaction);
     return true;
   });
 }
@@ -364,7 +402,7 @@ export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string
       { transaction },
     );
     if (paid) await reverseLedger(ctx, order, transaction);
-    await releaseUnits(order, transaction);
+    await releaseUnits(ctx, order, transaction);
     const refunded = paid ? formatMoney(order.chargeMinor, order.currency) : null;
     await notifyBoth(ctx, order, transaction, (name, link, titles) =>
       orderCancelled({ guildName: guild.name, name, reference: order.reference, titles, link, refunded, reason: reason ?? null }),
@@ -385,7 +423,7 @@ export async function refundOrder(ctx: AppContext, actor: Actor, orderId: string
     const wasPosted = order.state !== 'confirmed';
     await order.update({ state: 'refunded', refundedAt: ctx.now() }, { transaction });
     await reverseLedger(ctx, order, transaction);
-    if (!wasPosted) await releaseUnits(order, transaction);
+    if (!wasPosted) await releaseUnits(ctx, order, transaction);
     await OrderProblem.update({ resolvedAt: ctx.now() }, { where: { orderId, resolvedAt: null }, transaction });
     const buyer = (await Member.findByPk(order.buyerId, { transaction }))!;
     const items = await OrderItem.findAll({ where: { orderId }, transaction });

@@ -259,7 +259,7 @@ export async function myStarterStatus(ctx: AppContext, member: Member): Promise<
   const offer = entry ? await WaitlistOffer.findOne({ where: { entryId: entry.id, status: 'open' } }) : null;
   const offerBundle = offer ? await Bundle.findByPk(offer.bundleId) : null;
   return {
-    rules: { limitPerWindow: guild.settings.starterLimitPerWindow, windowDays: guild.settings.starterWindowDays, offerHours: guild.settings.starterOfferHours },
+    rules: { limitPerWindow: guild.settings.starterLimitPerWindow, windowDays: guild.settings.starterWindowDays, offerHours: guild.settings.starterOfferHours, postingAllowed: guild.settings.starterPostingAllowed },
     eligibility: eligibility.eligible
       ? { eligible: true as const }
       : { eligible: false as const, reason: eligibility.reason, nextEligibleAt: eligibility.reason === 'over_limit' ? eligibility.nextEligibleAt.toISOString() : null },

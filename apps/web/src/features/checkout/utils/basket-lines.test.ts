@@ -103,6 +103,14 @@ describe('orders per seller and how they travel', () => {
     ]);
   });
 
+  it('keeps a starter bundle the member may claim, to be posted', () => {
+    const claimable = bundle('s', { offer: 'starter', priceMinor: null, abilities: { ...bundle('x').abilities, buy: false, claim: true } });
+    const review = reviewBasket([{ bundleId: 's', quantity: 1 }], new Map([['s', found(claimable)]]), me);
+    expect(review.lines.map((l) => l.bundleId)).toEqual(['s']);
+    expect(allowsFulfilment(claimable, 'post')).toBe(true);
+    expect(allowsFulfilment(claimable, 'meeting')).toBe(false);
+  });
+
   it('follows the offer: sales and postage-only gifts post, meeting gifts and willing sales meet', () => {
     expect(allowsFulfilment({ offer: 'sale', meetingHandoverOk: false }, 'post')).toBe(true);
     expect(allowsFulfilment({ offer: 'sale', meetingHandoverOk: false }, 'meeting')).toBe(false);

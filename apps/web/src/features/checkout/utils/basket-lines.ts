@@ -66,7 +66,7 @@ export function reviewBasket(items: readonly BasketItem[], lookups: ReadonlyMap<
       review.removals.push({ bundleId: bundle.id, title: bundle.title, reason: gone });
     } else if (bundle.seller.id === memberId) {
       review.removals.push({ bundleId: bundle.id, title: bundle.title, reason: 'is your own bundle.' });
-    } else if (bundle.offer === 'starter' || bundle.offer === null) {
+    } else if (bundle.offer === null || (bundle.offer === 'starter' && !bundle.abilities.claim)) {
       review.removals.push({ bundleId: bundle.id, title: bundle.title, reason: 'is a starter bundle: new quilters claim those on the starter page.' });
     } else if (bundle.state === 'held' || bundle.quantityAvailable === 0) {
       review.waiting.push({ bundleId: bundle.id, quantity: item.quantity, bundle });
@@ -80,9 +80,13 @@ export function reviewBasket(items: readonly BasketItem[], lookups: ReadonlyMap<
   return review;
 }
 
-/** How each offer may change hands (the API's rule): sales and postage-only gifts by post; meeting gifts, and sales that allow it, at a meeting. */
+/**
+ * How each offer may change hands (the API's rule): sales, postage-only gifts and starter bundles the guild
+ * posts go by post; meeting gifts, and sales that allow it, at a meeting (starter claims for a meeting are
+ * made on the starter page).
+ */
 export function allowsFulfilment(bundle: Pick<BundleView, 'offer' | 'meetingHandoverOk'>, fulfilment: Fulfilment): boolean {
-  if (fulfilment === 'post') return bundle.offer === 'sale' || bundle.offer === 'postage_only';
+  if (fulfilment === 'post') return bundle.offer === 'sale' || bundle.offer === 'postage_only' || bundle.offer === 'starter';
   return bundle.offer === 'meeting' || (bundle.offer === 'sale' && bundle.meetingHandoverOk);
 }
 

@@ -62,7 +62,7 @@ function serveApi() {
       if (url.pathname === '/api/meetings') return jsonResponse(200, { items: [meeting] });
       if (url.pathname === '/api/starter-bundles') {
         const body: StarterBundlesResponse = {
-          status: { rules: { limitPerWindow: 1, windowDays: 90, offerHours: 72 }, eligibility: { eligible: true }, waitlist: null, offer: null, claims: [] },
+          status: { rules: { limitPerWindow: 1, windowDays: 90, offerHours: 72, postingAllowed: false }, eligibility: { eligible: true }, waitlist: null, offer: null, claims: [] },
           items: free ? [starterBundle()] : [],
         };
         return jsonResponse(200, body);

@@ -85,7 +85,7 @@ export function StarterProgramme({ units, runsProgramme }: StarterProgrammeProps
             <Panel title="Free starter bundles">
               <ul className="grid gap-4 sm:grid-cols-2">
                 {starter.data.items.map((bundle) => (
-                  <StarterBundleCard key={bundle.id} bundle={bundle} units={units} onClaim={startClaim} />
+                  <StarterBundleCard key={bundle.id} bundle={bundle} units={units} onClaim={startClaim} postingAllowed={starter.data.status.rules.postingAllowed} />
                 ))}
               </ul>
             </Panel>
