@@ -62,6 +62,7 @@ describe('claiming starter bundles', () => {
     const sheet = await librarianClient.get(`/api/meetings/${meeting.id}/handovers`);
     expect(sheet.status).toBe(200);
     const row = sheet.body.items.find((h: { id: string }) => h.id === claim.body.claim.id);
+    expect((await librarianClient.get(`/api/handovers/${claim.body.claim.id}`)).body).toEqual({ meetingId: meeting.id });
     expect(row).toMatchObject({ kind: 'starter', collector: { name: 'Nell Tester' }, giver: { name: 'Dora Pike' }, done: false });
     expect(row.qrSvg).toContain('<svg');
 

@@ -6,7 +6,7 @@ import type { AppContext } from '../../context.ts';
 import { actorOf } from '../members/members.presenter.ts';
 import { routeId } from '../bundles/bundles.routes.ts';
 import { presentMeeting } from '../orders/orders.presenter.ts';
-import { cancelHandover, handoverSheet, markHandover, moveOpenHandovers } from './handovers.service.ts';
+import { cancelHandover, handoverMeetingId, handoverSheet, markHandover, moveOpenHandovers } from './handovers.service.ts';
 
 export function handoversRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -22,6 +22,11 @@ export function handoversRoutes(ctx: AppContext): Router {
     const { toMeetingId } = parseInput(handoverMoveSchema, req.body);
     const moved = await moveOpenHandovers(ctx, actor, routeId(req.params.id, 'That meeting'), toMeetingId);
     res.json({ moved });
+  });
+
+  router.get('/handovers/:id', async (req, res) => {
+    const meetingId = await handoverMeetingId(actorOf(requireMember(req)), routeId(req.params.id, 'That handover'));
+    res.json({ meetingId });
   });
 
   router.post('/handovers/:id/done', async (req, res) => {

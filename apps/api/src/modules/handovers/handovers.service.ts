@@ -77,6 +77,16 @@ export async function handoverSheet(ctx: AppContext, actor: Actor, meetingId: st
   return { meeting, handovers: views };
 }
 
+/** The meeting a handover belongs to, for the check-off page a QR code opens. */
+export async function handoverMeetingId(actor: Actor, id: string): Promise<string> {
+  authorize(actor, 'meeting.manage');
+  const order = await Order.findByPk(id);
+  if (order?.fulfilment === 'meeting' && order.meetingId) return order.meetingId;
+  const claim = await StarterClaim.findByPk(id);
+  if (claim?.meetingId) return claim.meetingId;
+  throw notFound('That handover');
+}
+
 async function findHandover(id: string, transaction: Transaction) {
   const order = await Order.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
   if (order && order.fulfilment === 'meeting') return { order, claim: null };

@@ -1,6 +1,4 @@
-import type { MeetingView } from '@scrap-relay/shared';
 import { describe, expect, it } from 'vitest';
-import { meetingsByCloseness } from './api/find-handover.ts';
 import { markedLocally } from './api/mark-handover.ts';
 import { filterHandovers, groupHandovers, sheetProgress } from './handover-groups.ts';
 import type { HandoverView } from '@scrap-relay/shared';
@@ -68,17 +66,5 @@ describe('a tick shown before the API answers', () => {
     const ticked = markedLocally(handover('Wren', 'Bea'), true, 'Lena Marsh', now);
     expect(ticked).toMatchObject({ done: true, doneBy: 'Lena Marsh', doneAt: '2026-12-10T19:05:00.000Z', abilities: { markDone: false, undo: true, cancel: false } });
     expect(markedLocally(ticked, false, 'Lena Marsh', now)).toMatchObject({ done: false, doneBy: null, doneAt: null, abilities: { markDone: true, undo: false } });
-  });
-});
-
-describe('finding the sheet that holds a scanned handover', () => {
-  it('tries the meetings nearest in time first, past or coming', () => {
-    const meeting = (id: string, startsAt: string): MeetingView => ({ id, startsAt, place: 'Hall', notes: '', abilities: { edit: true } });
-    const now = new Date('2026-12-10T19:30:00Z');
-    const ordered = meetingsByCloseness(
-      [meeting('next-month', '2027-01-14T19:00:00Z'), meeting('tonight', '2026-12-10T19:00:00Z'), meeting('last-month', '2026-11-12T19:00:00Z')],
-      now,
-    );
-    expect(ordered.map((m) => m.id)).toEqual(['tonight', 'last-month', 'next-month']);
   });
 });
