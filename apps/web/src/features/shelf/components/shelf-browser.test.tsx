@@ -88,6 +88,8 @@ describe('the shelf', () => {
     const asked = serveShelf({ items: [card()], page: 1, pageSize: 24, total: 1 });
     const { container, router } = await openShelf('/shelf?page=3&sort=price_asc');
     await waitFor(() => expect(asked.length).toBe(1));
+    // The filter form loads after the bundles.
+    await waitFor(() => byLabel(container, 'Words in the title or description'));
 
     await typeInto(byLabel(container, 'Words in the title or description'), 'indigo');
     await typeInto(byLabel(container, 'At least'), '8 oz');
@@ -107,6 +109,7 @@ describe('the shelf', () => {
     serveShelf({ items: [], page: 1, pageSize: 24, total: 0 });
     const { container, router } = await openShelf('/shelf?cut=selvages');
     await waitFor(() => expect(statusText(container)).toContain('No bundle matches these filters.'));
+    await waitFor(() => byLabel(container, 'At most'));
 
     await typeInto(byLabel(container, 'At most'), 'a big bag');
     await click(buttonNamed(container, 'Show bundles'));

@@ -1,5 +1,5 @@
 import type { BundleCard as BundleCardData, Page, ShelfFilters, UnitSystem } from '@scrap-relay/shared';
-import { useId, useRef, useState, type ReactNode } from 'react';
+import { lazy, Suspense, useId, useRef, useState, type ReactNode } from 'react';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { Button, ButtonLink } from '../../../components/ui/button.tsx';
 import { Select } from '../../../components/ui/field.tsx';
@@ -9,7 +9,9 @@ import { countFilters, type ShelfSort } from '../../../utils/shelf-filters.ts';
 import { useShelf } from '../api/get-shelf.ts';
 import { useShelfSearch } from '../hooks/use-shelf-search.ts';
 import { BundleCard } from './bundle-card.tsx';
-import { ShelfFiltersForm } from './shelf-filters-form.tsx';
+
+// The form (react-hook-form and the shared schemas) loads after the bundles, so the first paint is the shelf itself.
+const ShelfFiltersForm = lazy(() => import('./shelf-filters-form.tsx').then((m) => ({ default: m.ShelfFiltersForm })));
 
 const SHELF_PAGE_SIZE = 24;
 
@@ -66,6 +68,7 @@ export function ShelfBrowser({ units, currency, renderForFilters }: ShelfBrowser
             className="rounded-stitch border-2 border-seam bg-muslin p-4 shadow-quilt"
           >
             <h2 className="mb-4 text-xl font-bold max-md:sr-only">Filters</h2>
+            <Suspense fallback={<Loading label="Loading the filters" />}>
             <ShelfFiltersForm
               filters={search.filters}
               units={units}
@@ -79,6 +82,7 @@ export function ShelfBrowser({ units, currency, renderForFilters }: ShelfBrowser
                 showResults();
               }}
             />
+            </Suspense>
           </section>
           {renderForFilters ? renderForFilters(search.filters) : null}
         </div>

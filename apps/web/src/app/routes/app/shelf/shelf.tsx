@@ -1,7 +1,9 @@
+import { lazy, Suspense } from 'react';
 import { Page } from '../../../../components/layouts/page.tsx';
 import { useSession, useSessionUser } from '../../../../features/auth/api/get-session.ts';
 import { ShelfBrowser } from '../../../../features/shelf/components/shelf-browser.tsx';
-import { SaveWishPanel } from '../../../../features/wishes/components/save-wish-panel.tsx';
+
+const SaveWishPanel = lazy(() => import('../../../../features/wishes/components/save-wish-panel.tsx').then((m) => ({ default: m.SaveWishPanel })));
 
 export function Component() {
   const user = useSessionUser();
@@ -16,7 +18,11 @@ export function Component() {
       <ShelfBrowser
         units={user.units}
         currency={guild.currency}
-        renderForFilters={(filters) => <SaveWishPanel filters={filters} units={user.units} currency={guild.currency} />}
+        renderForFilters={(filters) => (
+          <Suspense fallback={null}>
+            <SaveWishPanel filters={filters} units={user.units} currency={guild.currency} />
+          </Suspense>
+        )}
       />
     </Page>
   );
