@@ -4,59 +4,74 @@ import { screenshot, signIn } from './support/index.ts';
 
 /**
  * Each demo account (from the demo guild seed) signs in and sees the menu its
- * abilities allow: officer pages only for the officers who run them. Entries
- * other features add later (shelf, ledger, …) are checked by their own journeys;
- * this one pins the foundation's pages.
+ * abilities allow, in its sections: the exchange for every member (starter
+ * bundles only for new quilters and librarians), the guild office for the
+ * officer pages each role runs, and the member's own pages.
  */
 
 const PASSWORD = 'quilt-relay-demo';
 const GUILD = 'Ferncombe Patchwork Guild';
 
+type MenuSection = 'Exchange' | 'Guild office' | 'You';
+
 interface DemoAccount {
   who: string;
   name: string;
   email: string;
-  menu: string[];
+  /** Every section the menu shows, with its links in order; a section left out must not appear. */
+  menu: Partial<Record<MenuSection, string[]>>;
   notInMenu: string[];
   roles: string;
   newQuilter: boolean;
 }
 
+/** Every verified member: list, buy, wish, meet (abilities listBundles and buy; the rest are open to all). */
+const EXCHANGE = ['Home', 'Shelf', 'Wishes', 'List a bundle', 'My bundles', 'Basket', 'Orders', 'Meetings', 'Dashboard'];
+/** The same with "Starter bundles" after Orders (claimStarter or runStarterProgramme). */
+const EXCHANGE_WITH_STARTER = [...EXCHANGE.slice(0, 7), 'Starter bundles', ...EXCHANGE.slice(7)];
+const YOU = ['Profile', 'Account'];
+const LIBRARIAN_PAGES = ['Review queue', 'Waiting list', 'Librarian report'];
+const TREASURER_PAGES = ['Statement', 'Ledger', 'Seller balances'];
+const ADMIN_PAGES = ['Guild settings', 'Postage table'];
+
 const accounts: DemoAccount[] = [
   {
+    // manageMembers and manageSettings; not a librarian or treasurer.
     who: 'admin',
     name: 'Ada Whitlock',
     email: 'ada@ferncombe-quilters.example',
-    menu: ['Home', 'Members', 'Guild settings', 'Account'],
-    notInMenu: [],
+    menu: { Exchange: EXCHANGE, 'Guild office': ['Members', ...ADMIN_PAGES], You: YOU },
+    notInMenu: ['Starter bundles', ...LIBRARIAN_PAGES, ...TREASURER_PAGES],
     roles: 'Member and Admin',
     newQuilter: false,
   },
   {
-    // Librarians see the member list to flag new quilters; guild settings stay with admins.
+    // reviewBundles, runStarterProgramme, and manageMembers (librarians see the member list to flag new quilters).
     who: 'librarian',
     name: 'Lena Marsh',
     email: 'lena@ferncombe-quilters.example',
-    menu: ['Home', 'Members', 'Account'],
-    notInMenu: ['Guild settings'],
+    menu: { Exchange: EXCHANGE_WITH_STARTER, 'Guild office': [...LIBRARIAN_PAGES, 'Members'], You: YOU },
+    notInMenu: [...TREASURER_PAGES, ...ADMIN_PAGES],
     roles: 'Member and Librarian',
     newQuilter: false,
   },
   {
+    // viewLedger only.
     who: 'treasurer',
     name: 'Tomas Reyes',
     email: 'tomas@ferncombe-quilters.example',
-    menu: ['Home', 'Account'],
-    notInMenu: ['Members', 'Guild settings'],
+    menu: { Exchange: EXCHANGE, 'Guild office': TREASURER_PAGES, You: YOU },
+    notInMenu: ['Starter bundles', ...LIBRARIAN_PAGES, 'Members', ...ADMIN_PAGES],
     roles: 'Member and Treasurer',
     newQuilter: false,
   },
   {
+    // claimStarter: joined within the guild's newcomer window.
     who: 'new quilter',
     name: 'Nell Ashby',
     email: 'nell@ferncombe-quilters.example',
-    menu: ['Home', 'Account'],
-    notInMenu: ['Members', 'Guild settings'],
+    menu: { Exchange: EXCHANGE_WITH_STARTER, You: YOU },
+    notInMenu: [...LIBRARIAN_PAGES, ...TREASURER_PAGES, 'Members', ...ADMIN_PAGES],
     roles: 'Member',
     newQuilter: true,
   },
@@ -64,8 +79,8 @@ const accounts: DemoAccount[] = [
     who: 'member',
     name: 'Ruth Okafor',
     email: 'ruth@ferncombe-quilters.example',
-    menu: ['Home', 'Account'],
-    notInMenu: ['Members', 'Guild settings'],
+    menu: { Exchange: EXCHANGE, You: YOU },
+    notInMenu: ['Starter bundles', ...LIBRARIAN_PAGES, ...TREASURER_PAGES, 'Members', ...ADMIN_PAGES],
     roles: 'Member',
     newQuilter: false,
   },
@@ -73,12 +88,14 @@ const accounts: DemoAccount[] = [
     who: 'member',
     name: 'Gus Pennyworth',
     email: 'gus@ferncombe-quilters.example',
-    menu: ['Home', 'Account'],
-    notInMenu: ['Members', 'Guild settings'],
+    menu: { Exchange: EXCHANGE, You: YOU },
+    notInMenu: ['Starter bundles', ...LIBRARIAN_PAGES, ...TREASURER_PAGES, 'Members', ...ADMIN_PAGES],
     roles: 'Member',
     newQuilter: false,
   },
 ];
+
+const SECTIONS: MenuSection[] = ['Exchange', 'Guild office', 'You'];
 
 /** The main menu, opened first on a phone where it folds behind the Menu button. */
 async function mainMenu(page: Page) {
@@ -106,10 +123,22 @@ for (const account of accounts) {
     await expect(page.getByRole('region', { name: 'Guild safety notes' })).toContainText('Remove every pin and needle');
 
     const nav = await mainMenu(page);
-    await expect(nav.getByRole('link')).toHaveText(account.menu);
+    for (const section of SECTIONS) {
+      const list = nav.getByRole('list', { name: section, exact: true });
+      const links = account.menu[section];
+      if (links === undefined) {
+        await expect(list).toHaveCount(0);
+        continue;
+      }
+      await expect(nav.getByText(section, { exact: true })).toBeVisible();
+      await expect(list.getByRole('link')).toHaveText(links);
+    }
+    await expect(nav.getByRole('link')).toHaveCount(Object.values(account.menu).flat().length);
     for (const label of account.notInMenu) {
       await expect(nav.getByRole('link', { name: label, exact: true })).toHaveCount(0);
     }
+    // The page being shown is marked in the menu, and only that one.
+    await expect(nav.locator('[aria-current="page"]')).toHaveText(['Home']);
     await screenshot(page, `home-${account.who}-${account.name}`);
   });
 }

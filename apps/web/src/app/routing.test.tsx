@@ -37,6 +37,15 @@ async function openApp(url: string) {
 
 const heading = (root: HTMLElement) => root.querySelector('h1')?.textContent;
 const navLabels = (root: HTMLElement) => [...root.querySelectorAll('nav[aria-label="Main"] a')].map((a) => a.textContent);
+/** Each list in the menu by the name its section heading gives it, with its links. */
+const navSections = (root: HTMLElement) =>
+  [...root.querySelectorAll<HTMLUListElement>('nav[aria-label="Main"] ul[aria-labelledby]')].map((list) => [
+    root.querySelector(`[id="${list.getAttribute('aria-labelledby')}"]`)?.textContent,
+    [...list.querySelectorAll('a')].map((a) => a.textContent),
+  ]);
+const currentLinks = (root: HTMLElement) => [...root.querySelectorAll('nav[aria-label="Main"] a[aria-current="page"]')].map((a) => a.textContent);
+
+const MEMBER_EXCHANGE = ['Home', 'Shelf', 'Wishes', 'List a bundle', 'My bundles', 'Basket', 'Orders', 'Meetings', 'Dashboard'];
 
 describe('route guards', () => {
   it('sends a signed-out visitor to sign in, remembering where they were going', async () => {
@@ -55,7 +64,11 @@ describe('route guards', () => {
 
     await waitFor(() => expect(heading(container)).toBe('Not available for your account'));
     expect(router.state.location.pathname).toBe('/admin/members');
-    expect(navLabels(container)).toEqual(['Home', 'Account']);
+    expect(navSections(container)).toEqual([
+      ['Exchange', MEMBER_EXCHANGE],
+      ['You', ['Profile', 'Account']],
+    ]);
+    expect(currentLinks(container)).toEqual([]);
   });
 
   it('opens the members page for an account that may manage members', async () => {
@@ -64,7 +77,12 @@ describe('route guards', () => {
 
     await waitFor(() => expect(container.textContent).toContain('Showing 1–2 of 2 members'));
     expect(heading(container)).toBe('Members');
-    expect(navLabels(container)).toEqual(['Home', 'Members', 'Guild settings', 'Account']);
+    expect(navSections(container)).toEqual([
+      ['Exchange', MEMBER_EXCHANGE],
+      ['Guild office', ['Members', 'Guild settings', 'Postage table']],
+      ['You', ['Profile', 'Account']],
+    ]);
+    expect(currentLinks(container)).toEqual(['Members']);
   });
 
   it('sends a signed-in member away from the sign-in page to where they were headed', async () => {

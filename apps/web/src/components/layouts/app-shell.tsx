@@ -1,8 +1,8 @@
-import { useEffect, useId, useState, type ReactNode } from 'react';
-import { Link, NavLink, useLocation } from 'react-router-dom';
+import { useEffect, useId, useRef, useState, type ReactNode } from 'react';
+import { Link, useLocation } from 'react-router-dom';
 import type { NavEntry } from '../../config/nav.ts';
 import { PRODUCT_NAME } from '../../hooks/use-document-title.ts';
-import { cn } from '../../utils/cn.ts';
+import { MainNav } from './main-nav.tsx';
 
 export interface AppShellProps {
   guildName?: string | undefined;
@@ -16,31 +16,27 @@ export interface AppShellProps {
 
 export const MAIN_ID = 'main';
 
-const navLinkClass = ({ isActive }: { isActive: boolean }) =>
-  cn(
-    'flex min-h-11 items-center rounded-stitch px-4 py-2 font-semibold no-underline',
-    isActive ? 'bg-thread text-white hover:text-white' : 'text-thread hover:bg-linen-deep hover:text-thread',
-  );
-
 export function AppShell({ guildName, homeHref, nav, headerEnd, children }: AppShellProps) {
   const [menuOpen, setMenuOpen] = useState(false);
   const menuId = useId();
+  const menuButton = useRef<HTMLButtonElement>(null);
   const location = useLocation();
 
   // A chosen link has done its job: fold the phone menu away on every navigation.
   useEffect(() => setMenuOpen(false), [location.pathname]);
 
   return (
-    <div className="flex min-h-dvh flex-col">
+    // A size container: the sidebar's breakpoint is in rem of the page's own text size, so enlarged text folds the menu away.
+    <div className="@container flex min-h-dvh flex-col">
       <a
         href={`#${MAIN_ID}`}
-        className="sr-only z-50 rounded-stitch bg-thread px-4 py-3 font-semibold text-white focus:not-sr-only focus:fixed focus:top-2 focus:left-2 hover:text-white"
+        className="sr-only z-50 rounded-stitch bg-thread font-semibold text-white focus:not-sr-only focus:fixed focus:top-2 focus:left-2 focus:inline-flex focus:min-h-11 focus:items-center focus:px-4 focus:py-2 hover:text-white"
       >
         Skip to main content
       </a>
 
       <header className="border-b-4 border-madder bg-linen-deep">
-        <div className="mx-auto flex max-w-6xl items-center justify-between gap-3 px-4 py-3 sm:px-6">
+        <div className="mx-auto flex max-w-7xl items-center justify-between gap-3 px-4 py-3 sm:px-6">
           <Link to={homeHref} className="group flex min-w-0 items-center gap-3 text-thread no-underline hover:text-thread">
             <SpoolMark />
             <span className="min-w-0 leading-tight">
@@ -52,11 +48,12 @@ export function AppShell({ guildName, homeHref, nav, headerEnd, children }: AppS
             {headerEnd}
             {nav.length > 0 ? (
               <button
+                ref={menuButton}
                 type="button"
                 aria-expanded={menuOpen}
                 aria-controls={menuId}
                 onClick={() => setMenuOpen((open) => !open)}
-                className="inline-flex min-h-11 min-w-11 items-center gap-2 rounded-stitch border-2 border-thread bg-muslin px-4 font-semibold md:hidden"
+                className="inline-flex min-h-11 min-w-11 items-center gap-2 rounded-stitch border-2 border-thread bg-muslin px-4 font-semibold @min-[60rem]:hidden"
               >
                 <span aria-hidden="true" className="text-xl leading-none">
                   {menuOpen ? '✕' : '☰'}
@@ -66,28 +63,27 @@ export function AppShell({ guildName, homeHref, nav, headerEnd, children }: AppS
             ) : null}
           </div>
         </div>
-        {nav.length > 0 ? (
-          <nav aria-label="Main" id={menuId} className={cn('border-t border-seam md:block', menuOpen ? 'block' : 'hidden')}>
-            <ul className="mx-auto flex max-w-6xl flex-col gap-1 px-4 py-2 sm:px-6 md:flex-row md:flex-wrap">
-              {nav.map((entry) => (
-                <li key={entry.page.path}>
-                  <NavLink to={entry.page.getHref()} end={entry.page.path === '/'} className={navLinkClass}>
-                    {entry.label}
-                    {entry.Count ? <entry.Count /> : null}
-                  </NavLink>
-                </li>
-              ))}
-            </ul>
-          </nav>
-        ) : null}
       </header>
 
-      <main id={MAIN_ID} tabIndex={-1} className="flex-1 px-4 py-8 focus:outline-none sm:px-6 sm:py-10">
-        {children}
-      </main>
+      <div className="mx-auto flex w-full max-w-7xl flex-1 flex-col @min-[60rem]:flex-row">
+        {nav.length > 0 ? (
+          <MainNav
+            id={menuId}
+            entries={nav}
+            open={menuOpen}
+            onClose={() => {
+              setMenuOpen(false);
+              menuButton.current?.focus();
+            }}
+          />
+        ) : null}
+        <main id={MAIN_ID} tabIndex={-1} className="min-w-0 flex-1 px-4 py-8 focus:outline-none sm:px-6 sm:py-10">
+          {children}
+        </main>
+      </div>
 
       <footer className="border-t-2 border-seam px-4 py-6 text-thread-soft sm:px-6">
-        <p className="mx-auto max-w-6xl">
+        <p className="mx-auto max-w-7xl">
           {PRODUCT_NAME} is {guildName ? `${guildName}'s` : 'the guild’s'} own exchange for fabric scraps, run by its members.
         </p>
       </footer>
