@@ -1,8 +1,8 @@
 import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Browser, type Page } from '@playwright/test';
+import { expect, test, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
 import { jpegPhoto } from '../tests/support/photos.ts';
-import { signIn } from './support/index.ts';
+import { csrfHeaders, signedInPage, signIn } from './support/index.ts';
 
 /**
  * Every page of the product through axe-core, against WCAG 2.0, 2.1 and 2.2 A and
@@ -11,7 +11,6 @@ import { signIn } from './support/index.ts';
  * milder ones are printed for the next person to look at.
  */
 
-const PASSWORD = 'quilt-relay-demo';
 const GUS = 'gus@ferncombe-quilters.example';
 const RUTH = 'ruth@ferncombe-quilters.example';
 const NELL = 'nell@ferncombe-quilters.example';
@@ -67,20 +66,6 @@ async function checkPhoneMenu(page: Page, what: string): Promise<void> {
     await expectAccessible(page, `${what} with the menu open`);
     await menuButton.click();
   });
-}
-
-async function signedInPage(browser: Browser, email: string): Promise<Page> {
-  const { viewport, isMobile, hasTouch, baseURL } = test.info().project.use;
-  const context = await browser.newContext({ viewport, isMobile, hasTouch, baseURL });
-  const page = await context.newPage();
-  await signIn(page, email, PASSWORD);
-  return page;
-}
-
-async function csrfHeaders(page: Page): Promise<Record<string, string>> {
-  const session = await page.request.get('/api/session');
-  expect(session.ok()).toBe(true);
-  return { 'X-CSRF-Token': ((await session.json()) as { csrfToken: string }).csrfToken };
 }
 
 async function getJson<T>(page: Page, path: string): Promise<T> {

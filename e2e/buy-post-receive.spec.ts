@@ -1,7 +1,6 @@
-import { expect, test, type Browser, type Page } from '@playwright/test';
+import { expect, test, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
-import { jpegPhoto } from '../tests/support/photos.ts';
-import { screenshot, signIn } from './support/index.ts';
+import { screenshot, shelvedThroughApi, signedInPage } from './support/index.ts';
 
 /**
  * A sale by post from start to finish: Ruth's bundle is listed and approved
@@ -13,7 +12,6 @@ import { screenshot, signIn } from './support/index.ts';
  * entries in the ledger and records a payout to Ruth.
  */
 
-const PASSWORD = 'quilt-relay-demo';
 const RUTH = { name: 'Ruth Okafor', email: 'ruth@ferncombe-quilters.example' };
 const GUS = { name: 'Gus Pennyworth', email: 'gus@ferncombe-quilters.example' };
 const LENA = 'lena@ferncombe-quilters.example';
@@ -36,44 +34,6 @@ const listing = {
   pieces: [],
 };
 
-async function signedInPage(browser: Browser, email: string): Promise<Page> {
-  // Each person has their own cookies; the project's screen size and base address carry over.
-  const { viewport, isMobile, hasTouch, baseURL } = test.info().project.use;
-  const context = await browser.newContext({ viewport, isMobile, hasTouch, baseURL });
-  const page = await context.newPage();
-  await signIn(page, email, PASSWORD);
-  return page;
-}
-
-async function csrfHeaders(page: Page): Promise<Record<string, string>> {
-  const session = await page.request.get('/api/session');
-  expect(session.ok()).toBe(true);
-  return { 'X-CSRF-Token': ((await session.json()) as { csrfToken: string }).csrfToken };
-}
-
-/** Ruth lists the bundle with one photo and sends it for review; Lena approves it onto the shelf. */
-async function shelvedBundle(browser: Browser, title: string): Promise<string> {
-  const ruth = await signedInPage(browser, RUTH.email);
-  const headers = await csrfHeaders(ruth);
-  const created = await ruth.request.post('/api/bundles', { headers, data: { ...listing, title } });
-  expect(created.status(), await created.text()).toBe(201);
-  const id = ((await created.json()) as { bundle: { id: string } }).bundle.id;
-  const photo = await jpegPhoto({ rgb: [60, 120, 70] });
-  const uploaded = await ruth.request.post(`/api/bundles/${id}/photos`, {
-    headers,
-    multipart: { photos: { name: 'green-strips.jpg', mimeType: 'image/jpeg', buffer: photo } },
-  });
-  expect(uploaded.status(), await uploaded.text()).toBe(201);
-  expect((await ruth.request.post(`/api/bundles/${id}/submit`, { headers })).status()).toBe(200);
-  await ruth.context().close();
-
-  const lena = await signedInPage(browser, LENA);
-  const approved = await lena.request.post(`/api/bundles/${id}/review`, { headers: await csrfHeaders(lena), data: { decision: 'approve' } });
-  expect(approved.status(), await approved.text()).toBe(200);
-  await lena.context().close();
-  return id;
-}
-
 /** Opens a main-menu entry; on a phone the menu folds behind its button first. */
 async function openFromMenu(page: Page, label: string | RegExp) {
   const menuButton = page.getByRole('button', { name: 'Menu' });
@@ -87,7 +47,7 @@ async function openFromMenu(page: Page, label: string | RegExp) {
 test('Gus buys Ruth’s bundle by post, Ruth posts it, Gus receives it, Tomas pays Ruth out', { tag: '@phone' }, async ({ browser }) => {
   test.setTimeout(180_000);
   const title = `Green strips for a scrappy border (${test.info().project.name} ${Date.now()})`;
-  const bundleId = await shelvedBundle(browser, title);
+  const bundleId = await shelvedThroughApi(browser, { sellerEmail: RUTH.email, librarianEmail: LENA, listing: { ...listing, title }, photoRgb: [60, 120, 70], photoName: 'green-strips.jpg' });
 
   // Gus: from the bundle page to the basket.
   const gus = await signedInPage(browser, GUS.email);

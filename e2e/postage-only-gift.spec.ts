@@ -1,7 +1,6 @@
-import { expect, test, type Browser, type Page } from '@playwright/test';
+import { expect, test, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
-import { jpegPhoto } from '../tests/support/photos.ts';
-import { screenshot, signIn } from './support/index.ts';
+import { screenshot, shelvedThroughApi, signedInPage } from './support/index.ts';
 
 /**
  * A bag given away for the price of postage: Ruth offers it postage-only
@@ -12,7 +11,6 @@ import { screenshot, signIn } from './support/index.ts';
  * postage (the guild takes no fee on a gift), posts it, and Gus receives it.
  */
 
-const PASSWORD = 'quilt-relay-demo';
 const RUTH = { name: 'Ruth Okafor', email: 'ruth@ferncombe-quilters.example' };
 const GUS = { name: 'Gus Pennyworth', email: 'gus@ferncombe-quilters.example' };
 const LENA = 'lena@ferncombe-quilters.example';
@@ -34,48 +32,10 @@ const gift = {
   pieces: [],
 };
 
-async function signedInPage(browser: Browser, email: string): Promise<Page> {
-  // Each person has their own cookies; the project's screen size and base address carry over.
-  const { viewport, isMobile, hasTouch, baseURL } = test.info().project.use;
-  const context = await browser.newContext({ viewport, isMobile, hasTouch, baseURL });
-  const page = await context.newPage();
-  await signIn(page, email, PASSWORD);
-  return page;
-}
-
-async function csrfHeaders(page: Page): Promise<Record<string, string>> {
-  const session = await page.request.get('/api/session');
-  expect(session.ok()).toBe(true);
-  return { 'X-CSRF-Token': ((await session.json()) as { csrfToken: string }).csrfToken };
-}
-
-/** Ruth offers the bag with one photo; Lena approves it onto the shelf. */
-async function shelvedGift(browser: Browser, title: string): Promise<string> {
-  const ruth = await signedInPage(browser, RUTH.email);
-  const headers = await csrfHeaders(ruth);
-  const created = await ruth.request.post('/api/bundles', { headers, data: { ...gift, title } });
-  expect(created.status(), await created.text()).toBe(201);
-  const id = ((await created.json()) as { bundle: { id: string } }).bundle.id;
-  const photo = await jpegPhoto({ rgb: [225, 215, 195] });
-  const uploaded = await ruth.request.post(`/api/bundles/${id}/photos`, {
-    headers,
-    multipart: { photos: { name: 'light-squares.jpg', mimeType: 'image/jpeg', buffer: photo } },
-  });
-  expect(uploaded.status(), await uploaded.text()).toBe(201);
-  expect((await ruth.request.post(`/api/bundles/${id}/submit`, { headers })).status()).toBe(200);
-  await ruth.context().close();
-
-  const lena = await signedInPage(browser, LENA);
-  const approved = await lena.request.post(`/api/bundles/${id}/review`, { headers: await csrfHeaders(lena), data: { decision: 'approve' } });
-  expect(approved.status(), await approved.text()).toBe(200);
-  await lena.context().close();
-  return id;
-}
-
 test('Gus takes Ruth’s postage-only gift and pays only the postage', { tag: '@phone' }, async ({ browser }) => {
   test.setTimeout(150_000);
   const title = `Light 5-inch squares, free for postage (${test.info().project.name} ${Date.now()})`;
-  const bundleId = await shelvedGift(browser, title);
+  const bundleId = await shelvedThroughApi(browser, { sellerEmail: RUTH.email, librarianEmail: LENA, listing: { ...gift, title }, photoRgb: [225, 215, 195], photoName: 'light-squares.jpg' });
 
   const gus = await signedInPage(browser, GUS.email);
   await gus.goto(paths.app.basketAdd.getHref(bundleId));

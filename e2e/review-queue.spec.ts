@@ -1,7 +1,7 @@
-import { expect, test, type Browser, type Page } from '@playwright/test';
+import { expect, test, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
 import { jpegPhoto } from '../tests/support/photos.ts';
-import { latestMailTo, screenshot, signIn } from './support/index.ts';
+import { latestMailTo, screenshot, signedInPage } from './support/index.ts';
 
 /**
  * From review to the shelf to a wish: Ruth's two bundles wait for review (made
@@ -10,7 +10,6 @@ import { latestMailTo, screenshot, signIn } from './support/index.ts';
  * finds the approved bundle, saves his filters as a wish and sees it listed.
  */
 
-const PASSWORD = 'quilt-relay-demo';
 const RUTH = { name: 'Ruth Okafor', email: 'ruth@ferncombe-quilters.example' };
 const LENA = 'lena@ferncombe-quilters.example';
 const GUS = 'gus@ferncombe-quilters.example';
@@ -62,15 +61,6 @@ async function submitBundle(page: Page, body: Record<string, unknown>): Promise<
   const submitted = await page.request.post(`/api/bundles/${id}/submit`, { headers });
   expect(submitted.status(), await submitted.text()).toBe(200);
   return id;
-}
-
-async function signedInPage(browser: Browser, email: string): Promise<Page> {
-  // Each person has their own cookies; the project's screen size and base address carry over.
-  const { viewport, isMobile, hasTouch, baseURL } = test.info().project.use;
-  const context = await browser.newContext({ viewport, isMobile, hasTouch, baseURL });
-  const page = await context.newPage();
-  await signIn(page, email, PASSWORD);
-  return page;
 }
 
 /** Opens a main-menu entry; on a phone the menu folds behind its button first. */

@@ -1,7 +1,7 @@
 import { expect, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
 import { jpegPhoto } from '../tests/support/photos.ts';
-import { latestMailTo, screenshot, signIn } from './support/index.ts';
+import { latestMailTo, screenshot, signedInPage } from './support/index.ts';
 
 /**
  * The starter programme end to end: Nell, a new quilter, finds no starter bundle
@@ -12,7 +12,6 @@ import { latestMailTo, screenshot, signIn } from './support/index.ts';
  * sheet, prints it, and ticks the handover on a phone at the door.
  */
 
-const PASSWORD = 'quilt-relay-demo';
 const NELL = { name: 'Nell Ashby', email: 'nell@ferncombe-quilters.example' };
 const LENA = { name: 'Lena Marsh', email: 'lena@ferncombe-quilters.example' };
 const RUTH = { name: 'Ruth Okafor', email: 'ruth@ferncombe-quilters.example' };
@@ -33,16 +32,6 @@ async function csrf(request: APIRequestContext): Promise<Record<string, string>>
   const session = await request.get('/api/session');
   expect(session.ok()).toBe(true);
   return { 'X-CSRF-Token': ((await session.json()) as { csrfToken: string }).csrfToken };
-}
-
-async function signedInPage(browser: Browser, email: string, screen?: { width: number; height: number }): Promise<Page> {
-  const { viewport, isMobile, hasTouch, baseURL } = test.info().project.use;
-  const context = await browser.newContext(
-    screen ? { viewport: screen, isMobile: true, hasTouch: true, baseURL } : { viewport, isMobile, hasTouch, baseURL },
-  );
-  const page = await context.newPage();
-  await signIn(page, email, PASSWORD);
-  return page;
 }
 
 async function openFromMenu(page: Page, label: string) {
