@@ -10,14 +10,13 @@
  * meanwhile: latency moves with other load, CPU per response much less.
  */
 import os from 'node:os';
-import { performance } from 'node:perf_hooks';
 import pg from 'pg';
 import { apiSpec } from '../scripts/lib/stack.ts';
 import { startService, type RunningService } from '../scripts/lib/services.ts';
 import { startBareExpress } from './lib/bare-express-service.ts';
 import type { BenchContext } from './lib/context.ts';
-import { measureHttp, type HttpFigures } from './lib/http.ts';
-import { listeningPid, machineBusySeconds, parentPid, processCpuSeconds, processMemory, treeCpuSeconds } from './lib/processes.ts';
+import { measureAccounted, type AccountedLoad } from './lib/accounted-load.ts';
+import { listeningPid, parentPid, processMemory } from './lib/processes.ts';
 import { BEHIND_TLS_PROXY, signIn } from './lib/session.ts';
 import { BENCH_PASSWORD, benchSellerEmail, loadShelf } from './lib/shelf-data.ts';
 import { shelfStatements, type Statement } from './lib/shelf-statements.ts';
@@ -39,51 +38,11 @@ interface ShelfPage {
   total: number;
 }
 
-interface Accounted {
-  http: HttpFigures;
-  /** CPU milliseconds the server process spent per response. */
-  serverCpuMs: number;
-  /** CPU milliseconds all of PostgreSQL's processes spent per response. */
-  postgresCpuMs: number;
-  /** CPU milliseconds this process (autocannon, and reading the services' logs) spent per response. */
-  loadGeneratorCpuMs: number;
-  /** Cores kept busy by programs outside this benchmark while it measured. */
-  otherCores: number;
-}
+/** One accounted run at this benchmark's load: warm-up, then the measured part. */
+const accounted = (url: string, headers: Record<string, string>, serverPid: number, postmasterPid: number) =>
+  measureAccounted(url, { connections: CONNECTIONS, durationSeconds: MEASURE_SECONDS, warmupSeconds: WARMUP_SECONDS, headers, serverPid, postmasterPid });
 
-/**
- * Warms up, then measures, reading CPU counters around the measured part
- * only (measureHttp's own warm-up would fall inside them).
- */
-async function measureAccounted(url: string, headers: Record<string, string>, serverPid: number, postmasterPid: number): Promise<Accounted> {
-  const load = { connections: CONNECTIONS, headers, warmupSeconds: 0 };
-  await measureHttp(url, { ...load, durationSeconds: WARMUP_SECONDS });
-  const snapshot = () => ({
-    at: performance.now(),
-    machine: machineBusySeconds(),
-    server: processCpuSeconds(serverPid),
-    postgres: treeCpuSeconds(postmasterPid),
-    self: process.cpuUsage(),
-  });
-  const before = snapshot();
-  const http = await measureHttp(url, { ...load, durationSeconds: MEASURE_SECONDS });
-  const after = snapshot();
-  const selfUsage = process.cpuUsage(before.self);
-  const server = after.server - before.server;
-  const postgres = after.postgres - before.postgres;
-  const self = (selfUsage.user + selfUsage.system) / 1e6;
-  const others = after.machine - before.machine - server - postgres - self;
-  const perResponse = (seconds: number) => (http.responses === 0 ? Number.NaN : (seconds * 1000) / http.responses);
-  return {
-    http,
-    serverCpuMs: perResponse(server),
-    postgresCpuMs: perResponse(postgres),
-    loadGeneratorCpuMs: perResponse(self),
-    otherCores: Math.max(0, others) / ((after.at - before.at) / 1000),
-  };
-}
-
-function printAccounted(ctx: BenchContext, label: string, run: Accounted, bare?: Accounted): void {
+function printAccounted(ctx: BenchContext, label: string, run: AccountedLoad, bare?: AccountedLoad): void {
   const { http } = run;
   ctx.print(label, {
     'req/s': http.requestsPerSecond,
@@ -157,15 +116,15 @@ export async function run(ctx: BenchContext): Promise<void> {
 
     const bare = await startBareExpress(ctx, barePort);
     services.push(bare);
-    const bareRun = await measureAccounted(`http://127.0.0.1:${barePort}/baseline/page`, {}, listeningPid(bare.pid, barePort), postmasterPid);
+    const bareRun = await accounted(`http://127.0.0.1:${barePort}/baseline/page`, {}, listeningPid(bare.pid, barePort), postmasterPid);
     await bare.stop();
     printAccounted(ctx, `bare Express: a page of 24 bundle-sized objects (${CONNECTIONS} connections, ${MEASURE_SECONDS} s)`, bareRun);
 
     const invalid: string[] = [];
     const measure = async (label: string, url: string) => {
-      const accounted = await measureAccounted(url, headers, apiPid, postmasterPid);
-      printAccounted(ctx, label, accounted, bareRun);
-      const { errors, non2xx } = accounted.http;
+      const result = await accounted(url, headers, apiPid, postmasterPid);
+      printAccounted(ctx, label, result, bareRun);
+      const { errors, non2xx } = result.http;
       if (errors + non2xx > 0) invalid.push(`${label}: ${errors} errors, ${non2xx} non-2xx`);
     };
 

@@ -1,4 +1,4 @@
-import type { GuildSummary, MemberRow, SessionResponse, SessionUser, UserAbilities } from '@scrap-relay/shared';
+import type { BundleView, GuildSummary, MemberRow, SessionResponse, SessionUser, UserAbilities } from '@scrap-relay/shared';
 
 /** Invented people and an invented guild for unit tests; each test states what differs from these. */
 
@@ -58,3 +58,38 @@ export const jsonResponse = (status: number, body?: unknown): Response =>
     status,
     headers: body === undefined ? {} : { 'Content-Type': 'application/json' },
   });
+
+/** A sale bundle on the shelf, as GET /api/bundles/:id presents it to a member who may buy it. */
+export function makeBundleView(overrides: Partial<BundleView> = {}): BundleView {
+  return {
+    id: 'bundle-1',
+    title: 'Bundle 1',
+    description: '',
+    state: 'on_shelf',
+    offer: 'sale',
+    priceMinor: 800,
+    currency: 'USD',
+    meetingHandoverOk: false,
+    quantity: 1,
+    quantityAvailable: 1,
+    weightGrams: 450,
+    fibre: 'quilting_cotton',
+    cutKinds: ['strips'],
+    colour: { value: 'medium', family: 'cool', suggested: null },
+    prewashed: true,
+    disclosures: { smokeFree: true, petFree: true },
+    pieces: [],
+    photos: [],
+    yield: null,
+    cutPlan: null,
+    seller: { id: 'seller-orla', firstName: 'Orla', rehomedCount: 3, returnedCount: 0 },
+    reviewNotes: null,
+    submittedAt: null,
+    onShelfAt: null,
+    expiresAt: null,
+    createdAt: '2026-11-01T10:00:00.000Z',
+    updatedAt: '2026-11-01T10:00:00.000Z',
+    abilities: { edit: false, submit: false, withdraw: false, relist: false, review: false, buy: true, claim: false },
+    ...overrides,
+  };
+}

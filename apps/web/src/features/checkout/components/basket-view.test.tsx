@@ -5,7 +5,7 @@ import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { BASKET_STORAGE_KEY } from '../../../lib/basket-store.ts';
 import { createQueryClient } from '../../../lib/react-query.ts';
-import { jsonResponse, makeSession, makeUser } from '../../../testing/fixtures.ts';
+import { jsonResponse, makeBundleView, makeSession, makeUser } from '../../../testing/fixtures.ts';
 import { buttonNamed, cleanup, click, render, waitFor } from '../../../testing/render.tsx';
 import { BasketView } from './basket-view.tsx';
 
@@ -13,39 +13,18 @@ const member = makeUser();
 const BUNDLE_ID = '0b7f1c52-6a0e-4c7e-9a51-3f0e8a6d2b11';
 const MEETING_ID = '7c1d2e3f-4a5b-4c6d-8e7f-9a0b1c2d3e4f';
 
-function bundle(overrides: Partial<BundleView> = {}): BundleView {
-  return {
+const bundle = (overrides: Partial<BundleView> = {}): BundleView =>
+  makeBundleView({
     id: BUNDLE_ID,
     title: 'Dark batik 2½-inch strips',
-    description: '',
-    state: 'on_shelf',
-    offer: 'sale',
     priceMinor: 1200,
     currency: 'GBP',
-    meetingHandoverOk: false,
-    quantity: 1,
-    quantityAvailable: 1,
     weightGrams: 454,
     fibre: 'batik',
-    cutKinds: ['strips'],
     colour: { value: 'dark', family: 'cool', suggested: null },
-    prewashed: true,
-    disclosures: { smokeFree: true, petFree: true },
-    pieces: [],
-    photos: [],
-    yield: null,
-    cutPlan: null,
     seller: { id: 'seller-orla', firstName: 'Orla', rehomedCount: 2, returnedCount: 0 },
-    reviewNotes: null,
-    submittedAt: null,
-    onShelfAt: null,
-    expiresAt: null,
-    createdAt: '2026-11-01T10:00:00.000Z',
-    updatedAt: '2026-11-01T10:00:00.000Z',
-    abilities: { edit: false, submit: false, withdraw: false, relist: false, review: false, buy: true, claim: false },
     ...overrides,
-  };
-}
+  });
 
 const quote: PostageQuoteView = {
   zone: 'local',

@@ -10,42 +10,11 @@ import {
   type BasketLine,
   type BundleLookup,
 } from './basket-lines.ts';
+import { makeBundleView } from '../../../testing/fixtures.ts';
 
 const me = 'member-hester';
 
-function bundle(id: string, overrides: Partial<BundleView> = {}): BundleView {
-  return {
-    id,
-    title: `Bundle ${id}`,
-    description: '',
-    state: 'on_shelf',
-    offer: 'sale',
-    priceMinor: 800,
-    currency: 'USD',
-    meetingHandoverOk: false,
-    quantity: 1,
-    quantityAvailable: 1,
-    weightGrams: 450,
-    fibre: 'quilting_cotton',
-    cutKinds: ['strips'],
-    colour: { value: 'medium', family: 'cool', suggested: null },
-    prewashed: true,
-    disclosures: { smokeFree: true, petFree: true },
-    pieces: [],
-    photos: [],
-    yield: null,
-    cutPlan: null,
-    seller: { id: 'seller-orla', firstName: 'Orla', rehomedCount: 3, returnedCount: 0 },
-    reviewNotes: null,
-    submittedAt: null,
-    onShelfAt: null,
-    expiresAt: null,
-    createdAt: '2026-11-01T10:00:00.000Z',
-    updatedAt: '2026-11-01T10:00:00.000Z',
-    abilities: { edit: false, submit: false, withdraw: false, relist: false, review: false, buy: true, claim: false },
-    ...overrides,
-  };
-}
+const bundle = (id: string, overrides: Partial<BundleView> = {}): BundleView => makeBundleView({ id, title: `Bundle ${id}`, ...overrides });
 
 const found = (b: BundleView): BundleLookup => ({ status: 'found', bundle: b });
 const line = (b: BundleView, quantity = 1): BasketLine => ({ bundleId: b.id, quantity, bundle: b });

@@ -3,7 +3,7 @@ import type { BundleView, MeetingView } from '@scrap-relay/shared';
 import { MemoryRouter } from 'react-router-dom';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { AppProvider, makeQueryClient } from '../../../app/provider.tsx';
-import { jsonResponse, makeSession, makeUser } from '../../../testing/fixtures.ts';
+import { jsonResponse, makeBundleView, makeSession, makeUser } from '../../../testing/fixtures.ts';
 import { buttonNamed, cleanup, click, render, waitFor } from '../../../testing/render.tsx';
 import type { StarterBundlesResponse } from '../types.ts';
 import { StarterProgramme } from './starter-programme.tsx';
@@ -15,38 +15,22 @@ afterEach(() => {
 
 const meeting: MeetingView = { id: 'mt-1', startsAt: '2031-03-13T19:00:00Z', place: 'Larkhollow chapel room', notes: '', abilities: { edit: false } };
 
-function starterBundle(): BundleView {
-  return {
+const starterBundle = (): BundleView =>
+  makeBundleView({
     id: 'b-1',
     title: 'Starter bag of lawn squares',
-    description: '',
-    state: 'on_shelf',
     offer: 'starter',
     priceMinor: null,
     currency: 'GBP',
-    meetingHandoverOk: false,
-    quantity: 1,
-    quantityAvailable: 1,
     weightGrams: 300,
     fibre: 'lawn_voile',
     cutKinds: ['squares'],
     colour: { value: 'light', family: 'cool', suggested: null },
-    prewashed: true,
     disclosures: { smokeFree: true, petFree: false },
-    pieces: [],
-    photos: [],
-    yield: null,
-    cutPlan: null,
     seller: { id: 's-1', firstName: 'Mabel', rehomedCount: 3, returnedCount: 0 },
-    reviewNotes: null,
-    submittedAt: null,
     onShelfAt: '2031-03-01T10:00:00Z',
-    expiresAt: null,
-    createdAt: '2031-03-01T10:00:00Z',
-    updatedAt: '2031-03-01T10:00:00Z',
     abilities: { edit: false, submit: false, withdraw: false, relist: false, review: false, buy: false, claim: true },
-  };
-}
+  });
 
 /** The API for one new quilter: one free bundle at first; the claim loses the race; then nothing is free. */
 function serveApi() {
