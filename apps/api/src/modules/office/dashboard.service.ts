@@ -2,8 +2,6 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import type { DashboardFigures, DashboardQuery } from '@scrap-relay/shared';
 import type { Guild } from '../../db/models/index.ts';
 
-const PAID_STATES = `('confirmed', 'posted', 'received', 'handed_over')`;
-
 /** The period as [from, to) timestamps; null ends are open. Months and years are the calendar's, in UTC. */
 export function periodBounds(q: DashboardQuery, now: Date): { from: Date | null; to: Date | null; label: string } {
   if (q.period === 'all') return { from: null, to: null, label: 'All time' };
@@ -18,88 +16,91 @@ export function periodBounds(q: DashboardQuery, now: Date): { from: Date | null;
   return { from: new Date(Date.UTC(y, m, 1)), to: new Date(Date.UTC(y, m + 1, 1)), label: new Date(Date.UTC(y, m, 1)).toISOString().slice(0, 7) };
 }
 
-type Row = Record<string, number | string | null>;
+/** The first day (UTC) of the month eleven months before now's: where the twelve-month charts start. */
+function chartStart(now: Date): string {
+  return new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth() - 11, 1)).toISOString().slice(0, 10);
+}
+
+interface FiguresRow {
+  tallies: { figure: string; key: string; amount: number }[] | null;
+  served: number;
+  waiting: number;
+  median_hours: number | null;
+  weight_by_month: { month: string; offer: string; grams: number }[] | null;
+  shelf_by_value: { value: string; bundles: number }[] | null;
+  shelf_by_cut: { cut: string; bundles: number }[] | null;
+  review_by_month: { month: string; medianHours: number }[] | null;
+}
+
+const HOURS = (seconds: string) => `round((${seconds} / 3600)::numeric, 1)::float`;
 
 /**
- * Every figure is one SQL aggregate. A unit is rehomed when its order is paid (or confirmed
- * free) and not cancelled or refunded, or when a starter claim for it stands.
+ * One statement for every figure. What is added up comes from office_tallies (migration
+ * 20261202120000-office-tallies.ts: per-day, per-month and running totals that triggers keep
+ * exact in the same transaction as each change), so a period is a sum over at most a few
+ * hundred rows whatever the guild's history. The rule is the one the figures always had: a
+ * unit is rehomed when its order is paid (or confirmed free) and not cancelled or refunded,
+ * or when a starter claim for it stands; dated when paid or claimed, by UTC day.
+ * New quilters served (distinct members) and bundles waiting for review are counted live
+ * from small partial indexes; the median review time reads only the bundles of the one
+ * bucket of review times that holds the middle (office_review_median_seconds).
  */
 export async function dashboardFigures(sequelize: Sequelize, guild: Guild, q: DashboardQuery, now: Date, withMoney: boolean): Promise<DashboardFigures> {
   const { from, to, label } = periodBounds(q, now);
-  const bind = [from, to];
-  const inPeriod = (col: string) => `($1::timestamptz IS NULL OR ${col} >= $1) AND ($2::timestamptz IS NULL OR ${col} < $2)`;
-  const one = async <T extends Row>(sql: string, extraBind: unknown[] = bind) => (await sequelize.query<T>(sql, { bind: extraBind, type: QueryTypes.SELECT }))[0]!;
-  const many = <T extends Row>(sql: string, extraBind: unknown[] = bind) => sequelize.query<T>(sql, { bind: extraBind, type: QueryTypes.SELECT });
+  const [row] = await sequelize.query<FiguresRow>(
+    `SELECT
+       (SELECT json_agg(json_build_object('figure', figure, 'key', key, 'amount', amount::int) ORDER BY figure, key)
+        FROM office_period_tallies($1, $2, ARRAY['units', 'grams', 'postage', 'money', 'expired'])) AS tallies,
+       (SELECT count(DISTINCT member_id)::int FROM starter_claims
+        WHERE state <> 'cancelled' AND ($1::timestamptz IS NULL OR claimed_at >= $1) AND ($2::timestamptz IS NULL OR claimed_at < $2)) AS served,
+       (SELECT count(*)::int FROM bundles WHERE state = 'in_review') AS waiting,
+       ${HOURS('office_review_median_seconds($1, $2)')} AS median_hours,
+       (SELECT json_agg(json_build_object('month', to_char(day, 'YYYY-MM'), 'offer', key, 'grams', grams) ORDER BY to_char(day, 'YYYY-MM'), key)
+        FROM (SELECT day, key, (sum(amount) FILTER (WHERE figure = 'grams'))::int AS grams FROM office_tallies
+              WHERE figure IN ('units', 'grams') AND grain = 'm' AND day >= $3::date
+              GROUP BY day, key HAVING sum(amount) FILTER (WHERE figure = 'units') <> 0) w) AS weight_by_month,
+       (SELECT json_agg(json_build_object('value', value, 'bundles', bundles) ORDER BY value)
+        FROM (SELECT key AS value, sum(amount)::int AS bundles FROM office_tallies WHERE figure = 'shelf_value' AND grain = 't'
+              GROUP BY key HAVING sum(amount) <> 0) v) AS shelf_by_value,
+       (SELECT json_agg(json_build_object('cut', cut, 'bundles', bundles) ORDER BY bundles DESC, cut)
+        FROM (SELECT key AS cut, sum(amount)::int AS bundles FROM office_tallies WHERE figure = 'shelf_cut' AND grain = 't'
+              GROUP BY key HAVING sum(amount) <> 0) c) AS shelf_by_cut,
+       (SELECT json_agg(json_build_object('month', to_char(day, 'YYYY-MM'),
+                                          'medianHours', ${HOURS(`office_review_median_seconds(day::timestamp AT TIME ZONE 'UTC', (day + interval '1 month') AT TIME ZONE 'UTC')`)})
+                        ORDER BY day)
+        FROM (SELECT day FROM office_tallies WHERE figure = 'review' AND grain = 'm' AND day >= $3::date
+              GROUP BY day HAVING sum(amount) <> 0) r) AS review_by_month`,
+    { bind: [from, to, chartStart(now)], type: QueryTypes.SELECT },
+  );
+  const tallies = row!.tallies ?? [];
+  const total = (figure: string, key?: string) =>
+    tallies.filter((t) => t.figure === figure && (key === undefined || t.key === key)).reduce((sum, t) => sum + t.amount, 0);
 
-  const rehomedUnits = `
-    SELECT b.offer, i.quantity AS units, i.quantity * i.weight_grams AS grams, o.paid_at AS at
-    FROM order_items i JOIN orders o ON o.id = i.order_id JOIN bundles b ON b.id = i.bundle_id
-    WHERE o.state IN ${PAID_STATES}
-    UNION ALL
-    SELECT 'starter', 1, b.weight_grams, c.claimed_at
-    FROM starter_claims c JOIN bundles b ON b.id = c.bundle_id WHERE c.state <> 'cancelled' AND c.order_id IS NULL`;
-
-  const [weight, byOffer, served, waiting, review, expired, weightByMonth, shelfByValue, shelfByCut, reviewByMonth] = await Promise.all([
-    one<{ grams: number }>(`SELECT coalesce(sum(grams), 0)::int AS grams FROM (${rehomedUnits}) r WHERE ${inPeriod('r.at')}`),
-    many<{ offer: string; units: number }>(`SELECT offer, sum(units)::int AS units FROM (${rehomedUnits}) r WHERE ${inPeriod('r.at')} GROUP BY offer ORDER BY offer`),
-    one<{ n: number }>(`SELECT count(DISTINCT member_id)::int AS n FROM starter_claims WHERE state <> 'cancelled' AND ${inPeriod('claimed_at')}`),
-    one<{ n: number }>(`SELECT count(*)::int AS n FROM bundles WHERE state = 'in_review'`, []),
-    one<{ hours: number | null }>(
-      `SELECT round((percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM reviewed_at - submitted_at)) / 3600)::numeric, 1)::float AS hours
-       FROM bundles WHERE reviewed_at IS NOT NULL AND submitted_at IS NOT NULL AND ${inPeriod('reviewed_at')}`,
-    ),
-    one<{ n: number }>(`SELECT count(*)::int AS n FROM bundles WHERE state = 'expired' AND ${inPeriod('expires_at')}`),
-    many<{ month: string; offer: string; grams: number }>(
-      `SELECT to_char(date_trunc('month', at), 'YYYY-MM') AS month, offer, sum(grams)::int AS grams
-       FROM (${rehomedUnits}) r WHERE r.at >= date_trunc('month', $1::timestamptz) - interval '11 months'
-       GROUP BY 1, 2 ORDER BY 1, 2`,
-      [now],
-    ),
-    many<{ value: string; bundles: number }>(
-      `SELECT coalesce(colour_value, 'unknown') AS value, count(*)::int AS bundles FROM bundles WHERE state = 'on_shelf' GROUP BY 1 ORDER BY 1`,
-      [],
-    ),
-    many<{ cut: string; bundles: number }>(
-      `SELECT cut, count(*)::int AS bundles FROM bundles, unnest(cut_kinds) AS cut WHERE state = 'on_shelf' GROUP BY 1 ORDER BY 2 DESC, 1`,
-      [],
-    ),
-    many<{ month: string; median_hours: number }>(
-      `SELECT to_char(date_trunc('month', reviewed_at), 'YYYY-MM') AS month,
-              round((percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM reviewed_at - submitted_at)) / 3600)::numeric, 1)::float AS median_hours
-       FROM bundles WHERE reviewed_at >= date_trunc('month', $1::timestamptz) - interval '11 months' AND submitted_at IS NOT NULL
-       GROUP BY 1 ORDER BY 1`,
-      [now],
-    ),
-  ]);
-
-  let money: DashboardFigures['money'] = null;
-  if (withMoney) {
-    const m = await one<{ fees: number; credits: number; payouts: number; refunds: number; postage: number }>(
-      `SELECT
-         coalesce(sum(amount_minor) FILTER (WHERE account = 'guild' AND (kind = 'guild_fee' OR reverses = 'guild_fee')), 0)::int AS fees,
-         coalesce(sum(amount_minor) FILTER (WHERE account LIKE 'seller:%' AND kind <> 'payout'), 0)::int AS credits,
-         coalesce(sum(amount_minor) FILTER (WHERE account = 'payouts'), 0)::int AS payouts,
-         coalesce(sum(amount_minor) FILTER (WHERE account = 'buyer' AND kind = 'refund'), 0)::int AS refunds,
-         (SELECT coalesce(sum(postage_minor), 0)::int FROM orders WHERE state IN ${PAID_STATES} AND ${inPeriod('paid_at')}) AS postage
-       FROM ledger_entries WHERE ${inPeriod('created_at')}`,
-    );
-    money = { fundsRaisedMinor: m.fees, sellerCreditsMinor: m.credits, payoutsMinor: m.payouts, postagePaidMinor: m.postage, refundsMinor: m.refunds, currency: guild.currency };
-  }
+  const money: DashboardFigures['money'] = withMoney
+    ? {
+        fundsRaisedMinor: total('money', 'fees'),
+        sellerCreditsMinor: total('money', 'credits'),
+        payoutsMinor: total('money', 'payouts'),
+        postagePaidMinor: total('postage'),
+        refundsMinor: total('money', 'refunds'),
+        currency: guild.currency,
+      }
+    : null;
 
   return {
     period: { from: from?.toISOString() ?? null, to: to?.toISOString() ?? null, label },
-    weightRehomedGrams: weight.grams,
-    bundlesRehomedByOffer: byOffer,
-    newQuiltersServed: served.n,
-    waitingForReview: waiting.n,
-    medianReviewHours: review.hours,
-    bundlesExpired: expired.n,
+    weightRehomedGrams: total('grams'),
+    bundlesRehomedByOffer: tallies.filter((t) => t.figure === 'units').map((t) => ({ offer: t.key, units: t.amount })),
+    newQuiltersServed: row!.served,
+    waitingForReview: row!.waiting,
+    medianReviewHours: row!.median_hours,
+    bundlesExpired: total('expired'),
     money,
     charts: {
-      weightByMonth,
-      shelfByValue,
-      shelfByCut,
-      reviewHoursByMonth: reviewByMonth.map((r) => ({ month: r.month, medianHours: r.median_hours })),
+      weightByMonth: row!.weight_by_month ?? [],
+      shelfByValue: row!.shelf_by_value ?? [],
+      shelfByCut: row!.shelf_by_cut ?? [],
+      reviewHoursByMonth: row!.review_by_month ?? [],
     },
   };
 }

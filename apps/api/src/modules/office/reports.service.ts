@@ -3,40 +3,42 @@ import type { MonthStatement } from '@scrap-relay/shared';
 import type { Guild } from '../../db/models/index.ts';
 
 /**
- * The month-end statement, straight from the ledger: each total is a sum of entries dated
- * in the month, and the closing balances are every seller's entries up to the month's end,
- * so the statement ties to the ledger by construction.
+ * The month-end statement from the ledger's tallies (office_tallies, kept by a trigger on
+ * ledger_entries in the same transaction as each entry): each total is the month's row of
+ * the same sum of entries dated in the month, and each seller's closing balance is the
+ * account's running total less what was entered from the next month on, so the statement
+ * ties to the ledger by construction without reading the ledger's history.
  */
 export async function monthStatement(sequelize: Sequelize, guild: Guild, month: string): Promise<MonthStatement> {
   const from = new Date(`${month}-01T00:00:00Z`);
   const to = new Date(Date.UTC(from.getUTCFullYear(), from.getUTCMonth() + 1, 1));
-  const [totals] = await sequelize.query<{ charges: number; fees: number; refunds: number; processing: number; payouts: number; credits: number }>(
+  const [row] = await sequelize.query<{
+    totals: { key: string; amount: number }[] | null;
+    balances: { seller_id: string; name: string; balance: number }[] | null;
+  }>(
     `SELECT
-       coalesce(-sum(amount_minor) FILTER (WHERE kind = 'charge'), 0)::int AS charges,
-       coalesce(sum(amount_minor) FILTER (WHERE account = 'guild' AND (kind = 'guild_fee' OR reverses = 'guild_fee')), 0)::int AS fees,
-       coalesce(sum(amount_minor) FILTER (WHERE account = 'buyer' AND kind = 'refund'), 0)::int AS refunds,
-       coalesce(sum(amount_minor) FILTER (WHERE account = 'processor'), 0)::int AS processing,
-       coalesce(sum(amount_minor) FILTER (WHERE account = 'payouts'), 0)::int AS payouts,
-       coalesce(sum(amount_minor) FILTER (WHERE account LIKE 'seller:%' AND kind <> 'payout'), 0)::int AS credits
-     FROM ledger_entries WHERE created_at >= $1 AND created_at < $2`,
-    { bind: [from, to], type: QueryTypes.SELECT },
+       (SELECT json_agg(json_build_object('key', key, 'amount', amount::int)) FROM office_period_tallies($1, $2, ARRAY['money'])) AS totals,
+       (SELECT json_agg(json_build_object('seller_id', m.id, 'name', m.name, 'balance', b.balance) ORDER BY m.name, m.id)
+        FROM (SELECT key AS account,
+                     (coalesce(sum(amount) FILTER (WHERE grain = 't'), 0) - coalesce(sum(amount) FILTER (WHERE grain = 'm'), 0))::int AS balance
+              FROM office_tallies
+              WHERE figure = 'balance' AND (grain = 't' OR (grain = 'm' AND day >= $3::date))
+              GROUP BY key) b
+        JOIN members m ON m.id = substring(b.account from 8)::uuid
+        WHERE b.balance <> 0) AS balances`,
+    { bind: [from, to, to.toISOString().slice(0, 10)], type: QueryTypes.SELECT },
   );
-  const balances = await sequelize.query<{ seller_id: string; name: string; balance: number }>(
-    `SELECT m.id AS seller_id, m.name, sum(e.amount_minor)::int AS balance
-     FROM ledger_entries e JOIN members m ON m.id = (CASE WHEN e.account LIKE 'seller:%' THEN substring(e.account from 8)::uuid END)
-     WHERE e.created_at < $1
-     GROUP BY m.id, m.name HAVING sum(e.amount_minor) <> 0 ORDER BY m.name`,
-    { bind: [to], type: QueryTypes.SELECT },
-  );
+  const total = (key: string) => row!.totals?.find((t) => t.key === key)?.amount ?? 0;
+  const balances = row!.balances ?? [];
   return {
     month,
     currency: guild.currency,
-    chargesMinor: totals!.charges,
-    guildFeesMinor: totals!.fees,
-    refundsMinor: totals!.refunds,
-    processingCostMinor: totals!.processing,
-    payoutsMinor: totals!.payouts,
-    sellerCreditsMinor: totals!.credits,
+    chargesMinor: total('charges'),
+    guildFeesMinor: total('fees'),
+    refundsMinor: total('refunds'),
+    processingCostMinor: total('processing'),
+    payoutsMinor: total('payouts'),
+    sellerCreditsMinor: total('credits'),
     closingBalances: balances.map((b) => ({ sellerId: b.seller_id, name: b.name, balanceMinor: b.balance })),
     closingBalancesTotalMinor: balances.reduce((sum, b) => sum + b.balance, 0),
   };
