@@ -95,6 +95,8 @@ describe('listing, review and the shelf', () => {
     const page = await buyerClient.get(`/api/bundles/${id}`);
     expect(page.body.bundle).toMatchObject({ state: 'on_shelf', abilities: { buy: true, edit: false }, seller: { firstName: 'Hetty' } });
 
+    expect(card.thumb2xUrl).toMatch(/^\/uploads\/photos\/.*-800\.webp$/);
+    expect(card.thumb2xUrl).toBe(page.body.bundle.photos[0].mediumUrl);
     const thumb = await buyerClient.get(card.thumbUrl);
     expect(thumb.status).toBe(200);
     expect(thumb.headers['content-type']).toBe('image/webp');
@@ -164,12 +166,13 @@ describe('listing, review and the shelf', () => {
 });
 
 describe('photos', () => {
-  it('strips location and camera metadata and makes a display size and a thumbnail', async () => {
+  it('strips location and camera metadata and makes a display size, a medium size and a thumbnail', async () => {
     const id = await newDraft();
     const res = await upload(sellerClient, id, [{ data: await jpegPhoto({ width: 3000, height: 2000, withGps: true }), name: 'phone.jpg' }]);
     expect(res.status).toBe(201);
     const photo = await BundlePhoto.findOne({ where: { bundleId: id } });
-    for (const key of [photo!.displayKey, photo!.thumbKey]) {
+    expect(photo!.mediumKey).toEqual(expect.stringMatching(/-800\.webp$/));
+    for (const key of [photo!.displayKey, photo!.mediumKey!, photo!.thumbKey]) {
       const file = await fs.readFile(path.join(api.config.uploadDir, key));
       const meta = await sharp(file).metadata();
       expect(meta.exif).toBeUndefined();
@@ -180,6 +183,9 @@ describe('photos', () => {
     expect(res.body.bundle.photos[0]).toMatchObject({ width: 1600, height: 1067 });
     const thumb = await sharp(await fs.readFile(path.join(api.config.uploadDir, photo!.thumbKey))).metadata();
     expect(Math.max(thumb.width!, thumb.height!)).toBe(400);
+    const medium = await sharp(await fs.readFile(path.join(api.config.uploadDir, photo!.mediumKey!))).metadata();
+    expect([medium.width, medium.height]).toEqual([800, 534]);
+    expect(res.body.bundle.photos[0].mediumUrl).toBe(`/uploads/${photo!.mediumKey}`);
   });
 
   it('refuses a text file named .jpg with 415 and keeps nothing', async () => {
@@ -224,7 +230,10 @@ describe('photos', () => {
     expect(reordered.body.bundle.photos.map((p: { id: string }) => p.id)).toEqual([second.id, first.id]);
     const deleted = await sellerClient.send('delete', `/api/bundles/${id}/photos/${second.id}`);
     expect(deleted.body.bundle.photos.map((p: { id: string }) => p.id)).toEqual([first.id]);
-    await expect(fs.access(path.join(api.config.uploadDir, `photos/${id}/${second.id}-400.webp`))).rejects.toThrow();
+    for (const size of [400, 800, 1600]) {
+      await expect(fs.access(path.join(api.config.uploadDir, `photos/${id}/${second.id}-${size}.webp`))).rejects.toThrow();
+    }
+    await expect(fs.access(path.join(api.config.uploadDir, `photos/${id}/${first.id}-800.webp`))).resolves.toBeUndefined();
   });
 });
 

@@ -102,9 +102,10 @@ export async function seedDemoShelf(sequelize: Sequelize, uploadDir: string, cur
       );
       const key = `photos/${bundle.id}/demo`;
       await storage.put(`${key}-1600.webp`, photo.display.data);
+      await storage.put(`${key}-800.webp`, photo.medium.data);
       await storage.put(`${key}-400.webp`, photo.thumb.data);
       await BundlePhoto.create(
-        { bundleId: bundle.id, position: 0, displayKey: `${key}-1600.webp`, thumbKey: `${key}-400.webp`, contentType: photo.contentType, width: photo.display.width, height: photo.display.height, averageHex: toHex(photo.average) },
+        { bundleId: bundle.id, position: 0, displayKey: `${key}-1600.webp`, mediumKey: `${key}-800.webp`, thumbKey: `${key}-400.webp`, contentType: photo.contentType, width: photo.display.width, height: photo.display.height, averageHex: toHex(photo.average) },
         { transaction },
       );
     });

@@ -5,6 +5,8 @@ export interface PhotoView {
   id: string;
   url: string;
   thumbUrl: string;
+  /** 800 px on the long side; null for photos stored before that size was made (use the thumbnail). */
+  mediumUrl: string | null;
   width: number;
   height: number;
   averageHex: string;
@@ -75,6 +77,8 @@ export interface BundleCard {
   cutKinds: CutKind[];
   colour: { value: ColourValue | null; family: ColourFamily | null };
   thumbUrl: string | null;
+  /** The first photo at 800 px, for sharp screens; null when it has none (older photos). */
+  thumb2xUrl: string | null;
   yield: YieldEstimate;
   onShelfAt: string;
 }

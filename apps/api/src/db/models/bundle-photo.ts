@@ -1,11 +1,15 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
-/** A photo as stored after the pipeline: a display size and a thumbnail, no metadata, plus its average colour. */
+/**
+ * A photo as stored after the pipeline: a display size, a medium size and a thumbnail, no metadata, plus its
+ * average colour. Photos stored before the medium size existed have no medium key.
+ */
 export class BundlePhoto extends Model<InferAttributes<BundlePhoto>, InferCreationAttributes<BundlePhoto>> {
   declare id: CreationOptional<string>;
   declare bundleId: string;
   declare position: number;
   declare displayKey: string;
+  declare mediumKey: CreationOptional<string | null>;
   declare thumbKey: string;
   declare contentType: string;
   declare width: number;
@@ -20,6 +24,7 @@ export class BundlePhoto extends Model<InferAttributes<BundlePhoto>, InferCreati
         bundleId: { type: DataTypes.UUID, allowNull: false },
         position: { type: DataTypes.INTEGER, allowNull: false },
         displayKey: { type: DataTypes.TEXT, allowNull: false },
+        mediumKey: { type: DataTypes.TEXT, allowNull: true },
         thumbKey: { type: DataTypes.TEXT, allowNull: false },
         contentType: { type: DataTypes.TEXT, allowNull: false },
         width: { type: DataTypes.INTEGER, allowNull: false },

@@ -67,6 +67,7 @@ export function presentBundle(bundle: Bundle, viewer: Actor, seller: SellerSumma
       id: p.id,
       url: storage.publicUrl(p.displayKey),
       thumbUrl: storage.publicUrl(p.thumbKey),
+      mediumUrl: p.mediumKey ? storage.publicUrl(p.mediumKey) : null,
       width: p.width,
       height: p.height,
       averageHex: p.averageHex,

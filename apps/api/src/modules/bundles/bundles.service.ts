@@ -95,7 +95,12 @@ export async function updateDraft(ctx: AppContext, seller: Member, id: string, p
 
 function photoKeys(bundleId: string) {
   const photoId = randomUUID();
-  return { photoId, displayKey: `photos/${bundleId}/${photoId}-1600.webp`, thumbKey: `photos/${bundleId}/${photoId}-400.webp` };
+  return {
+    photoId,
+    displayKey: `photos/${bundleId}/${photoId}-1600.webp`,
+    mediumKey: `photos/${bundleId}/${photoId}-800.webp`,
+    thumbKey: `photos/${bundleId}/${photoId}-400.webp`,
+  };
 }
 
 /** Processes every file first, then stores them and adds the rows in one transaction; on any failure nothing is kept. */
@@ -122,6 +127,8 @@ export async function addPhotos(ctx: AppContext, seller: Member, id: string, fil
         const keys = photoKeys(id);
         await ctx.storage.put(keys.displayKey, photo.display.data);
         written.push(keys.displayKey);
+        await ctx.storage.put(keys.mediumKey, photo.medium.data);
+        written.push(keys.mediumKey);
         await ctx.storage.put(keys.thumbKey, photo.thumb.data);
         written.push(keys.thumbKey);
         await BundlePhoto.create(
@@ -130,6 +137,7 @@ export async function addPhotos(ctx: AppContext, seller: Member, id: string, fil
             bundleId: id,
             position: maxPosition + 1 + i,
             displayKey: keys.displayKey,
+            mediumKey: keys.mediumKey,
             thumbKey: keys.thumbKey,
             contentType: photo.contentType,
             width: photo.display.width,
@@ -155,7 +163,8 @@ export async function removePhoto(ctx: AppContext, seller: Member, id: string, p
     await photo.destroy({ transaction });
     return photo;
   });
-  await Promise.all([ctx.storage.remove(removed.displayKey), ctx.storage.remove(removed.thumbKey)]);
+  const keys = [removed.displayKey, removed.mediumKey, removed.thumbKey].filter((key) => key !== null);
+  await Promise.all(keys.map((key) => ctx.storage.remove(key)));
 }
 
 export async function reorderPhotos(ctx: AppContext, seller: Member, id: string, photoIds: string[]): Promise<void> {

@@ -1,4 +1,4 @@
-import sharp, { type Metadata } from 'sharp';
+import type { Metadata, Sharp, SharpOptions } from 'sharp';
 import { averageColour, type Rgb } from '@scrap-relay/shared';
 import { unprocessable, unsupportedMediaType } from '../../errors/index.ts';
 
@@ -6,21 +6,43 @@ import { unprocessable, unsupportedMediaType } from '../../errors/index.ts';
 export const MAX_INPUT_PIXELS = 100_000_000;
 const READABLE_FORMATS = new Set(['jpeg', 'png', 'webp', 'heif', 'avif', 'tiff']);
 export const DISPLAY_MAX_PX = 1600;
+/** The thumbnail at twice its size, for sharp screens and wider cards. */
+export const MEDIUM_MAX_PX = 800;
 export const THUMB_MAX_PX = 400;
 
+type SharpFactory = (input?: Buffer, options?: SharpOptions) => Sharp;
+let sharpLoading: Promise<SharpFactory> | undefined;
+
+/**
+ * sharp (and libvips with it) is loaded at the first photo, not at boot: most API processes
+ * serve pages and never touch a photo, and libvips costs them memory for nothing.
+ */
+export function loadSharp(): Promise<SharpFactory> {
+  sharpLoading ??= import('sharp').then((m) => m.default);
+  return sharpLoading;
+}
+
+interface PhotoSize {
+  data: Buffer;
+  width: number;
+  height: number;
+}
+
 export interface ProcessedPhoto {
-  display: { data: Buffer; width: number; height: number };
-  thumb: { data: Buffer; width: number; height: number };
+  display: PhotoSize;
+  medium: PhotoSize;
+  thumb: PhotoSize;
   average: Rgb;
   contentType: 'image/webp';
 }
 
 /**
  * Reads a photo by its content (never its name), turns it upright, and writes a display
- * size and a thumbnail as WebP. sharp writes no metadata unless asked, so location and
- * camera data are gone from both. The average colour is taken from the thumbnail.
+ * size, a medium size and a thumbnail as WebP. sharp writes no metadata unless asked, so
+ * location and camera data are gone from all three. The average colour is taken from the thumbnail.
  */
 export async function processPhoto(input: Buffer, field = 'photos'): Promise<ProcessedPhoto> {
+  const sharp = await loadSharp();
   let meta: Metadata;
   try {
     meta = await sharp(input, { limitInputPixels: MAX_INPUT_PIXELS }).metadata();
@@ -32,33 +54,48 @@ export async function processPhoto(input: Buffer, field = 'photos'): Promise<Pro
   if ((meta.width ?? 0) * (meta.height ?? 0) > MAX_INPUT_PIXELS) throw tooBig(field);
 
   try {
-    // Decode and resize once; both sizes are encoded from the same upright pixels (WebP effort 2: fast, nearly as small).
+    // Decode once; every size is made from the same upright pixels, each smaller one from the one above it
+    // (WebP effort 2: fast, nearly as small).
     const upright = await sharp(input, { limitInputPixels: MAX_INPUT_PIXELS })
       .rotate()
       .resize({ width: DISPLAY_MAX_PX, height: DISPLAY_MAX_PX, fit: 'inside', withoutEnlargement: true })
       .removeAlpha()
       .raw()
       .toBuffer({ resolveWithObject: true });
-    const raw = { raw: { width: upright.info.width, height: upright.info.height, channels: upright.info.channels } };
-    const display = await sharp(upright.data, raw).webp({ quality: 80, effort: 2 }).toBuffer({ resolveWithObject: true });
-    const thumbPixels = await sharp(upright.data, raw)
-      .resize({ width: THUMB_MAX_PX, height: THUMB_MAX_PX, fit: 'inside', withoutEnlargement: true })
-      .raw()
-      .toBuffer({ resolveWithObject: true });
-    const thumbRaw = { raw: { width: thumbPixels.info.width, height: thumbPixels.info.height, channels: thumbPixels.info.channels } };
-    const thumb = await sharp(thumbPixels.data, thumbRaw).webp({ quality: 72, effort: 2 }).toBuffer({ resolveWithObject: true });
-    const average = averageColour(thumbPixels.data, thumbPixels.info.channels as 3 | 4) ?? { r: 128, g: 128, b: 128 };
-    return {
-      display: { data: display.data, width: display.info.width, height: display.info.height },
-      thumb: { data: thumb.data, width: thumb.info.width, height: thumb.info.height },
-      average,
-      contentType: 'image/webp',
+    const shrink = async (pixels: typeof upright, maxPx: number) =>
+      sharp(pixels.data, { raw: rawInfo(pixels.info) })
+        .resize({ width: maxPx, height: maxPx, fit: 'inside', withoutEnlargement: true })
+        .raw()
+        .toBuffer({ resolveWithObject: true });
+    const encode = async (pixels: typeof upright, quality: number): Promise<PhotoSize> => {
+      const out = await sharp(pixels.data, { raw: rawInfo(pixels.info) }).webp({ quality, effort: 2 }).toBuffer({ resolveWithObject: true });
+      return { data: out.data, width: out.info.width, height: out.info.height };
     };
+    // The display size encodes while the smaller sizes are made (libvips works off the main thread).
+    const [display, smaller] = await Promise.all([
+      encode(upright, 80),
+      (async () => {
+        const mediumPixels = await shrink(upright, MEDIUM_MAX_PX);
+        const thumbPixels = await shrink(mediumPixels, THUMB_MAX_PX);
+        // Medium and thumbnail share their settings: the medium is the thumbnail for sharp screens.
+        const [medium, thumb] = await Promise.all([encode(mediumPixels, 72), encode(thumbPixels, 72)]);
+        return { medium, thumb, thumbPixels };
+      })(),
+    ]);
+    const { medium, thumb, thumbPixels } = smaller;
+    const average = averageColour(thumbPixels.data, thumbPixels.info.channels as 3 | 4) ?? { r: 128, g: 128, b: 128 };
+    return { display, medium, thumb, average, contentType: 'image/webp' };
   } catch (err) {
     if (err instanceof Error && /pixel limit/i.test(err.message)) throw tooBig(field);
     throw unreadable(field);
   }
 }
+
+const rawInfo = (info: { width: number; height: number; channels: number }) => ({
+  width: info.width,
+  height: info.height,
+  channels: info.channels as 1 | 2 | 3 | 4,
+});
 
 const unreadable = (field: string) =>
   unsupportedMediaType(field, 'That file is not a photo we can read. Use a JPEG, PNG or WebP photo.');
