@@ -26,6 +26,7 @@ interface ShelfRow {
   colour_family: ColourFamily | null;
   on_shelf_at: Date;
   thumb_key: string | null;
+  medium_key: string | null;
 }
 
 /** Builds the WHERE clause from the filters; every value goes in as a bind parameter. */
@@ -54,24 +55,33 @@ export const SHELF_COUNT_CAP = 1000;
 export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q: ShelfQuery): Promise<ShelfPage> {
   const where = whereClause(q);
   const offset = (q.page - 1) * q.pageSize;
-  const [rows, countRows] = await Promise.all([
-    sequelize.query<ShelfRow>(
-      `SELECT b.id, b.title, b.offer, b.price_minor, b.currency, b.meeting_handover_ok, b.quantity_available, b.weight_grams,
-              b.fibre, b.cut_kinds, b.colour_value, b.colour_family, b.on_shelf_at,
-              (SELECT p.thumb_key FROM bundle_photos p WHERE p.bundle_id = b.id ORDER BY p.position LIMIT 1) AS thumb_key
+  // One statement, one round trip: the capped count, the page, and each page bundle's first photo. The
+  // photo is looked up only for the rows of the page, never for the rows an OFFSET skips. Counting stops
+  // at the cap: past it the shelf says "more than 1,000", and nobody pages that far.
+  const rows = await sequelize.query<ShelfRow & { total: number }>(
+    `WITH counted AS (
+       SELECT count(*)::int AS total FROM (SELECT 1 FROM bundles b WHERE ${where.sql} LIMIT ${SHELF_COUNT_CAP + 1}) capped
+     ), page AS (
+       SELECT b.id, b.title, b.offer, b.price_minor, b.currency, b.meeting_handover_ok, b.quantity_available, b.weight_grams,
+              b.fibre, b.cut_kinds, b.colour_value, b.colour_family, b.on_shelf_at
        FROM bundles b WHERE ${where.sql}
        ORDER BY ${ORDER_BY[q.sort]}
-       LIMIT ${q.pageSize} OFFSET ${offset}`,
-      { bind: where.bind, type: QueryTypes.SELECT },
-    ),
-    // Counting stops at the cap: past it the shelf says "more than 1,000", and nobody pages that far.
-    sequelize.query<{ total: number }>(`SELECT count(*)::int AS total FROM (SELECT 1 FROM bundles b WHERE ${where.sql} LIMIT ${SHELF_COUNT_CAP + 1}) capped`, {
-      bind: where.bind,
-      type: QueryTypes.SELECT,
-    }),
-  ]);
+       LIMIT ${q.pageSize} OFFSET ${offset}
+     )
+     SELECT counted.total, b.*, photo.thumb_key, photo.medium_key
+     FROM counted
+     LEFT JOIN page b ON true
+     LEFT JOIN LATERAL (
+       SELECT p.thumb_key, p.medium_key FROM bundle_photos p WHERE p.bundle_id = b.id ORDER BY p.position LIMIT 1
+     ) photo ON true
+     ORDER BY ${ORDER_BY[q.sort]}`,
+    { bind: where.bind, type: QueryTypes.SELECT },
+  );
+  const total = rows[0]?.total ?? 0;
+  // With no bundle on the page, the count still comes back, on one row without a bundle.
+  const bundles = rows.filter((r) => r.id !== null);
   return {
-    items: rows.map((r) => ({
+    items: bundles.map((r) => ({
       id: r.id,
       title: r.title,
       offer: r.offer,
@@ -84,12 +94,13 @@ export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q:
       cutKinds: r.cut_kinds,
       colour: { value: r.colour_value, family: r.colour_family },
       thumbUrl: r.thumb_key ? storage.publicUrl(r.thumb_key) : null,
+      thumb2xUrl: r.medium_key ? storage.publicUrl(r.medium_key) : null,
       yield: estimateYield({ grams: r.weight_grams, fibre: r.fibre }),
       onShelfAt: new Date(r.on_shelf_at).toISOString(),
     })),
     page: q.page,
     pageSize: q.pageSize,
-    total: Math.min(countRows[0]?.total ?? 0, SHELF_COUNT_CAP),
-    totalCapped: (countRows[0]?.total ?? 0) > SHELF_COUNT_CAP,
+    total: Math.min(total, SHELF_COUNT_CAP),
+    totalCapped: total > SHELF_COUNT_CAP,
   };
 }
