@@ -20,12 +20,11 @@ import { Panel } from '../../../components/layouts/page.tsx';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { formatOffer } from '../../../utils/bundle-text.ts';
 import { formatDate } from '../../../utils/format.ts';
+import { photoSrcSet } from '../../../utils/photo-sources.ts';
 import { formatWaitingTime } from '../utils/waiting-time.ts';
 import { Disclosures } from './disclosures.tsx';
 import { ReviewDecisionForm, type ReviewOutcome } from './review-decision-form.tsx';
 
-/** The server's thumbnails fit inside 400 × 400 px (the photo pipeline's THUMB_MAX_PX). */
-const THUMB_MAX_PX = 400;
 const PHOTO_SIZES = '(min-width: 64rem) 40rem, 92vw';
 
 export interface BundleReviewProps {
@@ -81,9 +80,6 @@ function Decision({ bundle, onDecided }: { bundle: BundleView; onDecided: (outco
   );
 }
 
-/** A thumbnail's width, for the srcset: the pipeline shrinks the longer side to 400 px and never enlarges. */
-const thumbWidth = (photo: PhotoView) => Math.round(photo.width * Math.min(1, THUMB_MAX_PX / Math.max(photo.width, photo.height)));
-
 function Photos({ title, photos }: { title: string; photos: PhotoView[] }) {
   if (photos.length === 0) return <Alert tone="warning" title="No photos" announce={false} />;
   return (
@@ -94,7 +90,7 @@ function Photos({ title, photos }: { title: string; photos: PhotoView[] }) {
           <a href={photo.url} target="_blank" rel="noreferrer" className="block">
             <img
               src={photo.url}
-              srcSet={`${photo.thumbUrl} ${thumbWidth(photo)}w, ${photo.url} ${photo.width}w`}
+              srcSet={photoSrcSet(photo)}
               sizes={PHOTO_SIZES}
               width={photo.width}
               height={photo.height}

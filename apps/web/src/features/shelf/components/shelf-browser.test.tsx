@@ -27,7 +27,8 @@ const card = (overrides: Partial<BundleCard> = {}): BundleCard => ({
   fibre: 'batik',
   cutKinds: ['strips'],
   colour: { value: 'dark', family: 'cool' },
-  thumbUrl: '/uploads/photos/b-1-thumb.webp',
+  thumbUrl: '/uploads/photos/b-1-400.webp',
+  thumb2xUrl: '/uploads/photos/b-1-800.webp',
   yield: estimateYield({ grams: 454, fibre: 'batik' }),
   onShelfAt: '2026-03-01T10:00:00.000Z',
   ...overrides,
@@ -77,11 +78,35 @@ describe('the shelf', () => {
     expect(item.textContent).toMatch(/≈ \d+ five-inch squares · \d+ strips/);
     const photo = item.querySelector('img')!;
     expect(photo.getAttribute('alt')).toBe('Photo: Indigo batik strips');
-    expect(photo.getAttribute('loading')).toBe('lazy');
+    expect(photo.getAttribute('srcset')).toBe('/uploads/photos/b-1-400.webp 400w, /uploads/photos/b-1-800.webp 800w');
+    expect(photo.getAttribute('sizes')).toMatch(/calc\(100vw - 40px\)$/);
 
     expect(container.textContent).toContain('Page 2 of 2');
     const previous = [...container.querySelectorAll('a')].find((a) => a.textContent?.includes('Previous page'));
     expect(previous?.getAttribute('href')).toBe('/shelf?fibre=batik');
+  });
+
+  it('loads the first row of photos at once, the first one first, and the rest when scrolled near', async () => {
+    const titles = ['Indigo batik strips', 'Red flannel squares', 'Linen offcuts', 'Selvage bundle', 'Improv pieces'];
+    serveShelf({ items: titles.map((title, i) => card({ id: `b-${i}`, title })), page: 1, pageSize: 24, total: 5 });
+    const { container } = await openShelf('/shelf');
+
+    await waitFor(() => expect(container.querySelectorAll('li img')).toHaveLength(5));
+    const photos = [...container.querySelectorAll('li img')];
+    expect(photos.map((img) => img.getAttribute('loading'))).toEqual(['eager', 'eager', 'eager', 'lazy', 'lazy']);
+    expect(photos.map((img) => img.getAttribute('fetchpriority'))).toEqual(['high', null, null, null, null]);
+    for (const img of photos) expect([img.getAttribute('width'), img.getAttribute('height')]).toEqual(['400', '300']);
+  });
+
+  it('offers only the thumbnail of a photo stored before the medium size existed', async () => {
+    serveShelf({ items: [card({ thumb2xUrl: null })], page: 1, pageSize: 24, total: 1 });
+    const { container } = await openShelf('/shelf');
+
+    await waitFor(() => expect(container.querySelector('li img')).not.toBeNull());
+    const photo = container.querySelector('li img')!;
+    expect(photo.getAttribute('src')).toBe('/uploads/photos/b-1-400.webp');
+    expect(photo.hasAttribute('srcset')).toBe(false);
+    expect(photo.hasAttribute('sizes')).toBe(false);
   });
 
   it('puts applied filters in the address, weights in grams, and starts again at page 1', async () => {

@@ -8,12 +8,15 @@ import { cn } from '../../../utils/cn.ts';
 import { countFilters, type ShelfSort } from '../../../utils/shelf-filters.ts';
 import { useShelf } from '../api/get-shelf.ts';
 import { useShelfSearch } from '../hooks/use-shelf-search.ts';
-import { BundleCard } from './bundle-card.tsx';
+import { BundleCard, type CardPhotoLoading } from './bundle-card.tsx';
 
 // The form (react-hook-form and the shared schemas) loads after the bundles, so the first paint is the shelf itself.
 const ShelfFiltersForm = lazy(() => import('./shelf-filters-form.tsx').then((m) => ({ default: m.ShelfFiltersForm })));
 
 const SHELF_PAGE_SIZE = 24;
+/** The most cards in a row (three on wide screens): that many photos load at once, the rest lazily. */
+const FIRST_ROW = 3;
+const cardPhotoLoading = (index: number): CardPhotoLoading => (index === 0 ? 'first' : index < FIRST_ROW ? 'eager' : 'lazy');
 
 const SORT_OPTIONS: { value: ShelfSort; label: string }[] = [
   { value: 'newest', label: 'Newest first' },
@@ -192,8 +195,8 @@ function Results({ shelf, units, updating, filtered, pageHref, onPage, onClear }
 
       {items.length > 0 ? (
         <ul aria-busy={updating || undefined} className={cn('grid gap-4 sm:grid-cols-2 xl:grid-cols-3', updating && 'opacity-60')}>
-          {items.map((bundle) => (
-            <BundleCard key={bundle.id} bundle={bundle} units={units} />
+          {items.map((bundle, index) => (
+            <BundleCard key={bundle.id} bundle={bundle} units={units} photoLoading={cardPhotoLoading(index)} />
           ))}
         </ul>
       ) : null}
