@@ -1,5 +1,14 @@
+import { MAX_BUNDLE_GRAMS, MAX_PRICE_MINOR, shelfFiltersSchema, shelfQuerySchema } from '@scrap-relay/shared';
 import { describe, expect, it } from 'vitest';
-import { countFilters, describeShelfFilters, parseShelfFilters, readShelfSearch, shelfSearchParams } from './shelf-filters.ts';
+import {
+  countFilters,
+  describeShelfFilters,
+  parseShelfFilters,
+  readShelfSearch,
+  SHELF_FILTER_KEYS,
+  SHELF_FILTER_LIMITS,
+  shelfSearchParams,
+} from './shelf-filters.ts';
 
 describe('the shelf search in the address', () => {
   it('reads filters, sort and page from the query string', () => {
@@ -31,6 +40,43 @@ describe('the shelf search in the address', () => {
     const wish: Record<string, string | number> = { fibre: 'flannel', minGrams: 454, maxPriceMinor: 0 };
     expect(parseShelfFilters((key) => wish[key])).toEqual({ fibre: 'flannel', minGrams: 454, maxPriceMinor: 0 });
     expect(countFilters(parseShelfFilters((key) => wish[key]))).toBe(3);
+  });
+});
+
+describe('reading filters without the schemas, as the API reads them', () => {
+  it('has the API’s limits', () => {
+    expect(SHELF_FILTER_LIMITS).toEqual({ grams: MAX_BUNDLE_GRAMS, priceMinor: MAX_PRICE_MINOR });
+  });
+
+  // Values an address or a stored wish may hold, valid or not; each key's answer must be the schema's.
+  const samples: unknown[] = [
+    'sale', 'postage_only', 'meeting', 'starter', 'strips', 'fat_quarters', 'dark', 'warm', 'black_white', 'batik',
+    'flannel', 'spider_silk', 'Sale', ' sale', '0', '1', '454', ' 454 ', '4.5', '-3', '1e3', '0x10', '50000', '50001',
+    '100000', '100001', 'heavy', '   ', 'reds', '  reds  ', 'x'.repeat(100), `${'x'.repeat(100)} `, 'x'.repeat(101),
+    454, 0, -1, 2.5, 100_001, true, ['5'], {},
+  ];
+
+  it.each(SHELF_FILTER_KEYS)('reads %s as the shelf schema does', (key) => {
+    for (const raw of samples) {
+      const parsed = shelfFiltersSchema.shape[key].safeParse(raw);
+      const expected = parsed.success && parsed.data !== undefined && parsed.data !== '' ? { [key]: parsed.data } : {};
+      expect(parseShelfFilters((k) => (k === key ? raw : undefined)), `${key} = ${JSON.stringify(raw)}`).toEqual(expected);
+    }
+  });
+
+  it('reads sort and page as the shelf schema does', () => {
+    const sorts = [null, '', 'newest', 'price_asc', 'price_desc', 'weight_asc', 'weight_desc', 'sideways', 'NEWEST'];
+    for (const sort of sorts) {
+      const parsed = shelfQuerySchema.shape.sort.safeParse(sort ?? undefined);
+      const params = new URLSearchParams(sort === null ? '' : `sort=${sort}`);
+      expect(readShelfSearch(params).sort, `sort=${sort}`).toBe(parsed.success ? parsed.data : 'newest');
+    }
+    const pages = [null, '', '0', '1', '2', ' 3 ', '2.5', '-1', '10000', '10001', 'two', '1e2'];
+    for (const page of pages) {
+      const parsed = shelfQuerySchema.shape.page.safeParse(page ?? undefined);
+      const params = new URLSearchParams(page === null ? '' : `page=${encodeURIComponent(page)}`);
+      expect(readShelfSearch(params).page, `page=${page}`).toBe(parsed.success ? parsed.data : 1);
+    }
   });
 });
 

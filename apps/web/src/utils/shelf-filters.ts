@@ -1,13 +1,15 @@
+// Types only from the shared schemas: their values would bring zod into the shelf's first load (see parseShelfFilters).
 import {
+  COLOUR_FAMILIES,
   COLOUR_FAMILY_LABELS,
   COLOUR_VALUE_LABELS,
+  COLOUR_VALUES,
   CUT_KIND_LABELS,
+  CUT_KINDS,
   FIBRE_LABELS,
+  FIBRES,
   formatMoney,
   formatWeight,
-  shelfFiltersSchema,
-  shelfQuerySchema,
-  type Offer,
   type ShelfFilters,
   type ShelfQuery,
   type UnitSystem,
@@ -33,8 +35,61 @@ export const SHELF_FILTER_KEYS = ['offer', 'cut', 'value', 'family', 'fibre', 'm
 const DEFAULT_SORT: ShelfSort = 'newest';
 
 /**
+ * The API's limits on filter numbers (MAX_BUNDLE_GRAMS and MAX_PRICE_MINOR in the shared schemas; a test
+ * holds them equal).
+ */
+export const SHELF_FILTER_LIMITS = { grams: 50_000, priceMinor: 100_000 } as const;
+const MAX_PAGE = 10_000;
+const MAX_WORDS = 100;
+
+type ShelfOffer = NonNullable<ShelfFilters['offer']>;
+
+const OFFER_WORDS: Readonly<Record<ShelfOffer, string>> = {
+  sale: 'for sale',
+  postage_only: 'free — postage only',
+  meeting: 'free at a meeting',
+};
+
+/** Each sort once; a record, so the compiler says when the API gains or loses one. */
+const SORTS: Readonly<Record<ShelfSort, true>> = { newest: true, price_asc: true, price_desc: true, weight_asc: true, weight_desc: true };
+
+const oneOf =
+  <T extends string>(allowed: readonly T[]) =>
+  (raw: unknown): T | undefined =>
+    typeof raw === 'string' && (allowed as readonly string[]).includes(raw) ? (raw as T) : undefined;
+
+/** As the API reads a number from a query string: whatever `Number()` makes of it, whole and within 0…max. */
+const wholeNumber =
+  (max: number, min = 0) =>
+  (raw: unknown): number | undefined => {
+    const n = Number(raw);
+    return Number.isInteger(n) && n >= min && n <= max ? n : undefined;
+  };
+
+/**
+ * Each filter read as the API's shelf schema reads it. Plain code rather than the schema itself: the zod
+ * schemas are about 26 kB gzipped, and the shelf's first paint needs only these few checks. A test runs both
+ * over the same values and expects the same answers.
+ */
+const FILTER_READERS: { [K in (typeof SHELF_FILTER_KEYS)[number]]-?: (raw: unknown) => ShelfFilters[K] } = {
+  offer: (raw) => (typeof raw === 'string' && Object.hasOwn(OFFER_WORDS, raw) ? (raw as ShelfOffer) : undefined),
+  cut: oneOf(CUT_KINDS),
+  value: oneOf(COLOUR_VALUES),
+  family: oneOf(COLOUR_FAMILIES),
+  fibre: oneOf(FIBRES),
+  minGrams: wholeNumber(SHELF_FILTER_LIMITS.grams),
+  maxGrams: wholeNumber(SHELF_FILTER_LIMITS.grams),
+  maxPriceMinor: wholeNumber(SHELF_FILTER_LIMITS.priceMinor),
+  q: (raw) => {
+    if (typeof raw !== 'string') return undefined;
+    const words = raw.trim();
+    return words.length <= MAX_WORDS ? words : undefined;
+  },
+};
+
+/**
  * Filters from any key/value source (an address, a wish's stored filters). Each value
- * is checked on its own with the API's schema and dropped if refused, so an old or
+ * is checked on its own as the API would and dropped if refused, so an old or
  * hand-edited link still opens the shelf with whatever it says that is valid.
  */
 export function parseShelfFilters(get: (key: string) => unknown): ShelfFilters {
@@ -42,19 +97,19 @@ export function parseShelfFilters(get: (key: string) => unknown): ShelfFilters {
   for (const key of SHELF_FILTER_KEYS) {
     const raw = get(key);
     if (raw === null || raw === undefined || raw === '') continue;
-    const parsed = shelfFiltersSchema.shape[key].safeParse(raw);
-    if (parsed.success && parsed.data !== undefined && parsed.data !== '') filters[key] = parsed.data;
+    const value = FILTER_READERS[key](raw);
+    if (value !== undefined && value !== '') filters[key] = value;
   }
   return filters as ShelfFilters;
 }
 
 export function readShelfSearch(params: URLSearchParams): ShelfSearch {
-  const sort = shelfQuerySchema.shape.sort.safeParse(params.get('sort') ?? undefined);
-  const page = shelfQuerySchema.shape.page.safeParse(params.get('page') ?? undefined);
+  const sort = params.get('sort');
+  const page = params.get('page');
   return {
     filters: parseShelfFilters((key) => params.get(key)),
-    sort: sort.success ? sort.data : DEFAULT_SORT,
-    page: page.success ? page.data : 1,
+    sort: sort !== null && Object.hasOwn(SORTS, sort) ? (sort as ShelfSort) : DEFAULT_SORT,
+    page: (page !== null && wholeNumber(MAX_PAGE, 1)(page)) || 1,
   };
 }
 
@@ -77,11 +132,6 @@ export function compactFilters(filters: ShelfFilters): ShelfFilters {
 
 export const countFilters = (filters: ShelfFilters): number => Object.keys(compactFilters(filters)).length;
 
-const OFFER_WORDS: Readonly<Record<Exclude<Offer, 'starter'>, string>> = {
-  sale: 'for sale',
-  postage_only: 'free — postage only',
-  meeting: 'free at a meeting',
-};
 
 /** Labels begin with a capital for headings; inside a sentence they read in lower case, except the proper noun in "English paper piecing". */
 const inSentence = (label: string): string => (label.startsWith('English') ? label : label.charAt(0).toLowerCase() + label.slice(1));
