@@ -211,8 +211,8 @@ describe('office tallies', () => {
       for (const [from, to] of periods) {
         const bind = [from && `${from}T00:00:00Z`, to && `${to}T00:00:00Z`];
         const [row] = await sequelize.query<{ fast: number | null; full: number | null; n: number }>(
-          `SELECT office_review_median_seconds($1, $2) AS fast,
-                  (SELECT percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM reviewed_at - submitted_at)) FROM bundles
+          `SELECT office_review_median_hours($1, $2) AS fast,
+                  (SELECT round((percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM reviewed_at - submitted_at)) / 3600)::numeric, 1)::float FROM bundles
                    WHERE reviewed_at IS NOT NULL AND submitted_at IS NOT NULL
                      AND ($1::timestamptz IS NULL OR reviewed_at >= $1) AND ($2::timestamptz IS NULL OR reviewed_at < $2)) AS full,
                   (SELECT count(*)::int FROM bundles WHERE reviewed_at IS NOT NULL AND submitted_at IS NOT NULL

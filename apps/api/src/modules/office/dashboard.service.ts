@@ -32,8 +32,6 @@ interface FiguresRow {
   review_by_month: { month: string; medianHours: number }[] | null;
 }
 
-const HOURS = (seconds: string) => `round((${seconds} / 3600)::numeric, 1)::float`;
-
 /**
  * One statement for every figure. What is added up comes from office_tallies (migration
  * 20261202120000-office-tallies.ts: per-day, per-month and running totals that triggers keep
@@ -42,8 +40,8 @@ const HOURS = (seconds: string) => `round((${seconds} / 3600)::numeric, 1)::floa
  * unit is rehomed when its order is paid (or confirmed free) and not cancelled or refunded,
  * or when a starter claim for it stands; dated when paid or claimed, by UTC day.
  * New quilters served (distinct members) and bundles waiting for review are counted live
- * from small partial indexes; the median review time reads only the bundles of the one
- * bucket of review times that holds the middle (office_review_median_seconds).
+ * from small partial indexes; the median review time comes from review counts by bucket and by
+ * tenth of an hour (office_review_median_hours, migration 20261202130000).
  */
 export async function dashboardFigures(sequelize: Sequelize, guild: Guild, q: DashboardQuery, now: Date, withMoney: boolean): Promise<DashboardFigures> {
   const { from, to, label } = periodBounds(q, now);
@@ -54,7 +52,7 @@ export async function dashboardFigures(sequelize: Sequelize, guild: Guild, q: Da
        (SELECT count(DISTINCT member_id)::int FROM starter_claims
         WHERE state <> 'cancelled' AND ($1::timestamptz IS NULL OR claimed_at >= $1) AND ($2::timestamptz IS NULL OR claimed_at < $2)) AS served,
        (SELECT count(*)::int FROM bundles WHERE state = 'in_review') AS waiting,
-       ${HOURS('office_review_median_seconds($1, $2)')} AS median_hours,
+       office_review_median_hours($1, $2) AS median_hours,
        (SELECT json_agg(json_build_object('month', to_char(day, 'YYYY-MM'), 'offer', key, 'grams', grams) ORDER BY to_char(day, 'YYYY-MM'), key)
         FROM (SELECT day, key, (sum(amount) FILTER (WHERE figure = 'grams'))::int AS grams FROM office_tallies
               WHERE figure IN ('units', 'grams') AND grain = 'm' AND day >= $3::date
@@ -66,7 +64,7 @@ export async function dashboardFigures(sequelize: Sequelize, guild: Guild, q: Da
         FROM (SELECT key AS cut, sum(amount)::int AS bundles FROM office_tallies WHERE figure = 'shelf_cut' AND grain = 't'
               GROUP BY key HAVING sum(amount) <> 0) c) AS shelf_by_cut,
        (SELECT json_agg(json_build_object('month', to_char(day, 'YYYY-MM'),
-                                          'medianHours', ${HOURS(`office_review_median_seconds(day::timestamp AT TIME ZONE 'UTC', (day + interval '1 month') AT TIME ZONE 'UTC')`)})
+                                          'medianHours', office_review_median_hours(day::timestamp AT TIME ZONE 'UTC', (day + interval '1 month') AT TIME ZONE 'UTC'))
                         ORDER BY day)
         FROM (SELECT day FROM office_tallies WHERE figure = 'review' AND grain = 'm' AND day >= $3::date
               GROUP BY day HAVING sum(amount) <> 0) r) AS review_by_month`,
