@@ -2,7 +2,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
 import { jpegPhoto } from '../tests/support/photos.ts';
-import { csrfHeaders, signedInPage, signIn } from './support/index.ts';
+import { csrfHeaders, latestMailTo, shelvedThroughApi, signedInPage, signIn } from './support/index.ts';
 
 /**
  * Every page of the product through axe-core, against WCAG 2.0, 2.1 and 2.2 A and
@@ -17,6 +17,8 @@ const NELL = 'nell@ferncombe-quilters.example';
 const LENA = 'lena@ferncombe-quilters.example';
 const TOMAS = 'tomas@ferncombe-quilters.example';
 const ADA = 'ada@ferncombe-quilters.example';
+/** Demo accounts by first name, to withdraw free starter bundles their donors left on offer. */
+const DEMO_EMAIL_BY_FIRST_NAME: Record<string, string> = { Gus: GUS, Ruth: RUTH, Nell: NELL, Lena: LENA, Tomas: TOMAS, Ada: ADA };
 /** The demo guild's listing that waits for the librarian (apps/api/src/db/demo-bundles.ts). */
 const DEMO_IN_REVIEW = 'Orphan blocks and pre-joined binding';
 
@@ -293,4 +295,156 @@ test('an order’s pages for buyer and giver, its handover sheet row and the che
   await check(lena, paths.app.handoverCheckOff.getHref(handover!.id), 'Check off a handover', 'check off a handover');
 
   for (const page of [ruth, lena, gus]) await page.context().close();
+});
+
+/** A complete listing for the journeys below to send through the API. */
+const scrapListing = (title: string, offer: 'sale' | 'starter') => ({
+  title,
+  description: 'Cotton scraps, pressed, every pin taken out.',
+  offer,
+  priceMinor: offer === 'sale' ? 900 : null,
+  meetingHandoverOk: false,
+  quantity: 1,
+  weightGrams: 400,
+  fibre: 'quilting_cotton',
+  cutKinds: ['squares'],
+  colourValue: 'medium',
+  colourFamily: 'warm',
+  prewashed: true,
+  smokeFree: true,
+  petFree: true,
+  pieces: [],
+});
+
+/** Lists a bundle with one photo and sends it for review, as the listing form would; returns its id. */
+async function submittedThroughApi(seller: Page, listing: Record<string, unknown>): Promise<string> {
+  const headers = await csrfHeaders(seller);
+  const created = await seller.request.post('/api/bundles', { headers, data: listing });
+  expect(created.status(), await created.text()).toBe(201);
+  const id = ((await created.json()) as { bundle: { id: string } }).bundle.id;
+  const uploaded = await seller.request.post(`/api/bundles/${id}/photos`, {
+    headers,
+    multipart: { photos: { name: 'scraps.jpg', mimeType: 'image/jpeg', buffer: await jpegPhoto({ rgb: [180, 110, 90] }) } },
+  });
+  expect(uploaded.status(), await uploaded.text()).toBe(201);
+  const submitted = await seller.request.post(`/api/bundles/${id}/submit`, { headers });
+  expect(submitted.status(), await submitted.text()).toBe(200);
+  return id;
+}
+
+// Desktop only: it empties the waiting list and takes back free starter bundles, which one run is enough of.
+test('the starter offer a new quilter opens from the e-mail, before and after passing it on', async ({ browser }) => {
+  test.setTimeout(120_000);
+  const nell = await signedInPage(browser, NELL);
+  const lena = await signedInPage(browser, LENA);
+  const ruth = await signedInPage(browser, RUTH);
+  const nellHeaders = await csrfHeaders(nell);
+
+  // Nell can only wait while no starter bundle is free: donors take back any left on offer, as the waiting-list journey does.
+  const list = await getJson<{ status: { eligibility: { eligible: boolean }; waitlist: unknown }; items: { id: string; seller: { firstName: string } }[] }>(
+    nell,
+    '/api/starter-bundles',
+  );
+  expect(list.status.eligibility.eligible, 'Nell may claim a starter bundle').toBe(true);
+  for (const bundle of list.items) {
+    const donor = await signedInPage(browser, DEMO_EMAIL_BY_FIRST_NAME[bundle.seller.firstName]!);
+    expect((await donor.request.post(`/api/bundles/${bundle.id}/withdraw`, { headers: await csrfHeaders(donor) })).status()).toBe(200);
+    await donor.context().close();
+  }
+  // Nobody ahead of her, so the offer is hers.
+  const lenaHeaders = await csrfHeaders(lena);
+  for (const entry of (await getJson<{ items: { id: string }[] }>(lena, '/api/waitlist')).items) {
+    const removed = await lena.request.delete(`/api/waitlist/${entry.id}`, { headers: lenaHeaders, data: { reason: 'Cleared before the accessibility check' } });
+    expect(removed.status()).toBe(204);
+  }
+  expect((await nell.request.post('/api/waitlist', { headers: nellHeaders })).status()).toBe(201);
+  expect((await getJson<{ status: { waitlist: unknown } }>(nell, '/api/starter-bundles')).status.waitlist, 'Nell is on the waiting list').toBeTruthy();
+
+  // Ruth donates a starter bundle; the librarian's approval offers it to the first in line.
+  const title = `Starter squares for the accessibility check ${Date.now()}`;
+  const bundleId = await submittedThroughApi(ruth, scrapListing(title, 'starter'));
+  const approved = await lena.request.post(`/api/bundles/${bundleId}/review`, { headers: lenaHeaders, data: { decision: 'approve' } });
+  expect(approved.status(), await approved.text()).toBe(200);
+  const mail = await latestMailTo(NELL, `A starter bundle is waiting for you: ${title}`);
+  const link = mail.text.match(/https?:\/\/\S+\/starter\/offers\/[0-9a-f-]{36}/)?.[0];
+  expect(link, mail.text).toBeDefined();
+
+  await check(nell, new URL(link!).pathname, 'A starter bundle for you', 'a starter offer from the e-mail');
+  await test.step('the starter offer, passed on', async () => {
+    await nell.getByRole('button', { name: 'Pass it on' }).click();
+    const confirm = nell.getByRole('dialog', { name: 'Pass this bundle on?' });
+    await expect(confirm).toBeVisible();
+    await expectAccessible(nell, 'passing on a starter offer, confirm dialog');
+    await confirm.getByRole('button', { name: 'Pass it on' }).click();
+    await expect(nell.getByText('Passed on', { exact: true })).toBeVisible();
+    await expectAccessible(nell, 'a starter offer passed on');
+  });
+
+  // Back as it was: the donated bundle is taken back, Nell is off the waiting list.
+  expect((await ruth.request.post(`/api/bundles/${bundleId}/withdraw`, { headers: await csrfHeaders(ruth) })).status()).toBe(200);
+  const after = await getJson<{ status: { waitlist: unknown } }>(nell, '/api/starter-bundles');
+  if (after.status.waitlist) expect((await nell.request.delete('/api/waitlist/me', { headers: nellHeaders })).status()).toBe(204);
+  for (const page of [nell, lena, ruth]) await page.context().close();
+});
+
+test('the packing slip of a posted order', { tag: '@phone' }, async ({ browser }) => {
+  test.setTimeout(120_000);
+  const title = `Posted scraps for the accessibility check (${test.info().project.name} ${Date.now()})`;
+  const bundleId = await shelvedThroughApi(browser, {
+    sellerEmail: RUTH,
+    librarianEmail: LENA,
+    listing: scrapListing(title, 'sale'),
+    photoRgb: [90, 110, 160],
+    photoName: 'posted-scraps.jpg',
+  });
+
+  // Gus orders it by post and pays on the stand-in without a browser; the webhook confirms the order.
+  const gus = await signedInPage(browser, GUS);
+  const placed = await gus.request.post('/api/orders', {
+    headers: await csrfHeaders(gus),
+    data: {
+      items: [{ bundleId, quantity: 1 }],
+      fulfilment: 'post',
+      address: { name: 'Gus Pennyworth', line1: '7 Tanners Row', town: 'Ferncombe', postalCode: '97451', country: 'US' },
+    },
+  });
+  expect(placed.status(), await placed.text()).toBe(201);
+  const { order, checkoutUrl } = (await placed.json()) as { order: { id: string; reference: string }; checkoutUrl: string };
+  const stripeFake = process.env.STRIPE_FAKE_URL;
+  expect(stripeFake, 'STRIPE_FAKE_URL (set by npm test)').toBeDefined();
+  const paid = await gus.request.post(`${stripeFake}/_control/checkout/sessions/${checkoutUrl.split('/').pop()}/pay`, { data: { card: '4242 4242 4242 4242' } });
+  expect(paid.status(), await paid.text()).toBe(200);
+  await expect.poll(async () => (await getJson<{ order: { state: string } }>(gus, `/api/orders/${order.id}`)).order.state, { timeout: 20_000 }).toBe('confirmed');
+
+  const ruth = await signedInPage(browser, RUTH);
+  const posted = await ruth.request.post(`/api/orders/${order.id}/posted`, { headers: await csrfHeaders(ruth), data: { trackingNumber: 'FERN-A11Y-01' } });
+  expect(posted.status(), await posted.text()).toBe(200);
+
+  await check(ruth, paths.app.packingSlip.getHref(order.id), 'Packing slip', 'packing slip of a posted order');
+  await test.step('packing slip of a posted order, as printed', async () => {
+    await ruth.emulateMedia({ media: 'print' });
+    await expectAccessible(ruth, 'packing slip of a posted order, as printed');
+    await ruth.emulateMedia({ media: 'screen' });
+  });
+  for (const page of [gus, ruth]) await page.context().close();
+});
+
+test('the edit page of a bundle the librarian returned with notes', { tag: '@phone' }, async ({ browser }) => {
+  test.setTimeout(120_000);
+  // Tomas lists nothing in the other journeys, so his returned bundle disturbs none of them.
+  const tomas = await signedInPage(browser, TOMAS);
+  const title = `Returned scraps for the accessibility check (${test.info().project.name} ${Date.now()})`;
+  const id = await submittedThroughApi(tomas, scrapListing(title, 'sale'));
+  const lena = await signedInPage(browser, LENA);
+  const notes = 'Please add a photo in daylight and say whether a pet lives in the home.';
+  const returned = await lena.request.post(`/api/bundles/${id}/review`, { headers: await csrfHeaders(lena), data: { decision: 'return', notes } });
+  expect(returned.status(), await returned.text()).toBe(200);
+  await lena.context().close();
+
+  for (const step of ['photos', 'review']) {
+    await check(tomas, paths.app.editBundle.getHref(id, step), `Edit “${title}”`, `returned bundle, edit step ${step}`);
+    await expect(tomas.getByText(notes)).toBeVisible();
+  }
+  await check(tomas, paths.app.bundle.getHref(id), title, 'returned bundle, its page');
+  await tomas.context().close();
 });
