@@ -1,8 +1,10 @@
 // @vitest-environment happy-dom
 import type { SessionUser } from '@scrap-relay/shared';
+import { StrictMode } from 'react';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { ADMIN_ABILITIES, jsonResponse, makeMember, makeSession, makeUser } from '../testing/fixtures.ts';
+import { act } from 'react';
 import { cleanup, render, waitFor } from '../testing/render.tsx';
 import { AppProvider, makeQueryClient } from './provider.tsx';
 import { routes } from './router.tsx';
@@ -96,5 +98,31 @@ describe('route guards', () => {
     serveApi(makeUser());
     const { container } = await openApp('/no/such/page');
     await waitFor(() => expect(heading(container)).toBe('Page not found'));
+  });
+});
+
+describe('focus between pages', () => {
+  // StrictMode runs a mount effect twice in development; the first page must still keep its focus where the browser put it.
+  it('leaves the first page alone and moves focus to the next page’s heading once', async () => {
+    serveApi(makeUser({ roles: ['member', 'admin'], abilities: ADMIN_ABILITIES }));
+    const router = createMemoryRouter(routes, { initialEntries: ['/admin/members'] });
+    const { container } = await render(
+      <StrictMode>
+        <AppProvider queryClient={makeQueryClient()}>
+          <RouterProvider router={router} />
+        </AppProvider>
+      </StrictMode>,
+    );
+    await waitFor(() => expect(heading(container)).toBe('Members'));
+    expect(document.activeElement).toBe(document.body);
+
+    const focused: string[] = [];
+    const onFocus = (event: FocusEvent) => focused.push((event.target as HTMLElement).textContent ?? '');
+    document.addEventListener('focusin', onFocus);
+    await act(async () => router.navigate('/account'));
+    await waitFor(() => expect(heading(container)).toBe('Your account'));
+    document.removeEventListener('focusin', onFocus);
+    expect(document.activeElement).toBe(container.querySelector('h1'));
+    expect(focused).toEqual(['Your account']);
   });
 });

@@ -54,16 +54,17 @@ export function RootLayout() {
 
 /**
  * After moving between pages, put keyboard and screen-reader focus on the new
- * page's heading, as a full page load would start at the top.
+ * page's heading, as a full page load would start at the top. The first page is
+ * left alone (the browser starts at the top by itself). Keyed on the path focus
+ * was last handled for, not on "first run": StrictMode runs a mount effect twice
+ * in development, and a first-run flag let the second run move focus on load.
  */
 function useFocusOnNavigate() {
   const { pathname } = useLocation();
-  const first = useRef(true);
+  const handled = useRef(pathname);
   useEffect(() => {
-    if (first.current) {
-      first.current = false;
-      return;
-    }
+    if (handled.current === pathname) return;
+    handled.current = pathname;
     const target = document.querySelector<HTMLElement>('[data-page-heading]') ?? document.getElementById(MAIN_ID);
     target?.focus({ preventScroll: false });
   }, [pathname]);
