@@ -1,10 +1,9 @@
 // @vitest-environment happy-dom
 import type { SessionUser } from '@scrap-relay/shared';
-import { StrictMode } from 'react';
+import { act, StrictMode } from 'react';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { ADMIN_ABILITIES, jsonResponse, makeMember, makeSession, makeUser } from '../testing/fixtures.ts';
-import { act } from 'react';
 import { cleanup, render, waitFor } from '../testing/render.tsx';
 import { AppProvider, makeQueryClient } from './provider.tsx';
 import { routes } from './router.tsx';
