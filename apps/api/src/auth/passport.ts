@@ -1,7 +1,9 @@
+import type { IncomingMessage } from 'node:http';
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { Member } from '../db/models/index.ts';
 import { decoyHash, verifyPassword } from './passwords.ts';
+import { takeSignedInMember } from './session.ts';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -24,9 +26,10 @@ export function configurePassport() {
     }),
   );
   passport.serializeUser((member, done) => done(null, (member as Member).id));
-  passport.deserializeUser(async (id: string, done) => {
+  // The session store has usually read the member already, in the same statement as the session.
+  passport.deserializeUser(async (req: IncomingMessage, id: string, done: (err: unknown, user?: Express.User | false) => void) => {
     try {
-      const member = await Member.findByPk(id);
+      const member = takeSignedInMember(req, id) ?? (await Member.findByPk(id));
       done(null, member && member.active ? member : false);
     } catch (err) {
       done(err);
