@@ -11,6 +11,8 @@ import sharp from 'sharp';
 import { CUT_KINDS, FIBRES, type ColourFamily, type ColourValue, type CutKind, type Fibre, type Offer } from '@scrap-relay/shared';
 
 export const SHELF_BUNDLES = 100_000;
+
+const BUNDLE_TALLY_TRIGGERS = ['bundles_office_tally_insert', 'bundles_office_tally_update'];
 export const SHELF_SELLERS = 500;
 
 /** Every invented seller signs in with this password. */
@@ -149,6 +151,9 @@ export async function loadShelf(databaseUrl: string, uploadDir: string): Promise
     if (already > 0) throw new Error(`The bench database holds ${already} invented bundles, fewer than ${SHELF_BUNDLES}; recreate it.`);
 
     await client.query('BEGIN');
+    // The guild office's tally triggers on bundles (migration 20261202120000-office-tallies.ts) would fire
+    // once per loaded row; they are off for this bulk load, and the tallies are rebuilt once at the end.
+    for (const trigger of BUNDLE_TALLY_TRIGGERS) await client.query(`ALTER TABLE bundles DISABLE TRIGGER ${trigger}`);
     await client.query(
       `INSERT INTO guild (id, name, town, currency, invite_code)
        VALUES (1, 'Ferncombe Patchwork Guild', 'Ferncombe', 'USD', 'FERNCOMBE-BENCH')
@@ -247,14 +252,17 @@ export async function loadShelf(databaseUrl: string, uploadDir: string): Promise
       ],
     );
     await client.query(
-      `INSERT INTO bundle_photos (bundle_id, position, display_key, thumb_key, content_type, width, height, average_hex)
-       SELECT b.id, 0, $1, $2, 'image/webp', $3, $4, $5
+      `INSERT INTO bundle_photos (bundle_id, position, display_key, medium_key, thumb_key, content_type, width, height, average_hex)
+       SELECT b.id, 0, $1, $1, $2, 'image/webp', $3, $4, $5
        FROM bundles b JOIN members m ON m.id = b.seller_id
        WHERE m.email LIKE '%@' || $6::text`,
       [DISPLAY_KEY, THUMB_KEY, photo.width, photo.height, photo.averageHex, EMAIL_DOMAIN],
     );
+    for (const trigger of BUNDLE_TALLY_TRIGGERS) await client.query(`ALTER TABLE bundles ENABLE TRIGGER ${trigger}`);
+    await client.query('DELETE FROM office_tallies');
+    await client.query('INSERT INTO office_tallies (grain, day, figure, key, amount, compacted) SELECT *, true FROM office_tallies_expected()');
     await client.query('COMMIT');
-    await client.query('VACUUM (ANALYZE) members, bundles, bundle_photos');
+    await client.query('VACUUM (ANALYZE) members, bundles, bundle_photos, office_tallies');
     return { loaded: true, seconds: (Date.now() - started) / 1000, bundlesOnShelf: await count() };
   } catch (error) {
     await client.query('ROLLBACK').catch(() => undefined);
