@@ -21,7 +21,7 @@ import { fromRoot, machineScratchDir } from './lib/paths.ts';
 import { portBaseFromEnv, portsFrom } from './lib/ports.ts';
 import { ensureDatabase, ensurePostgres, stopPostgres } from './lib/postgres.ts';
 import { startService, type ServiceOptions } from './lib/services.ts';
-import { apiEnv, maildevSpec, migrate, seedDemoGuild, stripeFakeSpec, testClientEnv, urlsFor } from './lib/stack.ts';
+import { apiEnv, buildApi, maildevSpec, migrate, seedDemoGuild, stripeFakeSpec, testClientEnv, urlsFor } from './lib/stack.ts';
 
 const DATABASE = 'scrap_relay_bench';
 
@@ -52,10 +52,12 @@ async function main(): Promise<number> {
   };
   await migrate(env);
   await seedDemoGuild(env);
+  // Every module measures the API as production runs it: the build of apps/api/build.ts under plain Node.
+  process.env.SR_API_BUILD = await buildApi(ports);
   const serviceOptions: ServiceOptions = { logDir, echo: false };
   await startService(maildevSpec(ports), serviceOptions);
   await startService(stripeFakeSpec(ports, `${urls.api}/api/stripe/webhook`), serviceOptions);
-  note(`PostgreSQL ${ports.postgres}, maildev ${ports.maildevWeb}, Stripe stand-in ${ports.stripeFake}; database ${DATABASE} migrated, demo guild loaded`);
+  note(`PostgreSQL ${ports.postgres}, maildev ${ports.maildevWeb}, Stripe stand-in ${ports.stripeFake}; database ${DATABASE} migrated, demo guild loaded; API built (production build under plain Node)`);
 
   const context: BenchContext = {
     ports,

@@ -26,6 +26,7 @@ import { startService, type ServiceOptions } from './lib/services.ts';
 import {
   apiEnv,
   apiSpec,
+  buildApi,
   buildWeb,
   maildevSpec,
   migrate,
@@ -200,6 +201,8 @@ async function endToEnd(services: Services, reportDir: string): Promise<SuiteCou
   const urls = urlsFor(ports);
   await timedStep('Chromium', ensureChromium);
   const webDist = await timedStep('vite build of apps/web', () => buildWeb(ports));
+  // The journeys run against the API's production build, so a change that breaks the build fails here.
+  const apiBuild = await timedStep('production build of apps/api', () => buildApi(ports));
   const databaseUrl = await timedStep(`fresh database ${DATABASE}`, () => ensureDatabase(DATABASE, { recreate: true }));
   const uploadDir = path.join(services.uploadRoot, 'e2e');
   fs.mkdirSync(uploadDir);
@@ -216,7 +219,7 @@ async function endToEnd(services: Services, reportDir: string): Promise<SuiteCou
     startService(stripeFakeSpec(ports, `${urls.web}/api/stripe/webhook`), serviceOptions),
   );
   try {
-    const api = await timedStep(`API serving the built app on port ${ports.web}`, () => startService(apiSpec(env), serviceOptions));
+    const api = await timedStep(`API serving the built app on port ${ports.web}`, () => startService(apiSpec(env, { compiled: apiBuild }), serviceOptions));
     try {
       const reportFile = path.join(reportDir, 'e2e.json');
       fs.rmSync(reportFile, { force: true });

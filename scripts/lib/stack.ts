@@ -111,14 +111,23 @@ export function stripeFakeSpec(ports: Ports, webhookUrl: string): ServiceSpec {
   };
 }
 
-export function apiSpec(env: Record<string, string>): ServiceSpec {
+/**
+ * The API as a service: from its TypeScript source through tsx, or, given `compiled` (from `buildApi`),
+ * the production build under plain Node (also when SR_API_BUILD names one, as `npm run bench` does for every
+ * module). SR_API_CPU_PROFILE=<folder> makes the API write a V8 CPU profile
+ * there when it stops (open it in Chrome's DevTools).
+ */
+export function apiSpec(env: Record<string, string>, options: { compiled?: string } = {}): ServiceSpec {
   requireEntry(API_ENTRY, 'the API');
   const port = Number(env.PORT);
+  const compiled = options.compiled ?? process.env.SR_API_BUILD;
+  const profile = process.env.SR_API_CPU_PROFILE ? ['--cpu-prof', '--cpu-prof-dir', process.env.SR_API_CPU_PROFILE] : [];
+  const source = env.WEB_DIST === undefined ? 'API' : 'API (serving the built web app)';
   return {
     name: 'api',
-    description: env.WEB_DIST === undefined ? 'API' : 'API (serving the built web app)',
-    command: bin('tsx'),
-    args: [API_ENTRY],
+    description: compiled === undefined ? source : `${source}, production build`,
+    command: compiled === undefined ? bin('tsx') : process.execPath,
+    args: [...profile, compiled ?? API_ENTRY],
     env: { ...process.env, ...env },
     ports: [{ port, role: 'HTTP' }],
     readyUrl: `${loopback(port)}/api/health`,
@@ -155,6 +164,18 @@ export function migrate(env: Record<string, string>): Promise<void> {
 
 export function seedDemoGuild(env: Record<string, string>): Promise<void> {
   return runEntry(SEED_ENTRY, [], env, 'Loading the demo guild');
+}
+
+/**
+ * Builds the API for production (apps/api/build.ts) into this port range's own folder under .local/, so runs
+ * on other port ranges never replace it under a running server. Inside the checkout, so the packages it
+ * leaves out resolve from node_modules. Returns the file to run with node.
+ */
+export async function buildApi(ports: Ports): Promise<string> {
+  const outFile = fromRoot('.local', 'builds', `api-${ports.base}`, 'server.js');
+  const result = await runCommand(bin('tsx'), [fromRoot('apps', 'api', 'build.ts'), outFile], { capture: true });
+  if (result.code !== 0) throw new SetupError(`Building the API failed (exit ${result.code}):\n${tail(result.stdout + result.stderr, 30)}`);
+  return outFile;
 }
 
 /**
