@@ -4,7 +4,11 @@ import { createRuntime } from './runtime.ts';
 
 async function main() {
   const config = loadConfig();
-  const logger = pino({ level: config.logLevel });
+  // Log lines are gathered up to 4 kB and written at least once a second (and at exit), instead of one
+  // write to stdout per line: under load that write was a system call per request.
+  const destination = pino.destination({ dest: 1, minLength: 4096, sync: false });
+  setInterval(() => destination.flush(), 1000).unref();
+  const logger = pino({ level: config.logLevel }, destination);
   const runtime = await createRuntime(config, { logger });
   const server = runtime.app.listen(config.port, '127.0.0.1', () => logger.info({ port: config.port }, 'Scrap Relay API listening'));
   server.on('error', (err) => {
