@@ -15,7 +15,8 @@ if (!baseURL) {
 export default defineConfig({
   testDir: 'e2e',
   testIgnore: ['support/**', 'output/**'],
-  outputDir: 'e2e/output/test-results',
+  // Playwright empties this folder when a run starts, so each port range (each concurrent `npm test`) has its own.
+  outputDir: `e2e/output/test-results-${new URL(baseURL).port}`,
   // One app, one database: journeys take turns.
   workers: 1,
   fullyParallel: false,
