@@ -125,11 +125,17 @@ async function measureLcp(ctx: BenchContext, build: WebBuild, pathname: string):
         const [after] = os.loadavg();
         const byLcp = [...loads].sort((a, b) => a.lcpMs - b.lcpMs);
         const middle = byLcp[Math.floor(byLcp.length / 2)]!;
-        console.log(`  what the median run (LCP ${Math.round(middle.lcpMs)} ms) fetched, ms from navigation start:`);
+        console.log(`  what the median run (LCP ${Math.round(middle.lcpMs)} ms, FCP ${Math.round(middle.firstContentfulPaintMs)} ms) fetched, and its long tasks, ms from navigation start:`);
         console.log(`    ${'0'.padStart(6)} → ${Math.round(middle.htmlReceivedMs).toString().padStart(5)}  ${pathname} (the HTML)`);
-        for (const resource of [...middle.resources].sort((a, b) => a.startMs - b.startMs)) {
-          const size = resource.transferredBytes > 0 ? `, ${kB(resource.transferredBytes).toFixed(1)} kB` : '';
-          console.log(`    ${Math.round(resource.startMs).toString().padStart(6)} → ${Math.round(resource.endMs).toString().padStart(5)}  ${resource.path}${size}`);
+        const lines = [
+          ...middle.resources.map((resource) => ({
+            ...resource,
+            what: `${resource.path}${resource.transferredBytes > 0 ? `, ${kB(resource.transferredBytes).toFixed(1)} kB` : ''}`,
+          })),
+          ...middle.longTasks.map((task) => ({ ...task, what: `(main thread busy ${Math.round(task.endMs - task.startMs)} ms)` })),
+        ];
+        for (const line of lines.sort((a, b) => a.startMs - b.startMs)) {
+          console.log(`    ${Math.round(line.startMs).toString().padStart(6)} → ${Math.round(line.endMs).toString().padStart(5)}  ${line.what}`);
         }
         ctx.print(`Largest Contentful Paint of ${pathname}, ${RUNS} cold loads`, {
           'median ms': median(loads.map((load) => load.lcpMs)),

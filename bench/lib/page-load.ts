@@ -57,6 +57,8 @@ export interface PageLoad {
   loadEventMs: number;
   /** Every file and API call the page fetched, in the order they started: what the paint waited for. */
   resources: { path: string; startMs: number; endMs: number; transferredBytes: number }[];
+  /** Main-thread tasks of 50 ms or more (the Long Tasks API), by start: what the paint waited for besides the network. */
+  longTasks: { startMs: number; endMs: number }[];
   /** Bytes received for every response of the load, as transferred (compressed), headers included. */
   transferredBytes: number;
   responses: number;
@@ -93,6 +95,7 @@ const READ_PAINT_TIMINGS = `new Promise((resolve) => {
       htmlReceivedMs: nav ? nav.responseEnd : -1,
       domContentLoadedMs: nav ? nav.domContentLoadedEventEnd : -1,
       loadEventMs: nav ? nav.loadEventEnd : -1,
+      longTasks: (window.__benchLongTasks || []).map((t) => ({ startMs: t.startTime, endMs: t.startTime + t.duration })),
       resources: performance.getEntriesByType('resource').map((r) => {
         const url = new URL(r.name);
         return { path: url.pathname + url.search, startMs: r.startTime, endMs: r.responseEnd, transferredBytes: r.transferSize };
@@ -171,6 +174,9 @@ export async function coldLoad(context: BrowserContext, pathname: string, option
       open.delete(event.requestId);
       lastActivity = performance.now();
     });
+    // Long tasks are not kept in the performance timeline: an observer from the page's start collects them.
+    await page.addInitScript(`window.__benchLongTasks = [];
+      new PerformanceObserver((list) => window.__benchLongTasks.push(...list.getEntries())).observe({ type: 'longtask' });`);
     const started = performance.now();
     await page.goto(pathname, { waitUntil: 'load', timeout: SETTLE_TIMEOUT_MS });
     for (;;) {

@@ -6,6 +6,9 @@ import { RootErrorBoundary, RootLayout } from './routes/root.tsx';
 
 type LazyRoute = NonNullable<RouteObject['lazy']>;
 
+/** The shelf's route module; main.tsx starts it early when the first address is the shelf (first-page.ts). */
+export const loadShelfPage = () => import('./routes/app/shelf/shelf.tsx');
+
 /** A signed-in page; when the page `requires` an ability the guard shows "not available" to everyone else. */
 function appPage(page: AppPage, lazy: LazyRoute): RouteObject {
   if (!page.requires) return { path: page.path, lazy };
@@ -51,7 +54,7 @@ export const routes: RouteObject[] = [
           appPage(paths.app.myBundles, () => import('./routes/app/bundles/mine.tsx')),
           appPage(paths.app.editBundle, () => import('./routes/app/bundles/edit.tsx')),
           appPage(paths.app.bundle, () => import('./routes/app/bundles/bundle.tsx')),
-          appPage(paths.app.shelf, () => import('./routes/app/shelf/shelf.tsx')),
+          appPage(paths.app.shelf, loadShelfPage),
           appPage(paths.app.wishes, () => import('./routes/app/wishes/wishes.tsx')),
           appPage(paths.app.review, () => import('./routes/app/review/review-queue.tsx')),
           appPage(paths.app.reviewBundle, () => import('./routes/app/review/review-bundle.tsx')),

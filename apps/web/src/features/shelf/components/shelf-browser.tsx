@@ -1,22 +1,59 @@
 import type { BundleCard as BundleCardData, Page, ShelfFilters, UnitSystem } from '@scrap-relay/shared';
-import { lazy, Suspense, useId, useRef, useState, type ReactNode } from 'react';
+import { lazy, Suspense, useEffect, useId, useRef, useState, type ReactNode, type RefObject } from 'react';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { Button, ButtonLink } from '../../../components/ui/button.tsx';
 import { Select } from '../../../components/ui/field.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { cn } from '../../../utils/cn.ts';
 import { countFilters, type ShelfSort } from '../../../utils/shelf-filters.ts';
-import { useShelf } from '../api/get-shelf.ts';
+import { shelfQueryFor, useShelf } from '../api/get-shelf.ts';
 import { useShelfSearch } from '../hooks/use-shelf-search.ts';
 import { BundleCard, type CardPhotoLoading } from './bundle-card.tsx';
 
-// The form (react-hook-form and the shared schemas) loads after the bundles, so the first paint is the shelf itself.
+// The form (react-hook-form and the shared schemas) loads after the first photos (useFirstPhotosSettled), so the first paint is the shelf itself.
 const ShelfFiltersForm = lazy(() => import('./shelf-filters-form.tsx').then((m) => ({ default: m.ShelfFiltersForm })));
 
-const SHELF_PAGE_SIZE = 24;
 /** The most cards in a row (three on wide screens): that many photos load at once, the rest lazily. */
 const FIRST_ROW = 3;
 const cardPhotoLoading = (index: number): CardPhotoLoading => (index === 0 ? 'first' : index < FIRST_ROW ? 'eager' : 'lazy');
+/** How long the filters wait for the first photos at most, so a stalled photo never keeps them away. */
+const PHOTO_WAIT_MS = 3_000;
+
+/**
+ * True once the shelf has answered and the photos it shows at once have arrived or failed (or PHOTO_WAIT_MS has
+ * passed): what loads then (the filter form, the wish panel, ~45 kB with their libraries) does not share a slow
+ * link with the page's largest paint. Stays true.
+ */
+function useFirstPhotosSettled(results: RefObject<HTMLElement | null>, answered: boolean): [boolean, () => void] {
+  const [settled, setSettled] = useState(false);
+  useEffect(() => {
+    if (settled || !answered) return;
+    const settle = () => setSettled(true);
+    const waiting = [...(results.current?.querySelectorAll<HTMLImageElement>('img:not([loading="lazy"])') ?? [])].filter((img) => !img.complete);
+    if (waiting.length === 0) {
+      settle();
+      return;
+    }
+    let left = waiting.length;
+    const onePhoto = () => {
+      left -= 1;
+      if (left === 0) settle();
+    };
+    for (const img of waiting) {
+      img.addEventListener('load', onePhoto, { once: true });
+      img.addEventListener('error', onePhoto, { once: true });
+    }
+    const timer = setTimeout(settle, PHOTO_WAIT_MS);
+    return () => {
+      clearTimeout(timer);
+      for (const img of waiting) {
+        img.removeEventListener('load', onePhoto);
+        img.removeEventListener('error', onePhoto);
+      }
+    };
+  }, [results, answered, settled]);
+  return [settled, () => setSettled(true)];
+}
 
 const SORT_OPTIONS: { value: ShelfSort; label: string }[] = [
   { value: 'newest', label: 'Newest first' },
@@ -37,13 +74,16 @@ export interface ShelfBrowserProps {
 /** Filters (folded away on phones), sort, one page of bundle cards and the way to the next page. */
 export function ShelfBrowser({ units, currency, renderForFilters }: ShelfBrowserProps) {
   const { search, setFilters, setSort, pageHref } = useShelfSearch();
-  const shelf = useShelf({ ...search.filters, sort: search.sort, page: search.page, pageSize: SHELF_PAGE_SIZE });
+  const shelf = useShelf(shelfQueryFor(search));
   const [filtersOpen, setFiltersOpen] = useState(false);
   const filtersId = useId();
   const sortId = useId();
   const resultsHeadingId = useId();
   const resultsHeading = useRef<HTMLHeadingElement>(null);
+  const results = useRef<HTMLElement>(null);
   const chosen = countFilters(search.filters);
+  // Opening the folded filters on a phone wants the form at once.
+  const [extrasWanted, wantExtras] = useFirstPhotosSettled(results, !shelf.isPending);
 
   const showResults = () => {
     setFiltersOpen(false);
@@ -58,7 +98,10 @@ export function ShelfBrowser({ units, currency, renderForFilters }: ShelfBrowser
           className="w-full justify-between md:hidden"
           aria-expanded={filtersOpen}
           aria-controls={filtersId}
-          onClick={() => setFiltersOpen((open) => !open)}
+          onClick={() => {
+            wantExtras();
+            setFiltersOpen((open) => !open);
+          }}
         >
           <span>{chosen > 0 ? `Filters (${chosen} chosen)` : 'Filters'}</span>
           <span aria-hidden="true">{filtersOpen ? '▲' : '▼'}</span>
@@ -71,27 +114,31 @@ export function ShelfBrowser({ units, currency, renderForFilters }: ShelfBrowser
             className="rounded-stitch border-2 border-seam bg-muslin p-4 shadow-quilt"
           >
             <h2 className="mb-4 text-xl font-bold max-md:sr-only">Filters</h2>
-            <Suspense fallback={<Loading label="Loading the filters" />}>
-            <ShelfFiltersForm
-              filters={search.filters}
-              units={units}
-              currency={currency}
-              onApply={(filters) => {
-                setFilters(filters);
-                showResults();
-              }}
-              onClear={() => {
-                setFilters({});
-                showResults();
-              }}
-            />
-            </Suspense>
+            {extrasWanted ? (
+              <Suspense fallback={<Loading label="Loading the filters" />}>
+                <ShelfFiltersForm
+                  filters={search.filters}
+                  units={units}
+                  currency={currency}
+                  onApply={(filters) => {
+                    setFilters(filters);
+                    showResults();
+                  }}
+                  onClear={() => {
+                    setFilters({});
+                    showResults();
+                  }}
+                />
+              </Suspense>
+            ) : (
+              <Loading label="Loading the filters" />
+            )}
           </section>
-          {renderForFilters ? renderForFilters(search.filters) : null}
+          {renderForFilters && extrasWanted ? renderForFilters(search.filters) : null}
         </div>
       </div>
 
-      <section aria-labelledby={resultsHeadingId} className="min-w-0 space-y-4">
+      <section ref={results} aria-labelledby={resultsHeadingId} className="min-w-0 space-y-4">
         <h2 id={resultsHeadingId} ref={resultsHeading} tabIndex={-1} className="text-2xl font-bold focus:outline-none">
           {chosen > 0 ? 'Bundles that match' : 'Bundles on the shelf'}
         </h2>

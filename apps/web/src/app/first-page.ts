@@ -1,0 +1,53 @@
+import { matchPath } from 'react-router-dom';
+import type { QueryClient } from '@tanstack/react-query';
+import type { SessionResponse } from '@scrap-relay/shared';
+import { paths } from '../config/paths.ts';
+import { sessionQueryKey } from '../features/auth/api/get-session.ts';
+import { getShelfQueryOptions, shelfQueryFor } from '../features/shelf/api/get-shelf.ts';
+import { preloadCardPhoto } from '../features/shelf/utils/card-photo.ts';
+import { readShelfSearch } from '../utils/shelf-filters.ts';
+import { loadShelfPage } from './router.tsx';
+
+/**
+ * On a cold load the shelf waits in a chain: entry chunk → session → route chunk → bundles → photos. When the
+ * first address is the shelf, its route chunk and (for a member who is probably signed in) its first page are
+ * asked for at once, beside the session (and the first card's photo as soon as the page of bundles arrives), with the same module and the same query the page itself uses, so the
+ * page finds both in flight. A visitor who is not signed in asks only for the chunk: the guard sends them to
+ * sign in as before, without a refused request first.
+ */
+export function startFirstPage(queryClient: QueryClient, { pathname, search }: Pick<Location, 'pathname' | 'search'>): void {
+  if (!matchPath(paths.app.shelf.path, pathname)) return;
+  void loadShelfPage();
+  if (!seemsSignedIn()) return;
+  const shelf = getShelfQueryOptions(shelfQueryFor(readShelfSearch(new URLSearchParams(search))));
+  void queryClient.prefetchQuery(shelf).then(() => {
+    // The first card's photo can start now, while the page is still being drawn.
+    const first = queryClient.getQueryData(shelf.queryKey)?.items[0];
+    if (first) preloadCardPhoto(first);
+  });
+}
+
+/** Whether the last session this browser read had a member: a hint only, the session itself still decides. */
+const SIGNED_IN_HINT = 'scrap-relay.signed-in';
+
+function seemsSignedIn(): boolean {
+  try {
+    return localStorage.getItem(SIGNED_IN_HINT) === '1';
+  } catch {
+    return false;
+  }
+}
+
+/** Keeps the hint in step with every session the app reads or sets (sign-in, sign-out, expiry). */
+export function followSignedIn(queryClient: QueryClient): () => void {
+  return queryClient.getQueryCache().subscribe((event) => {
+    if (event.type !== 'updated' || event.action.type !== 'success' || event.query.queryKey[0] !== sessionQueryKey[0]) return;
+    const session = event.query.state.data as SessionResponse | undefined;
+    try {
+      if (session?.user) localStorage.setItem(SIGNED_IN_HINT, '1');
+      else localStorage.removeItem(SIGNED_IN_HINT);
+    } catch {
+      // Storage refused (private mode, quota): the shelf then waits for the session as before.
+    }
+  });
+}
