@@ -35,7 +35,7 @@ function lastCompleteMonth(now: Date): string {
 interface Endpoint {
   label: string;
   path: string;
-  statements: (now: Date, currency: string) => Promise<OfficeStatement[]>;
+  statements: (now: Date) => OfficeStatement[];
   /** A response that is not what a treasurer should see means the figures measure the wrong thing. */
   check: (body: unknown) => string | null;
 }
@@ -44,7 +44,7 @@ function endpoints(month: string): Endpoint[] {
   const dashboard = (period: 'month' | 'year' | 'all'): Endpoint => ({
     label: `dashboard, period=${period}`,
     path: `/api/dashboard?period=${period}`,
-    statements: (now, currency) => dashboardStatements(`period=${period}`, now, currency),
+    statements: (now) => dashboardStatements(`period=${period}`, now),
     check: (body) => ((body as { figures?: { money?: unknown } }).figures?.money ? null : 'no money figures (not signed in as a treasurer?)'),
   });
   return [
@@ -54,7 +54,7 @@ function endpoints(month: string): Endpoint[] {
     {
       label: `statement, month=${month}`,
       path: `/api/reports/statement?month=${month}`,
-      statements: (_now, currency) => statementStatements(month, currency),
+      statements: () => statementStatements(month),
       check: (body) => {
         const statement = (body as { statement?: { closingBalances?: unknown[]; chargesMinor?: number } }).statement;
         return statement && (statement.chargesMinor ?? 0) > 0 ? null : 'a statement with no charges: the month holds no orders';
@@ -96,16 +96,37 @@ interface Timed {
   medianMs: number;
 }
 
-async function timeStatement(client: pg.Client, statement: OfficeStatement): Promise<number> {
-  await client.query(statement.text, statement.values);
+/**
+ * Median time of a statement run alone, after one unmeasured run: sent unnamed (parsed, analysed
+ * and planned at every run) or, as the API sends it, by its name (prepared once on this connection).
+ */
+async function timeStatement(client: pg.Client, statement: OfficeStatement, named: boolean): Promise<number> {
+  const send = () => (named ? client.query({ name: statement.name, text: statement.text, values: statement.values }) : client.query(statement.text, statement.values));
+  await send();
   const times: number[] = [];
   for (let run = 0; run < STATEMENT_RUNS; run += 1) {
     const started = performance.now();
-    await client.query(statement.text, statement.values);
+    await send();
     times.push(performance.now() - started);
   }
   times.sort((a, b) => a - b);
   return times[Math.floor(times.length / 2)]!;
+}
+
+/** PostgreSQL's own planning and execution times of the statement (EXPLAIN ANALYZE, SUMMARY), median of the runs. */
+async function planAndRun(client: pg.Client, statement: OfficeStatement): Promise<{ planningMs: number; executionMs: number }> {
+  const planning: number[] = [];
+  const execution: number[] = [];
+  for (let run = 0; run < STATEMENT_RUNS; run += 1) {
+    const { rows } = await client.query<{ 'QUERY PLAN': [{ 'Planning Time': number; 'Execution Time': number }] }>(
+      `EXPLAIN (ANALYZE, SUMMARY, FORMAT JSON) ${statement.text}`,
+      statement.values,
+    );
+    planning.push(rows[0]!['QUERY PLAN'][0]['Planning Time']);
+    execution.push(rows[0]!['QUERY PLAN'][0]['Execution Time']);
+  }
+  const median = (values: number[]) => values.sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
+  return { planningMs: median(planning), executionMs: median(execution) };
 }
 
 async function periodSizes(client: pg.Client, month: string): Promise<Record<string, number>> {
@@ -145,7 +166,6 @@ export async function run(ctx: BenchContext): Promise<void> {
   const services: RunningService[] = [];
   try {
     ctx.print('what the periods hold', await periodSizes(db, month));
-    const currency = (await db.query<{ currency: string }>('SELECT currency FROM guild WHERE id = 1')).rows[0]!.currency.trim();
     const backend = await db.query<{ pid: number }>('SELECT pg_backend_pid() AS pid');
     const postmasterPid = parentPid(backend.rows[0]!.pid);
 
@@ -207,18 +227,22 @@ export async function run(ctx: BenchContext): Promise<void> {
     // With the API stopped, each statement runs alone: its own cost, not its share of a queue.
     const timed: Timed[] = [];
     for (const endpoint of list) {
-      console.log(`  statements of ${endpoint.label}, each alone, median of ${STATEMENT_RUNS} (ms):`);
-      for (const statement of await endpoint.statements(now, currency)) {
-        const medianMs = await timeStatement(db, statement);
+      console.log(`  statements of ${endpoint.label}, each alone, median of ${STATEMENT_RUNS} (ms): by name as the API sends it, unnamed, and EXPLAIN ANALYZE's planning + execution:`);
+      for (const statement of endpoint.statements(now)) {
+        const medianMs = await timeStatement(db, statement, true);
+        const unnamedMs = await timeStatement(db, statement, false);
+        const { planningMs, executionMs } = await planAndRun(db, statement);
         timed.push({ endpoint: endpoint.label, statement, medianMs });
-        console.log(`    ${medianMs.toFixed(1).padStart(8)}  ${statement.label}`);
+        console.log(
+          `    ${medianMs.toFixed(1).padStart(8)}  (unnamed ${unnamedMs.toFixed(1)}, planning ${planningMs.toFixed(2)} + execution ${executionMs.toFixed(2)})  ${statement.label}`,
+        );
       }
       const total = timed.filter((t) => t.endpoint === endpoint.label).reduce((sum, t) => sum + t.medianMs, 0);
       console.log(`    ${total.toFixed(1).padStart(8)}  all of them, one after another`);
     }
     const slowest = timed.reduce((worst, t) => (t.medianMs > worst.medianMs ? t : worst));
-    const plan = await db.query<{ 'QUERY PLAN': string }>(`EXPLAIN (ANALYZE, BUFFERS) ${slowest.statement.text}`, slowest.statement.values);
-    console.log(`  EXPLAIN (ANALYZE, BUFFERS) of the slowest statement (${slowest.endpoint}, ${slowest.medianMs.toFixed(1)} ms) with ${JSON.stringify(slowest.statement.values)}:`);
+    const plan = await db.query<{ 'QUERY PLAN': string }>(`EXPLAIN (ANALYZE, BUFFERS, SUMMARY) ${slowest.statement.text}`, slowest.statement.values);
+    console.log(`  EXPLAIN (ANALYZE, BUFFERS, SUMMARY) of the slowest statement (${slowest.endpoint}, ${slowest.medianMs.toFixed(1)} ms) with ${JSON.stringify(slowest.statement.values)}:`);
     for (const row of plan.rows) console.log(`    ${row['QUERY PLAN']}`);
     if (invalid.length > 0) throw new Error(`Some responses failed, so their figures measure errors:\n  ${invalid.join('\n  ')}`);
   } finally {

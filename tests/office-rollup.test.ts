@@ -8,6 +8,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { Meeting, Order, type Member } from '../apps/api/src/db/models/index.ts';
 import { createMember, listenOnApiPort, signedInClient, startTestApi, type Client, type TestApi } from './support/api.ts';
 import { listAndSubmit } from './support/bundles.ts';
+import { dashboardStatement } from '../apps/api/src/modules/office/dashboard.service.ts';
 import { payCheckout, sessionIdFromUrl } from './support/stripe-fake.ts';
 
 let api: TestApi;
@@ -221,6 +222,17 @@ describe('office tallies', () => {
         );
         expect(row!.fast, `${from} to ${to}, ${row!.n} reviews`).toBe(row!.full);
       }
+      // The chart's monthly medians, worked out for all months at once in the dashboard's own statement, on the same times.
+      const { statement } = dashboardStatement({ period: 'all' }, new Date());
+      const [chart] = await sequelize.query<{ review_by_month: unknown }>(statement.text, { bind: statement.values, type: QueryTypes.SELECT, transaction });
+      const [full] = await sequelize.query<{ by_month: unknown }>(
+        `SELECT json_agg(json_build_object('month', month, 'medianHours', median_hours) ORDER BY month) AS by_month
+         FROM (SELECT to_char(date_trunc('month', reviewed_at AT TIME ZONE 'UTC'), 'YYYY-MM') AS month,
+                      round((percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM reviewed_at - submitted_at)) / 3600)::numeric, 1)::float AS median_hours
+               FROM bundles WHERE reviewed_at >= $1 AND submitted_at IS NOT NULL GROUP BY 1) m`,
+        { bind: [`${statement.values[2]}T00:00:00Z`], type: QueryTypes.SELECT, transaction },
+      );
+      expect(chart!.review_by_month).toEqual(full!.by_month);
       expect(await tallyDifferences(transaction)).toEqual([]);
     } finally {
       await transaction.rollback();

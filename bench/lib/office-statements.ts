@@ -1,49 +1,33 @@
 /**
  * The statements the guild office's routes send, taken from the API's own
- * dashboardFigures and monthStatement (apps/api/src/modules/office/) by
- * handing them a recorder in place of Sequelize, so the timings and plans the
- * benchmark prints are always those of the SQL the API runs.
+ * builders (dashboardStatement and monthStatementStatement in
+ * apps/api/src/modules/office/), so the timings and plans the benchmark prints
+ * are always those of the SQL the API runs, under the name it prepares it by.
  */
-import type { Sequelize } from 'sequelize';
 import { dashboardQuerySchema } from '@scrap-relay/shared';
-import type { Guild } from '../../apps/api/src/db/models/index.ts';
-import { dashboardFigures } from '../../apps/api/src/modules/office/dashboard.service.ts';
-import { monthStatement } from '../../apps/api/src/modules/office/reports.service.ts';
+import { dashboardStatement } from '../../apps/api/src/modules/office/dashboard.service.ts';
+import { monthStatementStatement } from '../../apps/api/src/modules/office/reports.service.ts';
+import type { OfficeStatement as NamedStatement } from '../../apps/api/src/modules/office/office.statements.ts';
 
-export interface OfficeStatement {
+export interface OfficeStatement extends NamedStatement {
   /** The statement's opening words, whitespace folded, to tell statements apart in the output. */
   label: string;
-  text: string;
-  values: unknown[];
 }
 
 const LABEL_LENGTH = 72;
 
-function recorder(statements: OfficeStatement[]): Sequelize {
-  return {
-    // One empty row answers every statement: the services read row 0 of single-row results, and what they build is discarded.
-    query: async (text: string, options: { bind?: unknown[] } = {}) => {
-      const folded = text.replace(/\s+/g, ' ').trim();
-      statements.push({ label: folded.length > LABEL_LENGTH ? `${folded.slice(0, LABEL_LENGTH - 1)}…` : folded, text, values: options.bind ?? [] });
-      return [{}];
-    },
-  } as unknown as Sequelize;
+function labelled(statement: NamedStatement): OfficeStatement {
+  const folded = statement.text.replace(/\s+/g, ' ').trim();
+  return { ...statement, label: `${statement.name}: ${folded.length > LABEL_LENGTH ? `${folded.slice(0, LABEL_LENGTH - 1)}…` : folded}` };
 }
 
-/** Only the currency is read from the guild by either service. */
-const guildStandIn = (currency: string) => ({ currency }) as Guild;
-
-/** What GET /api/dashboard?<queryString> sends for a member who may see the ledger (the money figures included). */
-export async function dashboardStatements(queryString: string, now: Date, currency: string): Promise<OfficeStatement[]> {
+/** What GET /api/dashboard?<queryString> sends (the same statement whether or not the member sees the money figures). */
+export function dashboardStatements(queryString: string, now: Date): OfficeStatement[] {
   const query = dashboardQuerySchema.parse(Object.fromEntries(new URLSearchParams(queryString)));
-  const statements: OfficeStatement[] = [];
-  await dashboardFigures(recorder(statements), guildStandIn(currency), query, now, true);
-  return statements;
+  return [labelled(dashboardStatement(query, now).statement)];
 }
 
 /** What GET /api/reports/statement?month=<month> sends. */
-export async function statementStatements(month: string, currency: string): Promise<OfficeStatement[]> {
-  const statements: OfficeStatement[] = [];
-  await monthStatement(recorder(statements), guildStandIn(currency), month);
-  return statements;
+export function statementStatements(month: string): OfficeStatement[] {
+  return [labelled(monthStatementStatement(month))];
 }

@@ -6,7 +6,6 @@ import { parseInput } from '../../middleware/validate.ts';
 import { authorize, can } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { actorOf } from '../members/members.presenter.ts';
-import { loadGuild } from '../guild/guild.service.ts';
 import { dashboardFigures, dashboardRows, periodBounds } from './dashboard.service.ts';
 import { librarianReport, monthStatement } from './reports.service.ts';
 
@@ -17,7 +16,7 @@ export function officeRoutes(ctx: AppContext): Router {
   const figures = async (req: Parameters<typeof requireMember>[0]) => {
     const actor = actorOf(requireMember(req));
     const query = parseInput(dashboardQuerySchema, req.query);
-    return dashboardFigures(ctx.sequelize, await loadGuild(), query, ctx.now(), can(actor, 'ledger.view'));
+    return dashboardFigures(ctx.sequelize, query, ctx.now(), can(actor, 'ledger.view'));
   };
 
   router.get('/dashboard', async (req, res) => {
@@ -32,13 +31,13 @@ export function officeRoutes(ctx: AppContext): Router {
   router.get('/reports/statement', async (req, res) => {
     authorize(actorOf(requireMember(req)), 'ledger.view');
     const { month } = parseInput(statementQuerySchema, req.query);
-    res.json({ statement: await monthStatement(ctx.sequelize, await loadGuild(), month) });
+    res.json({ statement: await monthStatement(ctx.sequelize, month) });
   });
 
   router.get('/reports/statement.csv', async (req, res) => {
     authorize(actorOf(requireMember(req)), 'ledger.view');
     const { month } = parseInput(statementQuerySchema, req.query);
-    const s = await monthStatement(ctx.sequelize, await loadGuild(), month);
+    const s = await monthStatement(ctx.sequelize, month);
     const rows = [
       ['charges', '', s.chargesMinor],
       ['guild_fees', '', s.guildFeesMinor],

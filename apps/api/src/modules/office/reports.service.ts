@@ -1,22 +1,16 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { MonthStatement } from '@scrap-relay/shared';
-import type { Guild } from '../../db/models/index.ts';
+import { AppError } from '../../errors/index.ts';
+import { runOfficeStatement, type OfficeStatement } from './office.statements.ts';
 
-/**
- * The month-end statement from the ledger's tallies (office_tallies, kept by a trigger on
- * ledger_entries in the same transaction as each entry): each total is the month's row of
- * the same sum of entries dated in the month, and each seller's closing balance is the
- * account's running total less what was entered from the next month on, so the statement
- * ties to the ledger by construction without reading the ledger's history.
- */
-export async function monthStatement(sequelize: Sequelize, guild: Guild, month: string): Promise<MonthStatement> {
-  const from = new Date(`${month}-01T00:00:00Z`);
-  const to = new Date(Date.UTC(from.getUTCFullYear(), from.getUTCMonth() + 1, 1));
-  const [row] = await sequelize.query<{
-    totals: { key: string; amount: number }[] | null;
-    balances: { seller_id: string; name: string; balance: number }[] | null;
-  }>(
-    `SELECT
+interface StatementRow {
+  currency: string | null;
+  totals: { key: string; amount: number }[] | null;
+  balances: { seller_id: string; name: string; balance: number }[] | null;
+}
+
+const STATEMENT_SQL = `SELECT
+       (SELECT currency FROM guild WHERE id = 1) AS currency,
        (SELECT json_agg(json_build_object('key', key, 'amount', amount::int)) FROM office_period_tallies($1, $2, ARRAY['money'])) AS totals,
        (SELECT json_agg(json_build_object('seller_id', m.id, 'name', m.name, 'balance', b.balance) ORDER BY m.name, m.id)
         FROM (SELECT key AS account,
@@ -25,14 +19,31 @@ export async function monthStatement(sequelize: Sequelize, guild: Guild, month: 
               WHERE figure = 'balance' AND (grain = 't' OR (grain = 'm' AND day >= $3::date))
               GROUP BY key) b
         JOIN members m ON m.id = substring(b.account from 8)::uuid
-        WHERE b.balance <> 0) AS balances`,
-    { bind: [from, to, to.toISOString().slice(0, 10)], type: QueryTypes.SELECT },
-  );
+        WHERE b.balance <> 0) AS balances`;
+
+/** The statement GET /api/reports/statement sends for a month (YYYY-MM), named (see office.statements.ts). */
+export function monthStatementStatement(month: string): OfficeStatement {
+  const from = new Date(`${month}-01T00:00:00Z`);
+  const to = new Date(Date.UTC(from.getUTCFullYear(), from.getUTCMonth() + 1, 1));
+  return { name: 'office-month-statement', text: STATEMENT_SQL, values: [from, to, to.toISOString().slice(0, 10)] };
+}
+
+/**
+ * The month-end statement from the ledger's tallies (office_tallies, kept by a trigger on
+ * ledger_entries in the same transaction as each entry): each total is the month's row of
+ * the same sum of entries dated in the month, and each seller's closing balance is the
+ * account's running total less what was entered from the next month on, so the statement
+ * ties to the ledger by construction without reading the ledger's history. The guild's
+ * currency comes in the same statement.
+ */
+export async function monthStatement(sequelize: Sequelize, month: string): Promise<MonthStatement> {
+  const [row] = await runOfficeStatement<StatementRow>(sequelize, monthStatementStatement(month));
+  if (row!.currency === null) throw new AppError(503, 'service_unavailable', 'The guild has not been set up yet: run the migrations and the set-up.');
   const total = (key: string) => row!.totals?.find((t) => t.key === key)?.amount ?? 0;
   const balances = row!.balances ?? [];
   return {
     month,
-    currency: guild.currency,
+    currency: row!.currency,
     chargesMinor: total('charges'),
     guildFeesMinor: total('fees'),
     refundsMinor: total('refunds'),
