@@ -1,22 +1,24 @@
-import { matchPath } from 'react-router-dom';
 import type { QueryClient } from '@tanstack/react-query';
 import type { SessionResponse } from '@scrap-relay/shared';
 import { paths } from '../config/paths.ts';
 import { sessionQueryKey } from '../features/auth/api/get-session.ts';
 import { getShelfQueryOptions, shelfQueryFor } from '../features/shelf/api/get-shelf.ts';
 import { preloadCardPhoto } from '../features/shelf/utils/card-photo.ts';
-import { readShelfSearch } from '../utils/shelf-filters.ts';
-import { loadShelfPage } from './router.tsx';
+import { readShelfSearch } from '../utils/shelf-address.ts';
+
+/** The shelf's route module, for the router and for an early start (one function, so both share the module). */
+export const loadShelfPage = () => import('./routes/app/shelf/shelf.tsx');
 
 /**
  * On a cold load the shelf waits in a chain: entry chunk → session → route chunk → bundles → photos. When the
  * first address is the shelf, its route chunk and (for a member who is probably signed in) its first page are
- * asked for at once, beside the session (and the first card's photo as soon as the page of bundles arrives), with the same module and the same query the page itself uses, so the
- * page finds both in flight. A visitor who is not signed in asks only for the chunk: the guard sends them to
- * sign in as before, without a refused request first.
+ * asked for at once, beside the session, with the same module and the same query the page itself uses, so the
+ * page finds both in flight; the first card's photo follows as soon as the page of bundles arrives. A visitor
+ * who is not signed in asks only for the chunk: the guard sends them to sign in as before, without a refused
+ * request first. Imports neither React DOM nor the router (see start.ts).
  */
 export function startFirstPage(queryClient: QueryClient, { pathname, search }: Pick<Location, 'pathname' | 'search'>): void {
-  if (!matchPath(paths.app.shelf.path, pathname)) return;
+  if (pathname.replace(/(.)\/+$/, '$1') !== paths.app.shelf.path) return;
   void loadShelfPage();
   if (!seemsSignedIn()) return;
   const shelf = getShelfQueryOptions(shelfQueryFor(readShelfSearch(new URLSearchParams(search))));

@@ -1,13 +1,11 @@
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { paths, type AppPage } from '../config/paths.ts';
 import { Loading } from '../components/ui/loading.tsx';
+import { loadShelfPage } from './first-page.ts';
 import { RequireAbility, RequireSignedIn, SignedOutOnly } from './guards.tsx';
 import { RootErrorBoundary, RootLayout } from './routes/root.tsx';
 
 type LazyRoute = NonNullable<RouteObject['lazy']>;
-
-/** The shelf's route module; main.tsx starts it early when the first address is the shelf (first-page.ts). */
-export const loadShelfPage = () => import('./routes/app/shelf/shelf.tsx');
 
 /** A signed-in page; when the page `requires` an ability the guard shows "not available" to everyone else. */
 function appPage(page: AppPage, lazy: LazyRoute): RouteObject {

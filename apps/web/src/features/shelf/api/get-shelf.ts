@@ -1,7 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { BundleCard, Page, ShelfQuery } from '@scrap-relay/shared';
 import { api } from '../../../lib/api-client.ts';
-import type { ShelfSearch } from '../../../utils/shelf-filters.ts';
+import type { ShelfSearch } from '../../../utils/shelf-address.ts';
 
 export const shelfQueryKey = ['shelf'] as const;
 

@@ -1,0 +1,117 @@
+// Types only from the shared schemas: their values would bring zod into the shelf's first load (see parseShelfFilters).
+import { COLOUR_FAMILIES, COLOUR_VALUES, CUT_KINDS, FIBRES, type ShelfFilters, type ShelfQuery } from '@scrap-relay/shared';
+
+/**
+ * The shelf's filters as they travel: in the shelf's address (so a search can be
+ * shared and the back button works) and in a saved wish. Used by the shelf and the
+ * wishes features alike, and by main.tsx's early start of the shelf (app/first-page.ts),
+ * so this module stays small and free of formatting code (that is in shelf-filters.ts).
+ */
+
+export type ShelfSort = ShelfQuery['sort'];
+
+export interface ShelfSearch {
+  filters: ShelfFilters;
+  sort: ShelfSort;
+  page: number;
+}
+
+/** Filter keys in the order they appear in an address and in words. */
+export const SHELF_FILTER_KEYS = ['offer', 'cut', 'value', 'family', 'fibre', 'minGrams', 'maxGrams', 'maxPriceMinor', 'q'] as const satisfies readonly (keyof ShelfFilters)[];
+
+const DEFAULT_SORT: ShelfSort = 'newest';
+
+/**
+ * The API's limits on filter numbers (MAX_BUNDLE_GRAMS and MAX_PRICE_MINOR in the shared schemas; a test
+ * holds them equal).
+ */
+export const SHELF_FILTER_LIMITS = { grams: 50_000, priceMinor: 100_000 } as const;
+const MAX_PAGE = 10_000;
+const MAX_WORDS = 100;
+
+type ShelfOffer = NonNullable<ShelfFilters['offer']>;
+
+/** Each offer once; a record, so the compiler says when the API gains or loses one. */
+const OFFERS: Readonly<Record<ShelfOffer, true>> = { sale: true, postage_only: true, meeting: true };
+
+/** Each sort once; a record, so the compiler says when the API gains or loses one. */
+const SORTS: Readonly<Record<ShelfSort, true>> = { newest: true, price_asc: true, price_desc: true, weight_asc: true, weight_desc: true };
+
+const oneOf =
+  <T extends string>(allowed: readonly T[]) =>
+  (raw: unknown): T | undefined =>
+    typeof raw === 'string' && (allowed as readonly string[]).includes(raw) ? (raw as T) : undefined;
+
+/** As the API reads a number from a query string: whatever `Number()` makes of it, whole and within 0…max. */
+const wholeNumber =
+  (max: number, min = 0) =>
+  (raw: unknown): number | undefined => {
+    const n = Number(raw);
+    return Number.isInteger(n) && n >= min && n <= max ? n : undefined;
+  };
+
+/**
+ * Each filter read as the API's shelf schema reads it. Plain code rather than the schema itself: the zod
+ * schemas are about 26 kB gzipped, and the shelf's first paint needs only these few checks. A test runs both
+ * over the same values and expects the same answers.
+ */
+const FILTER_READERS: { [K in (typeof SHELF_FILTER_KEYS)[number]]-?: (raw: unknown) => ShelfFilters[K] } = {
+  offer: (raw) => (typeof raw === 'string' && Object.hasOwn(OFFERS, raw) ? (raw as ShelfOffer) : undefined),
+  cut: oneOf(CUT_KINDS),
+  value: oneOf(COLOUR_VALUES),
+  family: oneOf(COLOUR_FAMILIES),
+  fibre: oneOf(FIBRES),
+  minGrams: wholeNumber(SHELF_FILTER_LIMITS.grams),
+  maxGrams: wholeNumber(SHELF_FILTER_LIMITS.grams),
+  maxPriceMinor: wholeNumber(SHELF_FILTER_LIMITS.priceMinor),
+  q: (raw) => {
+    if (typeof raw !== 'string') return undefined;
+    const words = raw.trim();
+    return words.length <= MAX_WORDS ? words : undefined;
+  },
+};
+
+/**
+ * Filters from any key/value source (an address, a wish's stored filters). Each value
+ * is checked on its own as the API would and dropped if refused, so an old or
+ * hand-edited link still opens the shelf with whatever it says that is valid.
+ */
+export function parseShelfFilters(get: (key: string) => unknown): ShelfFilters {
+  const filters: Record<string, unknown> = {};
+  for (const key of SHELF_FILTER_KEYS) {
+    const raw = get(key);
+    if (raw === null || raw === undefined || raw === '') continue;
+    const value = FILTER_READERS[key](raw);
+    if (value !== undefined && value !== '') filters[key] = value;
+  }
+  return filters as ShelfFilters;
+}
+
+export function readShelfSearch(params: URLSearchParams): ShelfSearch {
+  const sort = params.get('sort');
+  const page = params.get('page');
+  return {
+    filters: parseShelfFilters((key) => params.get(key)),
+    sort: sort !== null && Object.hasOwn(SORTS, sort) ? (sort as ShelfSort) : DEFAULT_SORT,
+    page: (page !== null && wholeNumber(MAX_PAGE, 1)(page)) || 1,
+  };
+}
+
+/** The address query for a search; defaults (newest first, page 1) are left out so links stay short. */
+export function shelfSearchParams({ filters, sort = DEFAULT_SORT, page = 1 }: Partial<ShelfSearch> & { filters: ShelfFilters }): URLSearchParams {
+  const params = new URLSearchParams();
+  for (const key of SHELF_FILTER_KEYS) {
+    const value = filters[key];
+    if (value !== undefined && value !== '') params.set(key, String(value));
+  }
+  if (sort !== DEFAULT_SORT) params.set('sort', sort);
+  if (page > 1) params.set('page', String(page));
+  return params;
+}
+
+/** Only the keys that hold something, as the API stores a wish. */
+export function compactFilters(filters: ShelfFilters): ShelfFilters {
+  return Object.fromEntries(Object.entries(filters).filter(([, value]) => value !== undefined && value !== '')) as ShelfFilters;
+}
+
+export const countFilters = (filters: ShelfFilters): number => Object.keys(compactFilters(filters)).length;
