@@ -30,9 +30,9 @@ export function preloadCardPhoto(card: Pick<BundleCard, 'thumbUrl' | 'thumb2xUrl
   link.href = card.thumbUrl;
   const srcSet = cardSrcSet(card);
   if (srcSet) {
-    link.imageSrcset = srcSet;
-    link.imageSizes = CARD_PHOTO_SIZES;
+    link.setAttribute('imagesrcset', srcSet);
+    link.setAttribute('imagesizes', CARD_PHOTO_SIZES);
   }
-  link.fetchPriority = 'high';
+  link.setAttribute('fetchpriority', 'high');
   document.head.append(link);
 }
