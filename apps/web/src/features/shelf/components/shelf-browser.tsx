@@ -82,7 +82,7 @@ export function ShelfBrowser({ units, currency, renderForFilters }: ShelfBrowser
   const resultsHeading = useRef<HTMLHeadingElement>(null);
   const results = useRef<HTMLElement>(null);
   const chosen = countFilters(search.filters);
-  // Opening the folded filters on a phone wants the form at once.
+  // The filter form and the wish panel load after the first photos, or at once when a phone opens the folded filters.
   const [extrasWanted, wantExtras] = useFirstPhotosSettled(results, !shelf.isPending);
 
   const showResults = () => {
