@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { BundleCard, Page, ShelfQuery } from '@scrap-relay/shared';
+import type { ShelfPage, ShelfQuery } from '@scrap-relay/shared';
 import { api } from '../../../lib/api-client.ts';
 import type { ShelfSearch } from '../../../utils/shelf-address.ts';
 
@@ -11,7 +11,7 @@ export const SHELF_PAGE_SIZE = 24;
 export const shelfQueryFor = ({ filters, sort, page }: ShelfSearch): ShelfQuery => ({ ...filters, sort, page, pageSize: SHELF_PAGE_SIZE });
 
 /** One page of bundles on the shelf; the API filters, sorts and pages. */
-export const getShelf = (query: ShelfQuery, { signal }: { signal?: AbortSignal } = {}): Promise<Page<BundleCard>> =>
+export const getShelf = (query: ShelfQuery, { signal }: { signal?: AbortSignal } = {}): Promise<ShelfPage> =>
   api.get('/bundles', { query: { ...query }, signal });
 
 export const getShelfQueryOptions = (query: ShelfQuery) =>

@@ -35,7 +35,7 @@ const card = (overrides: Partial<BundleCard> = {}): BundleCard => ({
 });
 
 /** The shelf API: answers every search with `page`, and records the query strings it was asked. */
-function serveShelf(page: Page<BundleCard>) {
+function serveShelf(page: Page<BundleCard> & { totalCapped?: boolean }) {
   const asked: URLSearchParams[] = [];
   vi.stubGlobal(
     'fetch',
@@ -62,6 +62,13 @@ async function openShelf(url: string) {
 const statusText = (root: HTMLElement) => [...root.querySelectorAll('[role="status"]')].map((el) => el.textContent).join(' | ');
 
 describe('the shelf', () => {
+  it('says "more than" when the API stopped counting at its cap', async () => {
+    serveShelf({ items: [card()], page: 1, pageSize: 24, total: 1000, totalCapped: true });
+    const { container } = await openShelf('/shelf');
+
+    await waitFor(() => expect(statusText(container)).toContain('Showing 1–1 of more than 1,000 bundles'));
+  });
+
   it('asks the API for what the address says and shows each bundle as a card', async () => {
     const asked = serveShelf({ items: [card()], page: 2, pageSize: 24, total: 25 });
     const { container } = await openShelf('/shelf?fibre=batik&page=2');

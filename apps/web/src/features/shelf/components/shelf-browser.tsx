@@ -1,4 +1,4 @@
-import type { BundleCard as BundleCardData, Page, ShelfFilters, UnitSystem } from '@scrap-relay/shared';
+import type { ShelfPage, ShelfFilters, UnitSystem } from '@scrap-relay/shared';
 import { lazy, Suspense, useEffect, useId, useRef, useState, type ReactNode, type RefObject } from 'react';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { Button, ButtonLink } from '../../../components/ui/button.tsx';
@@ -192,16 +192,16 @@ export function ShelfBrowser({ units, currency, renderForFilters }: ShelfBrowser
 }
 
 /** One line saying what is shown, read out as it changes. */
-function shelfStatus({ items, page, pageSize, total }: ShelfPage, updating: boolean, filtered: boolean): string {
+function shelfStatus({ items, page, pageSize, total, totalCapped }: ShelfPage, updating: boolean, filtered: boolean): string {
   if (updating) return 'Updating…';
   if (total === 0) return filtered ? 'No bundle matches these filters.' : 'The shelf is empty just now.';
   const pageCount = Math.ceil(total / pageSize);
   if (items.length === 0) return `There is no page ${page}; this search has ${pageCount === 1 ? 'one page' : `${pageCount} pages`}.`;
   const first = (page - 1) * pageSize + 1;
+  // The API stops counting at 1,000 matches; past that, the shelf says so instead of a number.
+  if (totalCapped) return `Showing ${first}–${first + items.length - 1} of more than ${total.toLocaleString('en')} bundles`;
   return `Showing ${first}–${first + items.length - 1} of ${total} ${total === 1 ? 'bundle' : 'bundles'}`;
 }
-
-type ShelfPage = Page<BundleCardData>;
 
 interface ResultsProps {
   shelf: ShelfPage;
