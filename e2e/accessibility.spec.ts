@@ -1,8 +1,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
-import { jpegPhoto } from '../tests/support/photos.ts';
-import { csrfHeaders, latestMailTo, shelvedThroughApi, signedInPage, signIn } from './support/index.ts';
+import { csrfHeaders, latestMailTo, shelvedThroughApi, signedInPage, signIn, submittedThroughApi } from './support/index.ts';
 
 /**
  * Every page of the product through axe-core, against WCAG 2.0, 2.1 and 2.2 A and
@@ -239,10 +238,9 @@ test('an order’s pages for buyer and giver, its handover sheet row and the che
   // Ruth gives a bundle at a meeting and Gus claims it: an order with nothing to pay, on a handover sheet.
   const title = `Scrap bag for the accessibility check (${test.info().project.name} ${Date.now()})`;
   const ruth = await signedInPage(browser, RUTH);
-  const ruthHeaders = await csrfHeaders(ruth);
-  const created = await ruth.request.post('/api/bundles', {
-    headers: ruthHeaders,
-    data: {
+  const bundleId = await submittedThroughApi(
+    ruth,
+    {
       title,
       description: 'Mixed cotton scraps, pressed, every pin taken out.',
       offer: 'meeting',
@@ -259,15 +257,8 @@ test('an order’s pages for buyer and giver, its handover sheet row and the che
       petFree: true,
       pieces: [],
     },
-  });
-  expect(created.status(), await created.text()).toBe(201);
-  const bundleId = ((await created.json()) as { bundle: { id: string } }).bundle.id;
-  const uploaded = await ruth.request.post(`/api/bundles/${bundleId}/photos`, {
-    headers: ruthHeaders,
-    multipart: { photos: { name: 'scraps.jpg', mimeType: 'image/jpeg', buffer: await jpegPhoto({ rgb: [150, 90, 120] }) } },
-  });
-  expect(uploaded.status(), await uploaded.text()).toBe(201);
-  expect((await ruth.request.post(`/api/bundles/${bundleId}/submit`, { headers: ruthHeaders })).status()).toBe(200);
+    { name: 'scraps.jpg', rgb: [150, 90, 120] },
+  );
 
   const lena = await signedInPage(browser, LENA);
   const approved = await lena.request.post(`/api/bundles/${bundleId}/review`, { headers: await csrfHeaders(lena), data: { decision: 'approve' } });
@@ -315,22 +306,6 @@ const scrapListing = (title: string, offer: 'sale' | 'starter') => ({
   petFree: true,
   pieces: [],
 });
-
-/** Lists a bundle with one photo and sends it for review, as the listing form would; returns its id. */
-async function submittedThroughApi(seller: Page, listing: Record<string, unknown>): Promise<string> {
-  const headers = await csrfHeaders(seller);
-  const created = await seller.request.post('/api/bundles', { headers, data: listing });
-  expect(created.status(), await created.text()).toBe(201);
-  const id = ((await created.json()) as { bundle: { id: string } }).bundle.id;
-  const uploaded = await seller.request.post(`/api/bundles/${id}/photos`, {
-    headers,
-    multipart: { photos: { name: 'scraps.jpg', mimeType: 'image/jpeg', buffer: await jpegPhoto({ rgb: [180, 110, 90] }) } },
-  });
-  expect(uploaded.status(), await uploaded.text()).toBe(201);
-  const submitted = await seller.request.post(`/api/bundles/${id}/submit`, { headers });
-  expect(submitted.status(), await submitted.text()).toBe(200);
-  return id;
-}
 
 // Desktop only: it empties the waiting list and takes back free starter bundles, which one run is enough of.
 test('the starter offer a new quilter opens from the e-mail, before and after passing it on', async ({ browser }) => {

@@ -1,7 +1,6 @@
 import { expect, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
-import { jpegPhoto } from '../tests/support/photos.ts';
-import { latestMailTo, screenshot, signedInPage } from './support/index.ts';
+import { latestMailTo, screenshot, signedInPage, submittedThroughApi } from './support/index.ts';
 
 /**
  * The starter programme end to end: Nell, a new quilter, finds no starter bundle
@@ -75,11 +74,10 @@ async function startWithNothingFree(browser: Browser, nell: Page, lena: Page) {
 }
 
 /** Ruth's donation: a starter bundle with one photo, sent for review; returns its id. */
-async function donateStarterBundle(ruth: Page, title: string): Promise<string> {
-  const headers = await csrf(ruth.request);
-  const created = await ruth.request.post('/api/bundles', {
-    headers,
-    data: {
+function donateStarterBundle(ruth: Page, title: string): Promise<string> {
+  return submittedThroughApi(
+    ruth,
+    {
       title,
       description: 'Cotton squares and strips from a sampler; every pin taken out.',
       offer: 'starter',
@@ -96,17 +94,8 @@ async function donateStarterBundle(ruth: Page, title: string): Promise<string> {
       petFree: true,
       pieces: [],
     },
-  });
-  expect(created.status(), await created.text()).toBe(201);
-  const id = ((await created.json()) as { bundle: { id: string } }).bundle.id;
-  const uploaded = await ruth.request.post(`/api/bundles/${id}/photos`, {
-    headers,
-    multipart: { photos: { name: 'starter-squares.jpg', mimeType: 'image/jpeg', buffer: await jpegPhoto({ rgb: [200, 120, 80] }) } },
-  });
-  expect(uploaded.status(), await uploaded.text()).toBe(201);
-  const submitted = await ruth.request.post(`/api/bundles/${id}/submit`, { headers });
-  expect(submitted.status(), await submitted.text()).toBe(200);
-  return id;
+    { name: 'starter-squares.jpg', rgb: [200, 120, 80] },
+  );
 }
 
 /** A datetime-local value two weeks ahead at 7 pm, in this machine's (and so the browser's) time zone. */

@@ -24,6 +24,26 @@ export async function csrfHeaders(page: Page): Promise<Record<string, string>> {
   return { 'X-CSRF-Token': ((await session.json()) as { csrfToken: string }).csrfToken };
 }
 
+/** A bundle listed with one photo and sent for review through the API, as the listing form would; returns its id. */
+export async function submittedThroughApi(
+  seller: Page,
+  listing: Record<string, unknown>,
+  photo: { name: string; rgb: [number, number, number] } = { name: 'scraps.jpg', rgb: [180, 110, 90] },
+): Promise<string> {
+  const headers = await csrfHeaders(seller);
+  const created = await seller.request.post('/api/bundles', { headers, data: listing });
+  expect(created.status(), await created.text()).toBe(201);
+  const id = ((await created.json()) as { bundle: { id: string } }).bundle.id;
+  const uploaded = await seller.request.post(`/api/bundles/${id}/photos`, {
+    headers,
+    multipart: { photos: { name: photo.name, mimeType: 'image/jpeg', buffer: await jpegPhoto({ rgb: photo.rgb }) } },
+  });
+  expect(uploaded.status(), await uploaded.text()).toBe(201);
+  const submitted = await seller.request.post(`/api/bundles/${id}/submit`, { headers });
+  expect(submitted.status(), await submitted.text()).toBe(200);
+  return id;
+}
+
 /**
  * A bundle put on the shelf through the API, as the listing form and the review queue
  * would: the seller lists it with one photo and submits it, the librarian approves it.
@@ -33,16 +53,7 @@ export async function shelvedThroughApi(
   opts: { sellerEmail: string; librarianEmail: string; listing: Record<string, unknown>; photoRgb: [number, number, number]; photoName: string },
 ): Promise<string> {
   const seller = await signedInPage(browser, opts.sellerEmail);
-  const headers = await csrfHeaders(seller);
-  const created = await seller.request.post('/api/bundles', { headers, data: opts.listing });
-  expect(created.status(), await created.text()).toBe(201);
-  const id = ((await created.json()) as { bundle: { id: string } }).bundle.id;
-  const uploaded = await seller.request.post(`/api/bundles/${id}/photos`, {
-    headers,
-    multipart: { photos: { name: opts.photoName, mimeType: 'image/jpeg', buffer: await jpegPhoto({ rgb: opts.photoRgb }) } },
-  });
-  expect(uploaded.status(), await uploaded.text()).toBe(201);
-  expect((await seller.request.post(`/api/bundles/${id}/submit`, { headers })).status()).toBe(200);
+  const id = await submittedThroughApi(seller, opts.listing, { name: opts.photoName, rgb: opts.photoRgb });
   await seller.context().close();
 
   const librarian = await signedInPage(browser, opts.librarianEmail);
