@@ -7,6 +7,7 @@ import {
   type BundleView,
   type UnitSystem,
 } from '@scrap-relay/shared';
+import { photoSrcSet } from '../../../utils/photo-sources.ts';
 
 /** "Fat quarters, Strips (by width)" — the cut kinds as the listing form names them. */
 export const cutKindsText = (bundle: Pick<BundleView, 'cutKinds'>): string => bundle.cutKinds.map((kind) => CUT_KIND_LABELS[kind]).join(', ');
@@ -49,7 +50,13 @@ export function BundleContents({ bundle, units }: { bundle: BundleView; units: U
   );
 }
 
-/** The bundle's first photo, or a plain panel saying there is none. */
+/**
+ * Starter pages put the photo in one column of two from 640 px (inside a panel, beside the menu from 1080 px),
+ * so these slot widths are upper bounds: the browser may fetch one size larger than it needs, never a blurry one.
+ */
+const STARTER_PHOTO_SIZES = '(min-width: 1080px) 40vw, (min-width: 640px) 50vw, 100vw';
+
+/** The bundle's first photo (every stored size, the browser picks), or a plain panel saying there is none. */
 export function BundlePhoto({ bundle, large = false }: { bundle: BundleView; large?: boolean }) {
   const photo = bundle.photos[0];
   if (!photo) {
@@ -58,6 +65,8 @@ export function BundlePhoto({ bundle, large = false }: { bundle: BundleView; lar
   return (
     <img
       src={large ? photo.url : photo.thumbUrl}
+      srcSet={photoSrcSet(photo)}
+      sizes={STARTER_PHOTO_SIZES}
       alt={`Photo of the starter bundle “${bundle.title}”`}
       width={photo.width}
       height={photo.height}

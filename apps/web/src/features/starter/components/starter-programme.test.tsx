@@ -29,6 +29,17 @@ const starterBundle = (): BundleView =>
     disclosures: { smokeFree: true, petFree: false },
     seller: { id: 's-1', firstName: 'Mabel', rehomedCount: 3, returnedCount: 0 },
     onShelfAt: '2031-03-01T10:00:00Z',
+    photos: [
+      {
+        id: 'p-1',
+        url: '/uploads/photos/p-1-1600.webp',
+        mediumUrl: '/uploads/photos/p-1-800.webp',
+        thumbUrl: '/uploads/photos/p-1-400.webp',
+        width: 1600,
+        height: 1200,
+        averageHex: '#b8c4d0',
+      },
+    ],
     abilities: { edit: false, submit: false, withdraw: false, relist: false, review: false, buy: false, claim: true },
   });
 
@@ -75,6 +86,9 @@ describe('claiming a starter bundle', () => {
     expect(container.textContent).toContain('Lawn / voile');
     expect(container.textContent).toContain('300 g');
     expect(container.textContent).toContain('pets live there');
+    // Every stored size is offered, so a phone with a sharp screen is not shown the 400 px thumbnail blown up.
+    const photo = container.querySelector('img[alt^="Photo of the starter bundle"]');
+    expect(photo?.getAttribute('srcset')).toBe('/uploads/photos/p-1-400.webp 400w, /uploads/photos/p-1-800.webp 800w, /uploads/photos/p-1-1600.webp 1600w');
 
     await click(buttonNamed(container, /^Claim/));
     const select = await waitFor(() => {
