@@ -1,32 +1,15 @@
 // @vitest-environment happy-dom
 import type { BundleCard, Page } from '@scrap-relay/shared';
-import { estimateYield } from '@scrap-relay/shared';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { getSessionQueryOptions } from '../features/auth/api/get-session.ts';
 import { getShelfQueryOptions, shelfQueryFor } from '../features/shelf/api/get-shelf.ts';
 import { CARD_PHOTO_SIZES } from '../features/shelf/utils/card-photo.ts';
-import { jsonResponse, makeSession, makeUser } from '../testing/fixtures.ts';
+import { jsonResponse, makeBundleCard, makeSession, makeUser } from '../testing/fixtures.ts';
 import { readShelfSearch } from '../utils/shelf-address.ts';
 import { followSignedIn, startFirstPage } from './first-page.ts';
 import { makeQueryClient } from './provider.tsx';
 
-const card: BundleCard = {
-  id: 'b-1',
-  title: 'Indigo batik strips',
-  offer: 'sale',
-  priceMinor: 1200,
-  currency: 'USD',
-  meetingHandoverOk: false,
-  quantityAvailable: 1,
-  weightGrams: 454,
-  fibre: 'batik',
-  cutKinds: ['strips'],
-  colour: { value: 'dark', family: 'cool' },
-  thumbUrl: '/uploads/photos/b-1-400.webp',
-  thumb2xUrl: '/uploads/photos/b-1-800.webp',
-  yield: estimateYield({ grams: 454, fibre: 'batik' }),
-  onShelfAt: '2026-03-01T10:00:00.000Z',
-};
+const card = makeBundleCard();
 
 /** The API: the session says whether a member is signed in; the shelf answers one card. Records what was asked. */
 function serveApi({ signedIn }: { signedIn: boolean }) {

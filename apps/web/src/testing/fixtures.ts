@@ -1,4 +1,5 @@
-import type { BundleView, GuildSummary, MemberRow, SessionResponse, SessionUser, UserAbilities } from '@scrap-relay/shared';
+import type { BundleCard, BundleView, GuildSummary, MemberRow, SessionResponse, SessionUser, UserAbilities } from '@scrap-relay/shared';
+import { estimateYield } from '@scrap-relay/shared';
 
 /** Invented people and an invented guild for unit tests; each test states what differs from these. */
 
@@ -58,6 +59,28 @@ export const jsonResponse = (status: number, body?: unknown): Response =>
     status,
     headers: body === undefined ? {} : { 'Content-Type': 'application/json' },
   });
+
+/** A sale bundle as a shelf card (one item of GET /api/bundles), with a thumbnail and its medium size. */
+export function makeBundleCard(overrides: Partial<BundleCard> = {}): BundleCard {
+  return {
+    id: 'b-1',
+    title: 'Indigo batik strips',
+    offer: 'sale',
+    priceMinor: 1200,
+    currency: 'USD',
+    meetingHandoverOk: false,
+    quantityAvailable: 1,
+    weightGrams: 454,
+    fibre: 'batik',
+    cutKinds: ['strips'],
+    colour: { value: 'dark', family: 'cool' },
+    thumbUrl: '/uploads/photos/b-1-400.webp',
+    thumb2xUrl: '/uploads/photos/b-1-800.webp',
+    yield: estimateYield({ grams: 454, fibre: 'batik' }),
+    onShelfAt: '2026-03-01T10:00:00.000Z',
+    ...overrides,
+  };
+}
 
 /** A sale bundle on the shelf, as GET /api/bundles/:id presents it to a member who may buy it. */
 export function makeBundleView(overrides: Partial<BundleView> = {}): BundleView {

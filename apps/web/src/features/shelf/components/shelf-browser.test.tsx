@@ -1,12 +1,11 @@
 // @vitest-environment happy-dom
 import type { BundleCard, Page } from '@scrap-relay/shared';
-import { estimateYield } from '@scrap-relay/shared';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { act } from 'react';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { createQueryClient } from '../../../lib/react-query.ts';
-import { jsonResponse } from '../../../testing/fixtures.ts';
+import { jsonResponse, makeBundleCard } from '../../../testing/fixtures.ts';
 import { buttonNamed, byLabel, cleanup, click, render, typeInto, waitFor } from '../../../testing/render.tsx';
 import { ShelfBrowser } from './shelf-browser.tsx';
 
@@ -15,24 +14,7 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-const card = (overrides: Partial<BundleCard> = {}): BundleCard => ({
-  id: 'b-1',
-  title: 'Indigo batik strips',
-  offer: 'sale',
-  priceMinor: 1200,
-  currency: 'USD',
-  meetingHandoverOk: false,
-  quantityAvailable: 1,
-  weightGrams: 454,
-  fibre: 'batik',
-  cutKinds: ['strips'],
-  colour: { value: 'dark', family: 'cool' },
-  thumbUrl: '/uploads/photos/b-1-400.webp',
-  thumb2xUrl: '/uploads/photos/b-1-800.webp',
-  yield: estimateYield({ grams: 454, fibre: 'batik' }),
-  onShelfAt: '2026-03-01T10:00:00.000Z',
-  ...overrides,
-});
+const card = makeBundleCard;
 
 /** The shelf API: answers every search with `page`, and records the query strings it was asked. */
 function serveShelf(page: Page<BundleCard> & { totalCapped?: boolean }) {
