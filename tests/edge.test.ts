@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createMember, signedInClient, startTestApi, type Client, type TestApi } from './support/api.ts';
+import { Writable } from 'node:stream';
+import { pino } from 'pino';
+import { appWith, createMember, signedInClient, startTestApi, type Client, type TestApi } from './support/api.ts';
 
 let api: TestApi;
 let client: Client;
@@ -36,5 +38,30 @@ describe('the hardened edge', () => {
     expect(res.status).toBe(404);
     expect(JSON.stringify(res.body)).not.toMatch(/stack|at \/|sequelize|SELECT/i);
     expect(res.headers['x-request-id']).toBeTruthy();
+  });
+
+  it('logs each request without its cookies or the secret of an e-mailed link', async () => {
+    const lines: string[] = [];
+    const sink = new Writable({
+      write(chunk: Buffer, _encoding, done) {
+        lines.push(...chunk.toString('utf8').split('\n').filter(Boolean));
+        done();
+      },
+    });
+    const logged = appWith(api, (config) => config, { logger: pino({ level: 'info' }, sink) });
+    const member = await signedInClient(logged, await createMember());
+    await member.get('/api/session').expect(200);
+    await member.get('/api/bundles?q=strips&token=not-for-logs');
+
+    const entries = lines.map((line) => JSON.parse(line) as { req?: { method: string; url: string }; res?: { statusCode: number } });
+    const completed = entries.filter((entry) => entry.req && entry.res);
+    expect(completed.map((entry) => `${entry.req!.method} ${entry.req!.url} ${entry.res!.statusCode}`)).toEqual(
+      expect.arrayContaining(['GET /api/session 200', 'POST /api/session 200']),
+    );
+    expect(completed.map((entry) => entry.req!.url)).toContain('/api/bundles?q=strips&token=[redacted]');
+    const text = lines.join('\n');
+    expect(text).not.toMatch(/sr\.sid|cookie|set-cookie|x-csrf-token/i);
+    expect(text).not.toContain('not-for-logs');
+    expect(text).not.toContain(member.csrfToken);
   });
 });

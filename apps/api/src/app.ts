@@ -2,14 +2,13 @@ import path from 'node:path';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import compression from 'compression';
-import { pinoHttp } from 'pino-http';
-import { randomUUID } from 'node:crypto';
 import type pg from 'pg';
 import { configurePassport } from './auth/passport.ts';
 import { sessionMiddleware } from './auth/session.ts';
 import type { AppContext } from './context.ts';
 import { errorHandler, notFoundHandler } from './errors/index.ts';
 import { csrfProtection } from './middleware/csrf.ts';
+import { requestLog } from './middleware/request-log.ts';
 import { guildRoutes } from './modules/guild/guild.routes.ts';
 import { healthRoutes } from './modules/health/health.routes.ts';
 import { membersRoutes } from './modules/members/members.routes.ts';
@@ -33,17 +32,7 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   if (ctx.config.trustProxy) app.set('trust proxy', ctx.config.trustProxy);
   app.disable('x-powered-by');
 
-  app.use(
-    pinoHttp({
-      logger: ctx.logger,
-      genReqId: (req, res) => {
-        const id = (req.headers['x-request-id'] as string | undefined) ?? randomUUID();
-        res.setHeader('X-Request-Id', id);
-        return id;
-      },
-      autoLogging: { ignore: (req) => req.url === '/api/health' },
-    }),
-  );
+  app.use(requestLog(ctx.logger));
   app.use(
     helmet({
       contentSecurityPolicy: {
