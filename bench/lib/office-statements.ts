@@ -7,7 +7,7 @@
 import { dashboardQuerySchema } from '@scrap-relay/shared';
 import { dashboardStatement } from '../../apps/api/src/modules/office/dashboard.service.ts';
 import { monthStatementStatement } from '../../apps/api/src/modules/office/reports.service.ts';
-import type { OfficeStatement as NamedStatement } from '../../apps/api/src/modules/office/office.statements.ts';
+import type { NamedStatement } from '../../apps/api/src/db/named-statement.ts';
 
 export interface OfficeStatement extends NamedStatement {
   /** The statement's opening words, whitespace folded, to tell statements apart in the output. */

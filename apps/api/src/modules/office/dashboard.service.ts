@@ -1,7 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import type { DashboardFigures, DashboardQuery } from '@scrap-relay/shared';
 import { AppError } from '../../errors/index.ts';
-import { runOfficeStatement, type OfficeStatement } from './office.statements.ts';
+import { runNamedStatement, type NamedStatement } from '../../db/named-statement.ts';
 
 /** The period as [from, to) timestamps; null ends are open. Months and years are the calendar's, in UTC. */
 export function periodBounds(q: DashboardQuery, now: Date): { from: Date | null; to: Date | null; label: string } {
@@ -35,7 +35,7 @@ interface FiguresRow {
 }
 
 /**
- * One statement for every figure and the guild's currency, named (see office.statements.ts).
+ * One statement for every figure and the guild's currency, named (see db/named-statement.ts).
  * What is added up comes from office_tallies (migration 20261202120000-office-tallies.ts: per-day, per-month and running totals that triggers keep
  * exact in the same transaction as each change), so a period is a sum over at most a few
  * hundred rows whatever the guild's history. The rule is the one the figures always had: a
@@ -50,7 +50,7 @@ interface FiguresRow {
  * where the middle two round to different tenths, the last review time of the lower tenth and
  * the first of the higher, interpolated as percentile_cont does.
  */
-export function dashboardStatement(q: DashboardQuery, now: Date): { statement: OfficeStatement; period: DashboardFigures['period'] } {
+export function dashboardStatement(q: DashboardQuery, now: Date): { statement: NamedStatement; period: DashboardFigures['period'] } {
   const { from, to, label } = periodBounds(q, now);
   return {
     statement: { name: 'office-dashboard-figures', text: DASHBOARD_SQL, values: [from, to, chartStart(now)] },
@@ -105,7 +105,7 @@ const DASHBOARD_SQL = `SELECT
 
 export async function dashboardFigures(sequelize: Sequelize, q: DashboardQuery, now: Date, withMoney: boolean): Promise<DashboardFigures> {
   const { statement, period } = dashboardStatement(q, now);
-  const [row] = await runOfficeStatement<FiguresRow>(sequelize, statement);
+  const [row] = await runNamedStatement<FiguresRow>(sequelize, statement);
   if (row!.currency === null) throw new AppError(503, 'service_unavailable', 'The guild has not been set up yet: run the migrations and the set-up.');
   const tallies = row!.tallies ?? [];
   const total = (figure: string, key?: string) =>

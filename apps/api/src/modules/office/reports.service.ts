@@ -1,7 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { MonthStatement } from '@scrap-relay/shared';
 import { AppError } from '../../errors/index.ts';
-import { runOfficeStatement, type OfficeStatement } from './office.statements.ts';
+import { runNamedStatement, type NamedStatement } from '../../db/named-statement.ts';
 
 interface StatementRow {
   currency: string | null;
@@ -29,8 +29,8 @@ const STATEMENT_SQL = `SELECT
               HAVING sum(r.amount) <> 0) b
         JOIN members m ON m.id = substring(b.account from 8)::uuid) AS balances`;
 
-/** The statement GET /api/reports/statement sends for a month (YYYY-MM), named (see office.statements.ts). */
-export function monthStatementStatement(month: string): OfficeStatement {
+/** The statement GET /api/reports/statement sends for a month (YYYY-MM), named (see db/named-statement.ts). */
+export function monthStatementStatement(month: string): NamedStatement {
   const from = new Date(`${month}-01T00:00:00Z`);
   const to = new Date(Date.UTC(from.getUTCFullYear(), from.getUTCMonth() + 1, 1));
   return { name: 'office-month-statement', text: STATEMENT_SQL, values: [from, to, to.toISOString().slice(0, 10)] };
@@ -45,7 +45,7 @@ export function monthStatementStatement(month: string): OfficeStatement {
  * currency comes in the same statement.
  */
 export async function monthStatement(sequelize: Sequelize, month: string): Promise<MonthStatement> {
-  const [row] = await runOfficeStatement<StatementRow>(sequelize, monthStatementStatement(month));
+  const [row] = await runNamedStatement<StatementRow>(sequelize, monthStatementStatement(month));
   if (row!.currency === null) throw new AppError(503, 'service_unavailable', 'The guild has not been set up yet: run the migrations and the set-up.');
   const total = (key: string) => row!.totals?.find((t) => t.key === key)?.amount ?? 0;
   const balances = row!.balances ?? [];
