@@ -104,6 +104,44 @@ describe('listing, review and the shelf', () => {
     expect(thumb.headers['cache-control']).toMatch(/max-age=31536000/);
   });
 
+  it('pages through the shelf: later pages continue where the page before stopped, under the same count', async () => {
+    const word = `Quillwort${Date.now().toString(36)}`;
+    for (let i = 0; i < 5; i++) {
+      const id = await listAndSubmit(sellerClient, { title: `${word} offcuts ${i}`, priceMinor: 500 + i * 100 });
+      expect((await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'approve' })).status).toBe(200);
+    }
+    const idsOf = (res: { body: { items: { id: string }[] } }) => res.body.items.map((b) => b.id);
+
+    // A text search (an unnamed statement) and a filtered price sort (a prepared one): page 1 in one
+    // piece against the same bundles fetched two or three at a time; pages past the first read ids first.
+    for (const [query, size] of [
+      [`q=${word}`, 2],
+      [`q=${word}&sort=price_desc`, 2],
+      ['fibre=quilting_cotton&sort=price_asc', 3],
+    ] as const) {
+      const whole = await buyerClient.get(`/api/bundles?${query}&pageSize=60`);
+      expect(whole.status).toBe(200);
+      const total = whole.body.total as number;
+      expect(total).toBeGreaterThanOrEqual(5);
+      const pages = Math.min(3, Math.ceil(total / size));
+      const pieced: string[] = [];
+      for (let page = 1; page <= pages; page++) {
+        const res = await buyerClient.get(`/api/bundles?${query}&pageSize=${size}&page=${page}`);
+        expect(res.status).toBe(200);
+        expect(res.body).toMatchObject({ page, pageSize: size, total, totalCapped: false });
+        for (const card of res.body.items) expect(card.thumbUrl).toMatch(/^\/uploads\/photos\//);
+        pieced.push(...idsOf(res));
+      }
+      expect(pieced).toEqual(idsOf(whole).slice(0, pages * size));
+    }
+
+    const prices = (await buyerClient.get(`/api/bundles?q=${word}&sort=price_desc&pageSize=2&page=2`)).body.items.map((b: { priceMinor: number }) => b.priceMinor);
+    expect(prices).toEqual([700, 600]);
+    const beyond = await buyerClient.get(`/api/bundles?q=${word}&pageSize=2&page=4`);
+    expect(beyond.status).toBe(200);
+    expect(beyond.body).toMatchObject({ items: [], page: 4, total: 5, totalCapped: false });
+  });
+
   it('returns a bundle with notes: the seller is e-mailed, edits and resubmits', async () => {
     const id = await listAndSubmit(sellerClient, { title: 'Batik bits <b>bold</b>' });
     const noNotes = await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'return' });

@@ -60,25 +60,30 @@ export const SHELF_COUNT_CAP = 1000;
  * the rows an OFFSET skips. Counting stops at the cap: past it the shelf says "more than 1,000",
  * and nobody pages that far.
  *
- * Its text depends only on which filters are set and on the sort, so it is named after its text
- * and prepared once per connection (a few dozen shapes in practice, out of 512 × 5 possible);
- * every value, the page size and offset included, is a bind parameter. A text search stays
- * unnamed: how many bundles a word matches decides the plan, and a generic plan, made without
- * the words, counted matches 10 to 50 times slower in the benchmark.
+ * Its text depends only on which filters are set, on the sort and on whether it is the first page,
+ * so it is named after its text and prepared once per connection (a few dozen shapes in practice,
+ * out of 512 filter sets × 5 sorts × 2); every value, the page size and offset included, is a
+ * bind parameter. A text search stays unnamed: how many bundles a word matches decides the plan,
+ * and a generic plan, made without the words, counted matches 10 to 50 times slower in the
+ * benchmark.
  */
 export function shelfStatement(q: ShelfQuery): NamedStatement {
   const where = whereClause(q);
   const limit = `$${where.bind.length + 1}`;
   const offset = `$${where.bind.length + 2}`;
+  const columns = `b.id, b.title, b.offer, b.price_minor, b.currency, b.meeting_handover_ok, b.quantity_available, b.weight_grams,
+              b.fibre, b.cut_kinds, b.colour_value, b.colour_family, b.on_shelf_at`;
+  const ordered = `WHERE ${where.sql} ORDER BY ${ORDER_BY[q.sort]} LIMIT ${limit} OFFSET ${offset}`;
+  // Past the first page, the page's ids come first and then its rows: where an index holds every
+  // column the filters and the sort need, the rows an OFFSET skips are never read from the table.
+  const page =
+    q.page === 1
+      ? `page AS (SELECT ${columns} FROM bundles b ${ordered})`
+      : `page_ids AS (SELECT b.id FROM bundles b ${ordered}),
+     page AS (SELECT ${columns} FROM page_ids JOIN bundles b ON b.id = page_ids.id)`;
   const text = `WITH counted AS (
        SELECT count(*)::int AS total FROM (SELECT 1 FROM bundles b WHERE ${where.sql} LIMIT ${SHELF_COUNT_CAP + 1}) capped
-     ), page AS (
-       SELECT b.id, b.title, b.offer, b.price_minor, b.currency, b.meeting_handover_ok, b.quantity_available, b.weight_grams,
-              b.fibre, b.cut_kinds, b.colour_value, b.colour_family, b.on_shelf_at
-       FROM bundles b WHERE ${where.sql}
-       ORDER BY ${ORDER_BY[q.sort]}
-       LIMIT ${limit} OFFSET ${offset}
-     )
+     ), ${page}
      SELECT counted.total, b.*, photo.thumb_key, photo.medium_key
      FROM counted
      LEFT JOIN page b ON true
