@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Guild, Member } from '../apps/api/src/db/models/index.ts';
+import { loadGuild } from '../apps/api/src/modules/guild/guild.service.ts';
 import { Client, createMember, signedInClient, startTestApi, TEST_INVITE_CODE, TEST_PASSWORD, uniqueEmail, type TestApi } from './support/api.ts';
 
 let api: TestApi;
@@ -124,6 +125,13 @@ describe('guild settings and the invite code', () => {
     expect(res.body.settings).toMatchObject({ newcomerWindowMonths: 6, defaultUnits: 'metric' });
     expect((await adminClient.get('/api/session')).body.guild).toMatchObject({ name: 'Millbrook Scrap Circle', defaultUnits: 'metric' });
     await adminClient.send('put', '/api/guild/settings', validSettings);
+  });
+
+  it('reads the guild by its prepared statement exactly as the model finder does', async () => {
+    const [prepared, found] = await Promise.all([loadGuild(), Guild.findByPk(1)]);
+    expect(prepared.toJSON()).toEqual(found!.toJSON());
+    expect(prepared.isNewRecord).toBe(false);
+    expect(prepared.changed()).toBe(false);
   });
 
   it('refuses a bad document naming the field, and changes nothing', async () => {

@@ -60,7 +60,8 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   api.use(express.json({ limit: '100kb', strict: true }));
   api.use(sessionMiddleware(ctx.config, pool));
   const passport = configurePassport();
-  api.use(passport.initialize());
+  // No compatibility shim for passport 0.4-era strategies (req._passport): passport-local does not need it.
+  api.use(passport.initialize({ compat: false }));
   api.use(passport.session());
   api.use(csrfProtection(['/stripe/webhook']));
   api.use(sessionRoutes(ctx, pool));

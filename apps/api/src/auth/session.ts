@@ -4,6 +4,7 @@ import type { Request } from 'express';
 import type pg from 'pg';
 import type { InferCreationAttributes } from 'sequelize';
 import type { Config } from '../config/index.ts';
+import { modelColumns } from '../db/model-columns.ts';
 import { Member } from '../db/models/index.ts';
 
 declare module 'express-session' {
@@ -27,14 +28,10 @@ type StoredSession = session.SessionData & { [MEMBER_ROW]?: Record<string, unkno
 function sessionStore(pool: pg.Pool) {
   const PgStore = connectPgSimple(session);
   let statement: string | undefined;
-  const memberColumns = () =>
-    Object.entries(Member.getAttributes())
-      .map(([name, attribute]) => `m."${attribute.field ?? name}" AS "m.${name}"`)
-      .join(', ');
 
   return new (class extends PgStore {
     override get(sid: string, done: (err: unknown, sess?: session.SessionData | null) => void) {
-      statement ??= `SELECT s.sess, ${memberColumns()}
+      statement ??= `SELECT s.sess, ${modelColumns(Member, { alias: 'm', prefix: 'm.' })}
         FROM session s LEFT JOIN members m ON m.id = (s.sess #>> '{passport,user}')::uuid
         WHERE s.sid = $1 AND s.expire >= to_timestamp($2)`;
       pool

@@ -1,6 +1,9 @@
 import { randomInt } from 'node:crypto';
 import type { GuildSettings } from '@scrap-relay/shared';
+import type { InferCreationAttributes } from 'sequelize';
+import { modelColumns } from '../../db/model-columns.ts';
 import { Guild } from '../../db/models/index.ts';
+import { runNamedStatement, type NamedStatement } from '../../db/named-statement.ts';
 import { AppError } from '../../errors/index.ts';
 
 const CODE_ALPHABET = 'ABCDEFGHJKLMNPQRSTUVWXYZ23456789';
@@ -11,10 +14,14 @@ export function newInviteCode(): string {
   return `${part()}-${part()}`;
 }
 
+let guildStatement: NamedStatement | undefined;
+
+/** The guild, read on most requests (every GET /api/session among them), by a statement prepared once per connection. */
 export async function loadGuild(): Promise<Guild> {
-  const guild = await Guild.findByPk(1);
-  if (!guild) throw new AppError(503, 'service_unavailable', 'The guild has not been set up yet: run the migrations and the set-up.');
-  return guild;
+  guildStatement ??= { name: 'guild', text: `SELECT ${modelColumns(Guild)} FROM guild WHERE id = 1`, values: [] };
+  const [row] = await runNamedStatement<InferCreationAttributes<Guild>>(Guild.sequelize!, guildStatement);
+  if (!row) throw new AppError(503, 'service_unavailable', 'The guild has not been set up yet: run the migrations and the set-up.');
+  return Guild.build(row, { isNewRecord: false, raw: true });
 }
 
 export function settingsOf(guild: Guild): GuildSettings {
