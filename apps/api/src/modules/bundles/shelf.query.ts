@@ -58,7 +58,7 @@ export const SHELF_COUNT_CAP = 1000;
  * The one statement behind a page of the shelf: the capped count, the page, and each page bundle's
  * first photo, in one round trip. The photo is looked up only for the rows of the page, never for
  * the rows an OFFSET skips. Counting stops at the cap: past it the shelf says "more than 1,000",
- * and nobody pages that far.
+ * and offers a next page as long as pages come back full.
  *
  * Its text depends only on which filters are set, on the sort and on whether it is the first page,
  * so it is named after its text and prepared once per connection (a few dozen shapes in practice,

@@ -51,6 +51,28 @@ describe('the shelf', () => {
     await waitFor(() => expect(statusText(container)).toContain('Showing 1–1 of more than 1,000 bundles'));
   });
 
+  it('keeps a next page past the count cap while pages come back full', async () => {
+    const full = Array.from({ length: 24 }, (_, i) => card({ id: `b-${i}`, title: `Bundle ${i}` }));
+    serveShelf({ items: full, page: 42, pageSize: 24, total: 1000, totalCapped: true });
+    const { container } = await openShelf('/shelf?page=42');
+
+    await waitFor(() => expect(statusText(container)).toContain('Showing 985–1,008 of more than 1,000 bundles'));
+    expect(container.textContent).toContain('Page 42 of 42 or more');
+    const next = [...container.querySelectorAll('a')].find((a) => a.textContent?.includes('Next page'));
+    expect(next?.getAttribute('href')).toBe('/shelf?page=43');
+  });
+
+  it('counts the page shown among the pages past the cap, and steps back one page from it', async () => {
+    const full = Array.from({ length: 24 }, (_, i) => card({ id: `b-${i}`, title: `Bundle ${i}` }));
+    serveShelf({ items: full, page: 50, pageSize: 24, total: 1000, totalCapped: true });
+    const { container } = await openShelf('/shelf?page=50');
+
+    await waitFor(() => expect(container.textContent).toContain('Page 50 of 50 or more'));
+    const links = [...container.querySelectorAll('a')];
+    expect(links.find((a) => a.textContent?.includes('Previous page'))?.getAttribute('href')).toBe('/shelf?page=49');
+    expect(links.find((a) => a.textContent?.includes('Next page'))?.getAttribute('href')).toBe('/shelf?page=51');
+  });
+
   it('asks the API for what the address says and shows each bundle as a card', async () => {
     const asked = serveShelf({ items: [card()], page: 2, pageSize: 24, total: 25 });
     const { container } = await openShelf('/shelf?fibre=batik&page=2');

@@ -198,9 +198,10 @@ function shelfStatus({ items, page, pageSize, total, totalCapped }: ShelfPage, u
   const pageCount = Math.ceil(total / pageSize);
   if (items.length === 0) return `There is no page ${page}; this search has ${pageCount === 1 ? 'one page' : `${pageCount} pages`}.`;
   const first = (page - 1) * pageSize + 1;
+  const shown = `${first.toLocaleString('en')}–${(first + items.length - 1).toLocaleString('en')}`;
   // The API stops counting at 1,000 matches; past that, the shelf says so instead of a number.
-  if (totalCapped) return `Showing ${first}–${first + items.length - 1} of more than ${total.toLocaleString('en')} bundles`;
-  return `Showing ${first}–${first + items.length - 1} of ${total} ${total === 1 ? 'bundle' : 'bundles'}`;
+  if (totalCapped) return `Showing ${shown} of more than ${total.toLocaleString('en')} bundles`;
+  return `Showing ${shown} of ${total} ${total === 1 ? 'bundle' : 'bundles'}`;
 }
 
 interface ResultsProps {
@@ -214,8 +215,12 @@ interface ResultsProps {
 }
 
 function Results({ shelf, units, updating, filtered, pageHref, onPage, onClear }: ResultsProps) {
-  const { items, page, pageSize, total } = shelf;
+  const { items, page, pageSize, total, totalCapped } = shelf;
   const pageCount = Math.max(1, Math.ceil(total / pageSize));
+  // Past the count's cap the last page is unknown: there are at least as many pages as the one shown,
+  // and a full page may have more after it.
+  const knownPages = totalCapped ? Math.max(page, pageCount) : pageCount;
+  const hasNext = page < knownPages || (totalCapped && items.length === pageSize);
 
   return (
     <div className="space-y-4">
@@ -248,19 +253,20 @@ function Results({ shelf, units, updating, filtered, pageHref, onPage, onClear }
         </ul>
       ) : null}
 
-      {pageCount > 1 ? (
+      {knownPages > 1 || hasNext ? (
         <nav aria-label="Shelf pages" className="flex flex-wrap items-center justify-between gap-3">
           {page > 1 ? (
-            <ButtonLink to={pageHref(Math.min(page - 1, pageCount))} variant="secondary" onClick={onPage}>
+            <ButtonLink to={pageHref(Math.min(page - 1, knownPages))} variant="secondary" onClick={onPage}>
               ← Previous page
             </ButtonLink>
           ) : (
             <span />
           )}
           <p className="font-semibold">
-            Page {Math.min(page, pageCount)} of {pageCount}
+            Page {Math.min(page, knownPages)} of {knownPages}
+            {totalCapped ? ' or more' : ''}
           </p>
-          {page < pageCount ? (
+          {hasNext ? (
             <ButtonLink to={pageHref(page + 1)} variant="secondary" onClick={onPage}>
               Next page →
             </ButtonLink>
