@@ -73,6 +73,15 @@ describe('the shelf', () => {
     expect(links.find((a) => a.textContent?.includes('Next page'))?.getAttribute('href')).toBe('/shelf?page=51');
   });
 
+  it('does not name a page count for an empty page past the cap, where the count is not known', async () => {
+    serveShelf({ items: [], page: 80, pageSize: 24, total: 1000, totalCapped: true });
+    const { container } = await openShelf('/shelf?page=80');
+
+    await waitFor(() => expect(statusText(container)).toContain('There is no page 80; this search has fewer pages.'));
+    expect(container.textContent).not.toContain('42 pages');
+    expect([...container.querySelectorAll('a')].some((a) => a.textContent?.includes('Next page'))).toBe(false);
+  });
+
   it('asks the API for what the address says and shows each bundle as a card', async () => {
     const asked = serveShelf({ items: [card()], page: 2, pageSize: 24, total: 25 });
     const { container } = await openShelf('/shelf?fibre=batik&page=2');

@@ -196,6 +196,7 @@ function shelfStatus({ items, page, pageSize, total, totalCapped }: ShelfPage, u
   if (updating) return 'Updating…';
   if (total === 0) return filtered ? 'No bundle matches these filters.' : 'The shelf is empty just now.';
   const pageCount = Math.ceil(total / pageSize);
+  if (items.length === 0 && totalCapped) return `There is no page ${page}; this search has fewer pages.`;
   if (items.length === 0) return `There is no page ${page}; this search has ${pageCount === 1 ? 'one page' : `${pageCount} pages`}.`;
   const first = (page - 1) * pageSize + 1;
   const shown = `${first.toLocaleString('en')}–${(first + items.length - 1).toLocaleString('en')}`;
@@ -253,7 +254,7 @@ function Results({ shelf, units, updating, filtered, pageHref, onPage, onClear }
         </ul>
       ) : null}
 
-      {knownPages > 1 || hasNext ? (
+      {knownPages > 1 ? (
         <nav aria-label="Shelf pages" className="flex flex-wrap items-center justify-between gap-3">
           {page > 1 ? (
             <ButtonLink to={pageHref(Math.min(page - 1, knownPages))} variant="secondary" onClick={onPage}>
