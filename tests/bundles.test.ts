@@ -104,7 +104,7 @@ describe('listing, review and the shelf', () => {
     expect(thumb.headers['cache-control']).toMatch(/max-age=31536000/);
   });
 
-  it('pages through the shelf: later pages continue where the page before stopped, under the same count', async () => {
+  it('pages through the shelf: later pages continue where the page before stopped, under the same count, and a text search counts four pages ahead', async () => {
     const word = `Quillwort${Date.now().toString(36)}`;
     for (let i = 0; i < 5; i++) {
       const id = await listAndSubmit(sellerClient, { title: `${word} offcuts ${i}`, priceMinor: 500 + i * 100 });
@@ -140,6 +140,16 @@ describe('listing, review and the shelf', () => {
     const beyond = await buyerClient.get(`/api/bundles?q=${word}&pageSize=2&page=4`);
     expect(beyond.status).toBe(200);
     expect(beyond.body).toMatchObject({ items: [], page: 4, total: 5, totalCapped: false });
+
+    // A text search counts four pages past the page asked for: with seven matches one to a page,
+    // page 1 counts to five and says there are more; page 3 counts to seven, all there are.
+    for (const i of [5, 6]) {
+      const id = await listAndSubmit(sellerClient, { title: `${word} offcuts ${i}` });
+      expect((await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'approve' })).status).toBe(200);
+    }
+    expect((await buyerClient.get(`/api/bundles?q=${word}&pageSize=1&page=1`)).body).toMatchObject({ page: 1, total: 5, totalCapped: true });
+    expect((await buyerClient.get(`/api/bundles?q=${word}&pageSize=1&page=3`)).body).toMatchObject({ page: 3, total: 7, totalCapped: false });
+    expect((await buyerClient.get(`/api/bundles?q=${word}&pageSize=60`)).body).toMatchObject({ total: 7, totalCapped: false });
   });
 
   it('returns a bundle with notes: the seller is e-mailed, edits and resubmits', async () => {

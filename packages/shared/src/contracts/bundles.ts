@@ -90,7 +90,10 @@ export interface Page<T> {
   total: number;
 }
 
-/** The shelf's page: `total` stops at 1,000, and `totalCapped` says there are more. */
+/**
+ * The shelf's page: `total` stops at 1,000 (a text search's at four pages past the page asked for), and
+ * `totalCapped` says there are more.
+ */
 export interface ShelfPage extends Page<BundleCard> {
   totalCapped: boolean;
 }

@@ -54,11 +54,25 @@ function whereClause(q: ShelfQuery): { sql: string; bind: unknown[] } {
 
 export const SHELF_COUNT_CAP = 1000;
 
+/** A text search counts the page asked for and this many pages after it. */
+export const TEXT_SEARCH_PAGES_AHEAD = 4;
+
+/**
+ * Where the count of matches stops. Filters alone count to 1,000 from an index. A text search has to
+ * read each candidate bundle's words: for a common word among 100,000 bundles the statement took 4.7 ms
+ * counting to 1,001 and 1.4 ms counting to 121 (pgbench, docs/PERFORMANCE.md). It counts four pages past
+ * the page asked for, enough for the pager to offer the next pages and to say "more than 120".
+ */
+export function shelfCountCap(q: Pick<ShelfQuery, 'q' | 'page' | 'pageSize'>): number {
+  return q.q ? Math.min(SHELF_COUNT_CAP, (q.page + TEXT_SEARCH_PAGES_AHEAD) * q.pageSize) : SHELF_COUNT_CAP;
+}
+
 /**
  * The one statement behind a page of the shelf: the capped count, the page, and each page bundle's
  * first photo, in one round trip. The photo is looked up only for the rows of the page, never for
- * the rows an OFFSET skips. Counting stops at the cap: past it the shelf says "more than 1,000",
- * and offers a next page as long as pages come back full.
+ * the rows an OFFSET skips. Counting stops at the cap (`shelfCountCap`): past it the shelf says
+ * "more than 1,000" (a text search's first page, "more than 120"), and offers a next page as long
+ * as pages come back full.
  *
  * Its text depends only on which filters are set, on the sort and on whether it is the first page,
  * so it is named after its text and prepared once per connection (a few dozen shapes in practice,
@@ -71,6 +85,8 @@ export function shelfStatement(q: ShelfQuery): NamedStatement {
   const where = whereClause(q);
   const limit = `$${where.bind.length + 1}`;
   const offset = `$${where.bind.length + 2}`;
+  // A text search's cap depends on the page, so it is a bind parameter; prepared statements keep 1,001.
+  const countLimit = q.q ? `$${where.bind.length + 3}` : String(SHELF_COUNT_CAP + 1);
   const columns = `b.id, b.title, b.offer, b.price_minor, b.currency, b.meeting_handover_ok, b.quantity_available, b.weight_grams,
               b.fibre, b.cut_kinds, b.colour_value, b.colour_family, b.on_shelf_at`;
   const ordered = `WHERE ${where.sql} ORDER BY ${ORDER_BY[q.sort]} LIMIT ${limit} OFFSET ${offset}`;
@@ -82,7 +98,7 @@ export function shelfStatement(q: ShelfQuery): NamedStatement {
       : `page_ids AS (SELECT b.id FROM bundles b ${ordered}),
      page AS (SELECT ${columns} FROM page_ids JOIN bundles b ON b.id = page_ids.id)`;
   const text = `WITH counted AS (
-       SELECT count(*)::int AS total FROM (SELECT 1 FROM bundles b WHERE ${where.sql} LIMIT ${SHELF_COUNT_CAP + 1}) capped
+       SELECT count(*)::int AS total FROM (SELECT 1 FROM bundles b WHERE ${where.sql} LIMIT ${countLimit}) capped
      ), ${page}
      SELECT counted.total, b.*, photo.thumb_key, photo.medium_key
      FROM counted
@@ -92,12 +108,14 @@ export function shelfStatement(q: ShelfQuery): NamedStatement {
      ) photo ON true
      ORDER BY ${ORDER_BY[q.sort]}`;
   const name = q.q ? undefined : `shelf-${createHash('sha1').update(text).digest('hex').slice(0, 20)}`;
-  return { name, text, values: [...where.bind, q.pageSize, (q.page - 1) * q.pageSize] };
+  const values = [...where.bind, q.pageSize, (q.page - 1) * q.pageSize];
+  return { name, text, values: q.q ? [...values, shelfCountCap(q) + 1] : values };
 }
 
 export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q: ShelfQuery): Promise<ShelfPage> {
   const rows = await runNamedStatement<ShelfRow & { total: number }>(sequelize, shelfStatement(q));
   const total = rows[0]?.total ?? 0;
+  const cap = shelfCountCap(q);
   // With no bundle on the page, the count still comes back, on one row without a bundle.
   const bundles = rows.filter((r) => r.id !== null);
   return {
@@ -120,7 +138,7 @@ export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q:
     })),
     page: q.page,
     pageSize: q.pageSize,
-    total: Math.min(total, SHELF_COUNT_CAP),
-    totalCapped: total > SHELF_COUNT_CAP,
+    total: Math.min(total, cap),
+    totalCapped: total > cap,
   };
 }

@@ -62,6 +62,17 @@ describe('the shelf', () => {
     expect(next?.getAttribute('href')).toBe('/shelf?page=43');
   });
 
+  it('shows a text search counted four pages ahead as "more than", with the pages known so far', async () => {
+    const full = Array.from({ length: 24 }, (_, i) => card({ id: `b-${i}`, title: `Bundle ${i}` }));
+    serveShelf({ items: full, page: 1, pageSize: 24, total: 120, totalCapped: true });
+    const { container } = await openShelf('/shelf?q=strips');
+
+    await waitFor(() => expect(statusText(container)).toContain('Showing 1–24 of more than 120 bundles'));
+    expect(container.textContent).toContain('Page 1 of 5 or more');
+    const next = [...container.querySelectorAll('a')].find((a) => a.textContent?.includes('Next page'));
+    expect(next?.getAttribute('href')).toBe('/shelf?q=strips&page=2');
+  });
+
   it('counts the page shown among the pages past the cap, and steps back one page from it', async () => {
     const full = Array.from({ length: 24 }, (_, i) => card({ id: `b-${i}`, title: `Bundle ${i}` }));
     serveShelf({ items: full, page: 50, pageSize: 24, total: 1000, totalCapped: true });

@@ -200,7 +200,8 @@ function shelfStatus({ items, page, pageSize, total, totalCapped }: ShelfPage, u
   if (items.length === 0) return `There is no page ${page}; this search has ${pageCount === 1 ? 'one page' : `${pageCount} pages`}.`;
   const first = (page - 1) * pageSize + 1;
   const shown = `${first.toLocaleString('en')}–${(first + items.length - 1).toLocaleString('en')}`;
-  // The API stops counting at 1,000 matches; past that, the shelf says so instead of a number.
+  // The API stops counting at 1,000 matches (a text search, four pages past the page asked for);
+  // past that, the shelf says so instead of a number.
   if (totalCapped) return `Showing ${shown} of more than ${total.toLocaleString('en')} bundles`;
   return `Showing ${shown} of ${total} ${total === 1 ? 'bundle' : 'bundles'}`;
 }
