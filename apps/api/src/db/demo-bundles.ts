@@ -73,10 +73,15 @@ export async function seedDemoShelf(sequelize: Sequelize, uploadDir: string, cur
       { startsAt: day(37), place: 'Ferncombe Village Hall, back room', notes: 'Annual stash swap evening.', createdBy: null },
     ]);
   }
-  for (const demo of DEMO_BUNDLES) {
+  for (const [index, demo] of DEMO_BUNDLES.entries()) {
     const seller = await Member.findOne({ where: { email: demo.seller } });
     if (!seller || (await Bundle.findOne({ where: { sellerId: seller.id, title: demo.title! } }))) continue;
     const photo = await processPhoto(await sharp(artwork(demo)).jpeg({ quality: 85 }).toBuffer());
+    // The listings came in over the past days, the first of the list last, so the shelf's newest-first order
+    // is the order above on every fresh demo guild (at one shared time it fell to the random ids); the one
+    // still in review came in this afternoon.
+    const submittedAt = new Date(now.getTime() - (demo.state === 'in_review' ? 3 : (index + 1) * 26) * 3_600_000);
+    const onShelfAt = new Date(submittedAt.getTime() + 20 * 3_600_000);
     await sequelize.transaction(async (transaction) => {
       const { seller: _s, state, palette: _p, pattern: _pt, ...fields } = demo;
       const bundle = await Bundle.create(
@@ -93,10 +98,10 @@ export async function seedDemoShelf(sequelize: Sequelize, uploadDir: string, cur
           currency,
           state,
           quantityAvailable: fields.quantity,
-          submittedAt: now,
-          reviewedAt: state === 'on_shelf' ? now : null,
-          onShelfAt: state === 'on_shelf' ? now : null,
-          expiresAt: state === 'on_shelf' ? new Date(now.getTime() + 90 * 86_400_000) : null,
+          submittedAt,
+          reviewedAt: state === 'on_shelf' ? onShelfAt : null,
+          onShelfAt: state === 'on_shelf' ? onShelfAt : null,
+          expiresAt: state === 'on_shelf' ? new Date(onShelfAt.getTime() + 90 * 86_400_000) : null,
         },
         { transaction },
       );
