@@ -77,9 +77,9 @@ export async function seedDemoShelf(sequelize: Sequelize, uploadDir: string, cur
     const seller = await Member.findOne({ where: { email: demo.seller } });
     if (!seller || (await Bundle.findOne({ where: { sellerId: seller.id, title: demo.title! } }))) continue;
     const photo = await processPhoto(await sharp(artwork(demo)).jpeg({ quality: 85 }).toBuffer());
-    // The listings came in over the past days, the first of the list last, so the shelf's newest-first order
-    // is the order above on every fresh demo guild (at one shared time it fell to the random ids); the one
-    // still in review came in this afternoon.
+    // The listings came in a day apart, the first of the list most recently, so the shelf's newest-first
+    // order is the order above on every fresh demo guild (at one shared time it fell to the random ids);
+    // the one still in review came in three hours ago.
     const submittedAt = new Date(now.getTime() - (demo.state === 'in_review' ? 3 : (index + 1) * 26) * 3_600_000);
     const onShelfAt = new Date(submittedAt.getTime() + 20 * 3_600_000);
     await sequelize.transaction(async (transaction) => {
