@@ -11,6 +11,7 @@
  */
 import os from 'node:os';
 import pg from 'pg';
+import type { ShelfPage } from '@scrap-relay/shared';
 import { apiSpec } from '../scripts/lib/stack.ts';
 import { startService, type RunningService } from '../scripts/lib/services.ts';
 import { startBareExpress } from './lib/bare-express-service.ts';
@@ -32,11 +33,6 @@ const MIXES = [
   { label: 'text "strips", cut strips, ≤ 800 g', query: 'q=strips&cut=strips&maxGrams=800' },
   { label: 'newest, no filter, page 40', query: 'page=40' },
 ] as const;
-
-interface ShelfPage {
-  items: unknown[];
-  total: number;
-}
 
 /** One accounted run at this benchmark's load: warm-up, then the measured part. */
 const accounted = (url: string, headers: Record<string, string>, serverPid: number, postmasterPid: number) =>
@@ -134,7 +130,7 @@ export async function run(ctx: BenchContext): Promise<void> {
     for (const mix of MIXES) {
       const path = `/api/bundles${mix.query === '' ? '' : `?${mix.query}`}`;
       const page = await firstPage(`${apiUrl}${path}`, headers);
-      console.log(`  ${mix.label}: GET ${path} (${page.total} bundles match)`);
+      console.log(`  ${mix.label}: GET ${path} (${page.totalCapped ? 'more than ' : ''}${page.total.toLocaleString('en')} bundles match)`);
       await measure(`  shelf: ${mix.label}`, `${apiUrl}${path}`);
       for (const statement of await shelfStatements(mix.query)) await explain(db, statement);
     }
