@@ -41,6 +41,13 @@ async function openShelf(url: string) {
   return { router, ...rendered };
 }
 
+/** A page of 24 cards, as the API returns while more bundles match. */
+const fullPage = () => Array.from({ length: 24 }, (_, i) => card({ id: `b-${i}`, title: `Bundle ${i}` }));
+
+/** Where the pager's link with this text leads, or undefined when there is no such link. */
+const pagerHref = (root: HTMLElement, text: string) =>
+  [...root.querySelectorAll('a')].find((a) => a.textContent?.includes(text))?.getAttribute('href') ?? undefined;
+
 const statusText = (root: HTMLElement) => [...root.querySelectorAll('[role="status"]')].map((el) => el.textContent).join(' | ');
 
 describe('the shelf', () => {
@@ -52,36 +59,30 @@ describe('the shelf', () => {
   });
 
   it('keeps a next page past the count cap while pages come back full', async () => {
-    const full = Array.from({ length: 24 }, (_, i) => card({ id: `b-${i}`, title: `Bundle ${i}` }));
-    serveShelf({ items: full, page: 42, pageSize: 24, total: 1000, totalCapped: true });
+    serveShelf({ items: fullPage(), page: 42, pageSize: 24, total: 1000, totalCapped: true });
     const { container } = await openShelf('/shelf?page=42');
 
     await waitFor(() => expect(statusText(container)).toContain('Showing 985–1,008 of more than 1,000 bundles'));
     expect(container.textContent).toContain('Page 42 of 42 or more');
-    const next = [...container.querySelectorAll('a')].find((a) => a.textContent?.includes('Next page'));
-    expect(next?.getAttribute('href')).toBe('/shelf?page=43');
+    expect(pagerHref(container, 'Next page')).toBe('/shelf?page=43');
   });
 
   it('shows a text search counted four pages ahead as "more than", with the pages known so far', async () => {
-    const full = Array.from({ length: 24 }, (_, i) => card({ id: `b-${i}`, title: `Bundle ${i}` }));
-    serveShelf({ items: full, page: 1, pageSize: 24, total: 120, totalCapped: true });
+    serveShelf({ items: fullPage(), page: 1, pageSize: 24, total: 120, totalCapped: true });
     const { container } = await openShelf('/shelf?q=strips');
 
     await waitFor(() => expect(statusText(container)).toContain('Showing 1–24 of more than 120 bundles'));
     expect(container.textContent).toContain('Page 1 of 5 or more');
-    const next = [...container.querySelectorAll('a')].find((a) => a.textContent?.includes('Next page'));
-    expect(next?.getAttribute('href')).toBe('/shelf?q=strips&page=2');
+    expect(pagerHref(container, 'Next page')).toBe('/shelf?q=strips&page=2');
   });
 
   it('counts the page shown among the pages past the cap, and steps back one page from it', async () => {
-    const full = Array.from({ length: 24 }, (_, i) => card({ id: `b-${i}`, title: `Bundle ${i}` }));
-    serveShelf({ items: full, page: 50, pageSize: 24, total: 1000, totalCapped: true });
+    serveShelf({ items: fullPage(), page: 50, pageSize: 24, total: 1000, totalCapped: true });
     const { container } = await openShelf('/shelf?page=50');
 
     await waitFor(() => expect(container.textContent).toContain('Page 50 of 50 or more'));
-    const links = [...container.querySelectorAll('a')];
-    expect(links.find((a) => a.textContent?.includes('Previous page'))?.getAttribute('href')).toBe('/shelf?page=49');
-    expect(links.find((a) => a.textContent?.includes('Next page'))?.getAttribute('href')).toBe('/shelf?page=51');
+    expect(pagerHref(container, 'Previous page')).toBe('/shelf?page=49');
+    expect(pagerHref(container, 'Next page')).toBe('/shelf?page=51');
   });
 
   it('does not name a page count for an empty page past the cap, where the count is not known', async () => {
@@ -90,7 +91,7 @@ describe('the shelf', () => {
 
     await waitFor(() => expect(statusText(container)).toContain('There is no page 80; this search has fewer pages.'));
     expect(container.textContent).not.toContain('42 pages');
-    expect([...container.querySelectorAll('a')].some((a) => a.textContent?.includes('Next page'))).toBe(false);
+    expect(pagerHref(container, 'Next page')).toBeUndefined();
   });
 
   it('asks the API for what the address says and shows each bundle as a card', async () => {
@@ -113,8 +114,7 @@ describe('the shelf', () => {
     expect(photo.getAttribute('sizes')).toMatch(/calc\(100vw - 40px\)$/);
 
     expect(container.textContent).toContain('Page 2 of 2');
-    const previous = [...container.querySelectorAll('a')].find((a) => a.textContent?.includes('Previous page'));
-    expect(previous?.getAttribute('href')).toBe('/shelf?fibre=batik');
+    expect(pagerHref(container, 'Previous page')).toBe('/shelf?fibre=batik');
   });
 
   it('loads the first row of photos at once, the first one first, and the rest when scrolled near', async () => {
