@@ -253,6 +253,23 @@ describe('when payment does not happen', () => {
 });
 
 describe('cancelling, refunds and the treasurer', () => {
+  it('cancels an unpaid order for the buyer before closing its payment page, whose expiry webhook then changes nothing', async () => {
+    const bundleId = await shelved();
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    const sessionId = sessionIdFromUrl(placed.body.checkoutUrl);
+    const cancelled = await buyerClient.send('post', `/api/orders/${placed.body.order.id}/cancel`, { reason: 'Ordered twice' });
+    expect(cancelled.status).toBe(200);
+    expect(cancelled.body.order).toMatchObject({ state: 'cancelled' });
+    expect((await stripeSession(sessionId)).status).toBe('expired');
+
+    // The stand-in reports the expiry by webhook; once the API has taken it, the buyer's cancellation stands
+    // as it was (before, that webhook could cancel the order first and the buyer got a 403).
+    await waitFor(async () => (await stripeEvents('checkout.session.expired')).some((e) => e.object_id === sessionId && e.state === 'delivered'));
+    expect(await Order.findByPk(placed.body.order.id)).toMatchObject({ state: 'cancelled', cancelReason: 'Ordered twice' });
+    expect(await Bundle.findByPk(bundleId)).toMatchObject({ state: 'on_shelf', quantityAvailable: 1 });
+    await waitForMail({ to: buyer.email, subjectIncludes: 'was cancelled' });
+  });
+
   it('cancels a paid order before posting: refunded through the stand-in, ledger reversed, bundle back on the shelf', async () => {
     const bundleId = await shelved();
     const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });

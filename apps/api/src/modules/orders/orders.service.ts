@@ -387,14 +387,13 @@ export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string
   const guild = await loadGuild();
   const current = await findOrder(orderId);
   authorize(actor, 'order.cancel', current);
-  if (current.state === 'awaiting_payment' && current.stripeSessionId) {
-    await ctx.stripe.checkout.sessions.expire(current.stripeSessionId).catch((err) => ctx.logger.info({ err }, 'session not expired'));
-  }
   const paid = current.state === 'confirmed' && current.chargeMinor > 0;
   if (paid) await refundPayment(ctx, current);
 
-  return ctx.sequelize.transaction(async (transaction) => {
+  const cancelled = await ctx.sequelize.transaction(async (transaction) => {
     const order = await findOrder(orderId, transaction, true);
+    // Paid or released meanwhile (a payment's webhook, the hold's job): what was decided above no longer fits.
+    if (order.state !== current.state) throw conflict('That order changed a moment ago; open it again to see where it stands.');
     authorize(actor, 'order.cancel', order);
     const now = ctx.now();
     await order.update(
@@ -409,6 +408,14 @@ export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string
     );
     return order;
   });
+  // The payment page closes only once the order is cancelled: the stand-in, like Stripe, reports the expiry by
+  // webhook at once, and that webhook now finds the order cancelled and leaves it be (before, it could cancel the
+  // order first and this cancellation then refused the member with a 403). A payment made in between is
+  // refunded when its webhook arrives (confirmPayment).
+  if (current.state === 'awaiting_payment' && current.stripeSessionId) {
+    await ctx.stripe.checkout.sessions.expire(current.stripeSessionId).catch((err) => ctx.logger.info({ err }, 'session not expired'));
+  }
+  return cancelled;
 }
 
 /** The treasurer refunds a paid order in full (for example after a reported problem); units already posted stay rehomed. */
