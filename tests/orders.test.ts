@@ -289,6 +289,31 @@ describe('cancelling, refunds and the treasurer', () => {
     await waitForMail({ to: buyer.email, subjectIncludes: 'was cancelled' });
   });
 
+  it('cancels or posts an order asked for both at once, never refunding one that was posted', async () => {
+    const bundleId = await shelved();
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl));
+    const order = await waitFor(async () => {
+      const o = await Order.findByPk(placed.body.order.id);
+      return o?.state === 'confirmed' ? o : null;
+    });
+    const [cancelled, posted] = await Promise.all([
+      sellerClient.send('post', `/api/orders/${order.id}/cancel`, { reason: 'Sold at the meeting instead' }),
+      sellerClient.send('post', `/api/orders/${order.id}/posted`, {}),
+    ]);
+    const after = (await Order.findByPk(order.id))!;
+    const refunded = await refundedAmount(order.stripePaymentIntentId!);
+    if (after.state === 'cancelled') {
+      expect([cancelled.status, posted.status]).toEqual([200, 403]);
+      expect(refunded).toBe(order.chargeMinor);
+      expect(await ledgerTotal(`WHERE order_id = '${order.id}' AND account = 'seller:${seller.id}'`)).toBe(0);
+    } else {
+      expect(after.state).toBe('posted');
+      expect([cancelled.status, posted.status]).toEqual([403, 200]);
+      expect(refunded).toBe(0);
+    }
+  });
+
   it('lets the treasurer refund a posted order after a reported problem, see balances, record a payout and export CSV', async () => {
     const kept = await shelved({ priceMinor: 1500 });
     const keptOrder = await buyerClient.send('post', '/api/orders', { items: [{ bundleId: kept, quantity: 1 }], fulfilment: 'post', address });

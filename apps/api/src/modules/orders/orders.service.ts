@@ -382,19 +382,20 @@ async function notifyBoth(ctx: AppContext, order: Order, transaction: Transactio
   for (const person of [buyer!, seller!]) await ctx.queue.enqueueEmail({ to: person.email, ...render(person.name, link, titles) }, transaction);
 }
 
-/** Either side may cancel before posting. A paid order is refunded first, then its ledger reversed and its units returned. */
+/**
+ * Either side may cancel before posting. A paid order is refunded first, then its ledger reversed and its units
+ * returned. The order stays locked from the check to the end, so marking it posted, a payment's webhook or the
+ * hold's job wait for the cancellation instead of slipping in between a refund and the ledger.
+ */
 export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string, reason: string | undefined): Promise<Order> {
   const guild = await loadGuild();
-  const current = await findOrder(orderId);
-  authorize(actor, 'order.cancel', current);
-  const paid = current.state === 'confirmed' && current.chargeMinor > 0;
-  if (paid) await refundPayment(ctx, current);
-
-  const cancelled = await ctx.sequelize.transaction(async (transaction) => {
+  const { order, closePaymentPage } = await ctx.sequelize.transaction(async (transaction) => {
     const order = await findOrder(orderId, transaction, true);
-    // Paid or released meanwhile (a payment's webhook, the hold's job): what was decided above no longer fits.
-    if (order.state !== current.state) throw conflict('That order changed a moment ago; open it again to see where it stands.');
     authorize(actor, 'order.cancel', order);
+    const unpaid = order.state === 'awaiting_payment';
+    const paid = order.state === 'confirmed' && order.chargeMinor > 0;
+    // Keyed by the order: asked again after a failure further down, the payment is not refunded twice.
+    if (paid) await refundPayment(ctx, order);
     const now = ctx.now();
     await order.update(
       { state: 'cancelled', cancelledAt: now, cancelReason: reason ?? null, holdExpiresAt: null, ...(paid && { refundedAt: now }) },
@@ -406,27 +407,26 @@ export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string
     await notifyBoth(ctx, order, transaction, (name, link, titles) =>
       orderCancelled({ guildName: guild.name, name, reference: order.reference, titles, link, refunded, reason: reason ?? null }),
     );
-    return order;
+    return { order, closePaymentPage: unpaid ? order.stripeSessionId : null };
   });
   // The payment page closes only once the order is cancelled: the stand-in, like Stripe, reports the expiry by
-  // webhook at once, and that webhook now finds the order cancelled and leaves it be (before, it could cancel the
-  // order first and this cancellation then refused the member with a 403). A payment made in between is
+  // webhook at once, and that webhook finds the order cancelled and leaves it be (closed first, the webhook could
+  // cancel the order before this did, and the member was refused with a 403). A payment made in between is
   // refunded when its webhook arrives (confirmPayment).
-  if (current.state === 'awaiting_payment' && current.stripeSessionId) {
-    await ctx.stripe.checkout.sessions.expire(current.stripeSessionId).catch((err) => ctx.logger.info({ err }, 'session not expired'));
+  if (closePaymentPage) {
+    await ctx.stripe.checkout.sessions.expire(closePaymentPage).catch((err) => ctx.logger.info({ err }, 'session not expired'));
   }
-  return cancelled;
+  return order;
 }
 
 /** The treasurer refunds a paid order in full (for example after a reported problem); units already posted stay rehomed. */
 export async function refundOrder(ctx: AppContext, actor: Actor, orderId: string): Promise<Order> {
   const guild = await loadGuild();
-  const current = await findOrder(orderId);
-  authorize(actor, 'order.refund', current);
-  await refundPayment(ctx, current);
+  // Locked from the check to the end, as in cancelOrder: the refund is asked for only while the order may be refunded.
   return ctx.sequelize.transaction(async (transaction) => {
     const order = await findOrder(orderId, transaction, true);
     authorize(actor, 'order.refund', order);
+    await refundPayment(ctx, order);
     const wasPosted = order.state !== 'confirmed';
     await order.update({ state: 'refunded', refundedAt: ctx.now() }, { transaction });
     await reverseLedger(ctx, order, transaction);
