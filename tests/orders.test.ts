@@ -45,6 +45,16 @@ async function shelved(overrides: Record<string, unknown> = {}, by = sellerClien
   return id;
 }
 
+/** The buyer orders the bundle by post and pays; the order once the payment's webhook has confirmed it. */
+async function paidByPost(bundleId: string): Promise<Order> {
+  const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+  await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl));
+  return waitFor(async () => {
+    const o = await Order.findByPk(placed.body.order.id);
+    return o?.state === 'confirmed' ? o : null;
+  });
+}
+
 async function ledgerTotal(where = ''): Promise<number> {
   const [rows] = await api.runtime.ctx.sequelize.query(`SELECT coalesce(sum(amount_minor), 0)::int AS total FROM ledger_entries ${where}`);
   return (rows as { total: number }[])[0]!.total;
@@ -272,12 +282,7 @@ describe('cancelling, refunds and the treasurer', () => {
 
   it('cancels a paid order before posting: refunded through the stand-in, ledger reversed, bundle back on the shelf', async () => {
     const bundleId = await shelved();
-    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
-    await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl));
-    const order = await waitFor(async () => {
-      const o = await Order.findByPk(placed.body.order.id);
-      return o?.state === 'confirmed' ? o : null;
-    });
+    const order = await paidByPost(bundleId);
     const cancelled = await sellerClient.send('post', `/api/orders/${order.id}/cancel`, { reason: 'Found a moth hole' });
     expect(cancelled.status).toBe(200);
     expect(cancelled.body.order).toMatchObject({ state: 'cancelled', refundedAt: expect.any(String) });
@@ -291,12 +296,7 @@ describe('cancelling, refunds and the treasurer', () => {
 
   it('cancels or posts an order asked for both at once, never refunding one that was posted', async () => {
     const bundleId = await shelved();
-    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
-    await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl));
-    const order = await waitFor(async () => {
-      const o = await Order.findByPk(placed.body.order.id);
-      return o?.state === 'confirmed' ? o : null;
-    });
+    const order = await paidByPost(bundleId);
     const [cancelled, posted] = await Promise.all([
       sellerClient.send('post', `/api/orders/${order.id}/cancel`, { reason: 'Sold at the meeting instead' }),
       sellerClient.send('post', `/api/orders/${order.id}/posted`, {}),
