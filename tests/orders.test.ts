@@ -1,9 +1,11 @@
 import Stripe from 'stripe';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { Bundle, LedgerEntry, Meeting, Order, type Member } from '../apps/api/src/db/models/index.ts';
-import { releaseOverdueHolds } from '../apps/api/src/modules/orders/orders.service.ts';
+import { cancelUnpaid, releaseOverdueHolds } from '../apps/api/src/modules/orders/orders.service.ts';
+import { LATE_REFUND_QUEUE } from '../apps/api/src/jobs/queue.ts';
+import { processingCostEntries } from '@scrap-relay/shared';
 import { appWith, Client, countRows, createMember, listenOnApiPort, signedInClient, startTestApi, type TestApi } from './support/api.ts';
-import { listAndSubmit } from './support/bundles.ts';
+import { completeListing, listAndSubmit } from './support/bundles.ts';
 import { clearMail, waitForMail } from './support/services.ts';
 import { payCheckout, refundedAmount, resendEvent, sessionIdFromUrl, stripeEvents, stripeSession } from './support/stripe-fake.ts';
 
@@ -200,6 +202,36 @@ describe('no bundle is sold twice', () => {
     expect(answers.filter((a) => a.status === 409)).toHaveLength(7);
   }, 60_000);
 
+  it('relists a bundle with only the packs not yet sold, and will not set the quantity below them', async () => {
+    const bundleId = await shelved({ quantity: 3 });
+    await paidByPost(bundleId);
+    expect((await sellerClient.send('post', `/api/bundles/${bundleId}/withdraw`)).status).toBe(200);
+
+    // A quantity of 1 is just the pack sold: valid, but it leaves nothing to offer.
+    expect((await sellerClient.send('patch', `/api/bundles/${bundleId}`, { quantity: 1 })).status).toBe(200);
+    const emptySubmit = await sellerClient.send('post', `/api/bundles/${bundleId}/submit`);
+    expect(emptySubmit.status).toBe(422);
+    expect(emptySubmit.body.error.fields.quantity).toMatch(/sold or held/);
+
+    const restored = await sellerClient.send('patch', `/api/bundles/${bundleId}`, { quantity: 3 });
+    expect(restored.status).toBe(200);
+    expect((await sellerClient.send('post', `/api/bundles/${bundleId}/submit`)).status).toBe(200);
+    expect((await librarianClient.send('post', `/api/bundles/${bundleId}/review`, { decision: 'approve' })).status).toBe(200);
+    // Three packs listed, one sold before the relisting: two on the shelf, not three.
+    expect(await Bundle.findByPk(bundleId)).toMatchObject({ state: 'on_shelf', quantity: 3, quantityAvailable: 2 });
+  });
+
+  it('refuses a quantity below the packs already sold, naming the field, and changes nothing', async () => {
+    const bundleId = await shelved({ quantity: 3 });
+    await paidByPost(bundleId);
+    await paidByPost(bundleId);
+    expect((await sellerClient.send('post', `/api/bundles/${bundleId}/withdraw`)).status).toBe(200);
+    const res = await sellerClient.send('patch', `/api/bundles/${bundleId}`, { quantity: 1, title: 'Changed title' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.quantity).toMatch(/2 of these packs are sold or held already/);
+    expect(await Bundle.findByPk(bundleId)).toMatchObject({ quantity: 3, quantityAvailable: 1, title: completeListing.title });
+  });
+
   it('refuses buying your own bundle, and bundles of two sellers in one order', async () => {
     const own = await shelved();
     expect((await sellerClient.send('post', '/api/orders', { items: [{ bundleId: own, quantity: 1 }], fulfilment: 'post', address })).status).toBe(403);
@@ -278,6 +310,34 @@ describe('cancelling, refunds and the treasurer', () => {
     expect(await Order.findByPk(placed.body.order.id)).toMatchObject({ state: 'cancelled', cancelReason: 'Ordered twice' });
     expect(await Bundle.findByPk(bundleId)).toMatchObject({ state: 'on_shelf', quantityAvailable: 1 });
     await waitForMail({ to: buyer.email, subjectIncludes: 'was cancelled' });
+  });
+
+  it('refunds a payment made after its order was cancelled, by a queued job, and books the processor’s fee once', async () => {
+    const bundleId = await shelved();
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    const orderId: string = placed.body.order.id;
+    // The hold ran out but the payment page stayed open (closing it had failed), and the buyer paid on it.
+    expect(await cancelUnpaid(api.runtime.ctx, orderId, 'The hold ran out.')).toBe(true);
+    await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl));
+
+    const order = await waitFor(async () => {
+      const o = await Order.findByPk(orderId);
+      return o?.refundedAt ? o : null;
+    });
+    expect(order.state).toBe('cancelled');
+    expect(order.cancelReason).toContain('Paid after the hold ended; refunded.');
+    expect(await refundedAmount(order.stripePaymentIntentId!)).toBe(order.chargeMinor);
+    // The refund went through the job queue, recorded with the payment's event, not as a call after it.
+    const [jobs] = await api.runtime.ctx.sequelize.query(`SELECT state FROM pgboss.job WHERE name = $1 AND data->>'orderId' = $2`, {
+      bind: [LATE_REFUND_QUEUE, orderId],
+    });
+    expect(jobs).toEqual([{ state: 'completed' }]);
+    // Only the fee the processor keeps stands on the ledger (from memory, as for any refund), and once.
+    expect(order.processingCostMinor).toBeGreaterThan(0);
+    const entries = await LedgerEntry.findAll({ where: { orderId }, attributes: ['kind', 'account', 'amountMinor'], raw: true });
+    expect(entries).toEqual(expect.arrayContaining(processingCostEntries(order.processingCostMinor)));
+    expect(entries).toHaveLength(2);
+    expect(await Bundle.findByPk(bundleId)).toMatchObject({ state: 'on_shelf', quantityAvailable: 1 });
   });
 
   it('cancels a paid order before posting: refunded through the stand-in, ledger reversed, bundle back on the shelf', async () => {

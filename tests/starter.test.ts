@@ -150,6 +150,27 @@ describe('the waiting list', () => {
     expect(entries.map((e) => e.status)).toEqual(['declined', 'lapsed', 'claimed']);
   });
 
+  it('passes on the bundle held for a member who claims another one first, so nobody gets two past the limit', async () => {
+    await Bundle.update({ state: 'withdrawn' }, { where: { offer: 'starter', state: ['on_shelf', 'held'] } });
+    const ada = await newQuilter('Ada Twice');
+    const client = await signedInClient(api.runtime.app, ada);
+    expect((await client.send('post', '/api/waitlist', {})).status).toBe(201);
+    const held = await donated({ title: 'Starter bag held for Ada' });
+    expect((await Bundle.findByPk(held))!.state).toBe('held');
+    const toAda = await waitForMail({ to: ada.email, subjectIncludes: 'starter bundle is waiting' });
+    const offerId = toAda.text.match(/\/starter\/offers\/([0-9a-f-]{36})/)![1]!;
+
+    // Nobody else waits, so a second donation goes on the shelf, and Ada claims it there.
+    const other = await donated({ title: 'Starter bag on the shelf' });
+    expect((await client.send('post', `/api/starter-bundles/${other}/claims`, { meetingId: meeting.id })).status).toBe(201);
+    // The first bundle's offer ended with that claim and the bundle is free for the next new quilter.
+    expect((await Bundle.findByPk(held))!.state).toBe('on_shelf');
+    const late = await client.send('post', `/api/waitlist/offers/${offerId}/accept`, { meetingId: meeting.id });
+    expect(late.status).toBe(409);
+    expect(await StarterClaim.count({ where: { memberId: ada.id } })).toBe(1);
+    expect((await WaitlistEntry.findOne({ where: { memberId: ada.id } }))!.status).toBe('claimed');
+  });
+
   it('lets a member leave and the librarian remove someone with a reason', async () => {
     await Bundle.update({ state: 'withdrawn' }, { where: { offer: 'starter', state: 'on_shelf' } });
     const [one, two] = [await newQuilter('Leaving Soon'), await newQuilter('Removed Person')];

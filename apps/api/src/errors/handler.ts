@@ -15,6 +15,8 @@ export function toAppError(err: unknown): AppError {
   const dbCode = e?.parent?.code ?? e?.original?.code ?? e?.code;
   if (e?.name === 'SequelizeConnectionError' || e?.name === 'SequelizeConnectionRefusedError' || (dbCode && DATABASE_DOWN.has(dbCode)))
     return serviceUnavailable('The guild’s database is not answering just now. Please try again in a minute.');
+  // A deadlock or a serialisation failure: two requests met over the same rows, and this one was rolled back whole.
+  if (dbCode === '40P01' || dbCode === '40001') return serviceUnavailable('Someone else was changing the same thing at that moment. Please try again.');
   return new AppError(500, 'internal', 'Something went wrong on our side. Please try again.');
 }
 

@@ -5,14 +5,21 @@ import type { Logger } from 'pino';
 import type { Mailer, OutgoingMail } from '../integrations/mailer.ts';
 
 export const EMAIL_QUEUE = 'email-send';
+/** Refunds of payments that came in after their order was cancelled (`refundLatePayment`). */
+export const LATE_REFUND_QUEUE = 'payments-refund-late';
 
-/** Mail retries back off from 5 s up to about 40 minutes in all: a mail server that is down delays mail, never loses it. */
-const EMAIL_RETRY = { retryLimit: 12, retryDelay: 5, retryBackoff: true } as const;
+/**
+ * Retries back off from 5 s up to about 40 minutes in all: a mail server or card service that is down
+ * delays the mail or the refund, never loses it.
+ */
+const RETRY = { retryLimit: 12, retryDelay: 5, retryBackoff: true } as const;
 
 export interface JobQueue {
   boss: PgBoss;
   /** Queues an e-mail; pass the transaction so the mail is queued only if the change it reports commits. */
   enqueueEmail(mail: OutgoingMail, transaction?: Transaction): Promise<void>;
+  /** Queues a job that a change asks for, in the change's transaction, retried like mail. */
+  enqueue(queue: typeof LATE_REFUND_QUEUE, data: object, transaction: Transaction): Promise<void>;
   startWorkers(): Promise<void>;
   stop(): Promise<void>;
 }
@@ -43,14 +50,18 @@ export async function createJobQueue(opts: {
   const boss = new PgBoss({ connectionString: opts.databaseUrl, max: 4, application_name: 'scrap-relay-jobs' });
   boss.on('error', (err) => opts.logger.error({ err }, 'job queue error'));
   await boss.start();
-  await boss.createQueue(EMAIL_QUEUE, { name: EMAIL_QUEUE, ...EMAIL_RETRY });
+  await boss.createQueue(EMAIL_QUEUE, { name: EMAIL_QUEUE, ...RETRY });
+  await boss.createQueue(LATE_REFUND_QUEUE, { name: LATE_REFUND_QUEUE, ...RETRY });
 
   return {
     boss,
     async enqueueEmail(mail, transaction) {
-      const options: PgBoss.SendOptions = { ...EMAIL_RETRY };
+      const options: PgBoss.SendOptions = { ...RETRY };
       if (transaction) options.db = transactionDb(transaction);
       await boss.send(EMAIL_QUEUE, mail, options);
+    },
+    async enqueue(queue, data, transaction) {
+      await boss.send(queue, data, { ...RETRY, db: transactionDb(transaction) });
     },
     async startWorkers() {
       // A batch per poll keeps a burst of wish e-mails moving; each job succeeds or fails on its own,

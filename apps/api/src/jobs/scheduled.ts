@@ -2,7 +2,8 @@ import { QueryTypes } from 'sequelize';
 import type { AppContext } from '../context.ts';
 import { bundleExpired } from '../emails/bundles.ts';
 import { loadGuild } from '../modules/guild/guild.service.ts';
-import { autoReceive, releaseOverdueHolds } from '../modules/orders/orders.service.ts';
+import { autoReceive, refundLatePayment, releaseOverdueHolds } from '../modules/orders/orders.service.ts';
+import { LATE_REFUND_QUEUE } from './queue.ts';
 import { lapseOffers } from '../modules/starter/starter.service.ts';
 import { sendMeetingReminders } from '../modules/handovers/handovers.service.ts';
 
@@ -35,9 +36,13 @@ export async function expireBundles(ctx: AppContext): Promise<number> {
   });
 }
 
-/** pg-boss keeps one schedule for the whole database, so with several API processes each job still runs once. */
+/**
+ * pg-boss keeps one schedule for the whole database, so with several API processes each job still runs once.
+ * Also starts the worker for jobs a change queues: a late payment's refund, retried until the card service answers.
+ */
 export async function startScheduledJobs(ctx: AppContext): Promise<void> {
   const { boss } = ctx.queue;
+  await boss.work<{ orderId: string }>(LATE_REFUND_QUEUE, async ([job]) => refundLatePayment(ctx, job!.data.orderId));
   const jobs: [string, string, () => Promise<number>][] = [
     [EXPIRE_BUNDLES_QUEUE, '*/15 * * * *', () => expireBundles(ctx)],
     [RELEASE_HOLDS_QUEUE, '* * * * *', () => releaseOverdueHolds(ctx)],

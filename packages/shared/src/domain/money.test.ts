@@ -10,6 +10,7 @@ import {
   orderMoney,
   payoutEntries,
   processingCost,
+  processingCostEntries,
   reversalEntries,
 } from './money.ts';
 
@@ -140,6 +141,18 @@ describe('ledger (design choice: double entry, each transaction sums to zero)', 
     const entries = ledgerEntriesForPaidOrder({ sellerId: 'm-7', money });
     const all = [...entries, ...reversalEntries(entries, { keepProcessingCost: false })];
     for (const balance of accountBalances(all).values()) expect(balance).toBe(0);
+  });
+
+  it('books only the kept processor fee for a late payment that was refunded, and the same pair as a paid order', () => {
+    const kept = processingCostEntries(84);
+    expect(kept).toEqual([
+      { kind: 'processing_cost', account: 'processor', amountMinor: 84 },
+      { kind: 'processing_cost', account: 'guild', amountMinor: -84 },
+    ]);
+    expect(isBalanced(kept)).toBe(true);
+    expect(ledgerEntriesForPaidOrder({ sellerId: 'm-7', money }).filter((e) => e.kind === 'processing_cost')).toEqual(kept);
+    expect(processingCostEntries(0)).toEqual([]);
+    expect(() => processingCostEntries(8.4)).toThrow(RangeError);
   });
 
   it('records a payout against the seller balance', () => {

@@ -138,12 +138,25 @@ export function ledgerEntriesForPaidOrder({ sellerId, money }: { sellerId: strin
     { kind: 'charge', account: 'buyer', amountMinor: -money.chargeMinor },
     { kind: 'seller_credit', account: sellerAccount(sellerId), amountMinor: money.sellerCreditMinor },
     { kind: 'guild_fee', account: 'guild', amountMinor: money.guildFeeMinor },
-    { kind: 'processing_cost', account: 'processor', amountMinor: money.processingCostMinor },
-    { kind: 'processing_cost', account: 'guild', amountMinor: -money.processingCostMinor },
+    ...processingCostEntries(money.processingCostMinor),
   ];
   const kept = entries.filter((e) => e.amountMinor !== 0);
   if (!isBalanced(kept)) throw new Error('Order money does not balance: charge ≠ seller credit + guild fee');
   return kept;
+}
+
+/**
+ * The card processor's fee, borne by the guild: on every paid order, and alone for a payment that came in
+ * after its order was cancelled and was refunded (the processor keeps its fee on a refund; from memory).
+ * Nothing for a fee of 0.
+ */
+export function processingCostEntries(processingCostMinor: number): LedgerEntry[] {
+  assertMinor('processingCostMinor', processingCostMinor);
+  if (processingCostMinor === 0) return [];
+  return [
+    { kind: 'processing_cost', account: 'processor', amountMinor: processingCostMinor },
+    { kind: 'processing_cost', account: 'guild', amountMinor: -processingCostMinor },
+  ];
 }
 
 export interface ReversalOptions {

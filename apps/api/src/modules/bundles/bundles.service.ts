@@ -72,7 +72,6 @@ function toColumns(d: BundleDraftInput) {
     fibre: d.fibre ?? null,
     colourValue: d.colourValue ?? null,
     colourFamily: d.colourFamily ?? null,
-    ...(d.quantity !== undefined && { quantityAvailable: d.quantity }),
   };
 }
 
@@ -80,7 +79,7 @@ export async function createDraft(ctx: AppContext, seller: Member, input: Bundle
   authorize(seller, 'bundle.create');
   const guild = await loadGuild();
   const fields = mergeDraft({}, input);
-  return Bundle.create({ sellerId: seller.id, currency: guild.currency, ...toColumns(fields) });
+  return Bundle.create({ sellerId: seller.id, currency: guild.currency, ...toColumns(fields), quantityAvailable: fields.quantity ?? 1 });
 }
 
 export async function updateDraft(ctx: AppContext, seller: Member, id: string, patch: BundleDraftInput): Promise<Bundle> {
@@ -88,7 +87,15 @@ export async function updateDraft(ctx: AppContext, seller: Member, id: string, p
     const bundle = await findBundle(id, transaction, true);
     authorize(seller, 'bundle.edit', bundle);
     const fields = mergeDraft(draftFields(bundle), patch);
-    await bundle.update(toColumns(fields), { transaction });
+    // Packs sold or held by orders that still stand stay out of what a relisted bundle offers.
+    const committed = bundle.quantity - bundle.quantityAvailable;
+    const quantity = fields.quantity ?? bundle.quantity;
+    if (quantity < committed) {
+      throw badRequest('The quantity is below the packs already sold.', {
+        quantity: `${committed} of these packs ${committed === 1 ? 'is' : 'are'} sold or held already, so the quantity cannot be less than ${committed}.`,
+      });
+    }
+    await bundle.update({ ...toColumns(fields), quantityAvailable: quantity - committed }, { transaction });
     return bundle;
   });
 }
@@ -193,11 +200,12 @@ export async function submitForReview(ctx: AppContext, seller: Member, id: strin
       : Object.fromEntries(complete.error.issues.map((i) => [i.path.join('.') || 'body', i.message]));
     const photoCount = await BundlePhoto.count({ where: { bundleId: id }, transaction });
     if (photoCount === 0) fields.photos = 'Add at least one photo.';
+    if (bundle.quantityAvailable === 0) fields.quantity = 'Every pack of this listing is sold or held; raise the quantity if you have more.';
     if (Object.keys(fields).length > 0) {
       throw new AppError(422, 'unprocessable', `The listing is not complete yet: ${Object.keys(fields).join(', ')}.`, fields);
     }
     await bundle.update(
-      { state: 'in_review', submittedAt: ctx.now(), reviewNotes: null, quantityAvailable: bundle.quantity, onShelfAt: null, expiresAt: null },
+      { state: 'in_review', submittedAt: ctx.now(), reviewNotes: null, onShelfAt: null, expiresAt: null },
       { transaction },
     );
     return bundle;

@@ -3,12 +3,13 @@ import {
   formatMoney,
   ledgerEntriesForPaidOrder,
   orderMoney,
+  processingCostEntries,
   reversalEntries,
   type LedgerEntry as DomainEntry,
   type OrderCreateInput,
 } from '@scrap-relay/shared';
-import { Bundle, LedgerEntry, Meeting, Member, Order, OrderItem, OrderProblem, StarterClaim, WaitlistEntry, type Guild } from '../../db/models/index.ts';
-import { eligibilityOf, ineligible, offerToNextInLine } from '../starter/starter.service.ts';
+import { Bundle, LedgerEntry, Meeting, Member, Order, OrderItem, OrderProblem, StarterClaim, type Guild } from '../../db/models/index.ts';
+import { eligibilityOf, ineligible, leaveWaitlistWithClaim, offerToNextInLine } from '../starter/starter.service.ts';
 import { badRequest, conflict, forbidden, notFound, serviceUnavailable, unprocessable } from '../../errors/index.ts';
 import {
   orderCancelled,
@@ -25,6 +26,7 @@ import { loadGuild } from '../guild/guild.service.ts';
 import { meetingLabel } from '../../emails/format.ts';
 import { quoteOrThrow } from '../postage/postage.service.ts';
 import { writeLedger } from './ledger-writer.ts';
+import { LATE_REFUND_QUEUE } from '../../jobs/queue.ts';
 import { newOrderReference } from './order-reference.ts';
 
 const MINUTE_MS = 60_000;
@@ -251,7 +253,7 @@ export async function placeOrder(ctx: AppContext, buyer: Member, input: OrderCre
     await settleBundleStates(ids, transaction);
     if (starter) {
       await StarterClaim.create({ bundleId: lines[0]!.bundle.id, memberId: buyer.id, meetingId: null, orderId: created.id, claimedAt: now }, { transaction });
-      await WaitlistEntry.update({ status: 'claimed' }, { where: { memberId: buyer.id, status: ['waiting', 'offered'] }, transaction });
+      await leaveWaitlistWithClaim(ctx, buyer.id, transaction);
     }
     if (input.saveAddress && input.address) await buyer.update({ postalAddress: input.address }, { transaction });
     if (!needsPayment) await emailConfirmation(ctx, guild, created, transaction);
@@ -319,15 +321,17 @@ export async function cancelUnpaid(ctx: AppContext, orderId: string, reason: str
 }
 
 /** checkout.session.completed: the order is paid; rehome its bundles, write the ledger, tell both sides. */
-export async function confirmPayment(ctx: AppContext, sessionId: string, paymentIntentId: string | null, transaction: Transaction): Promise<'confirmed' | 'refund' | 'ignored'> {
+export async function confirmPayment(ctx: AppContext, sessionId: string, paymentIntentId: string | null, transaction: Transaction): Promise<void> {
   const order = await Order.findOne({ where: { stripeSessionId: sessionId }, transaction, lock: transaction.LOCK.UPDATE });
-  if (!order) return 'ignored';
+  if (!order) return;
   if (order.state !== 'awaiting_payment') {
     if (order.state === 'cancelled' && !order.paidAt && paymentIntentId) {
       await order.update({ stripePaymentIntentId: paymentIntentId, cancelReason: `${order.cancelReason ?? ''} Paid after the hold ended; refunded.`.trim() }, { transaction });
-      return 'refund';
+      // Queued with this event's record, so a card service that is down delays the refund, never loses it.
+      await ctx.queue.enqueue(LATE_REFUND_QUEUE, { orderId: order.id }, transaction);
+      return;
     }
-    return 'ignored';
+    return;
   }
   const guild = await loadGuild();
   await order.update({ state: 'confirmed', paidAt: ctx.now(), stripePaymentIntentId: paymentIntentId, holdExpiresAt: null }, { transaction });
@@ -344,7 +348,6 @@ export async function confirmPayment(ctx: AppContext, sessionId: string, payment
   };
   await writeLedger(ledgerEntriesForPaidOrder({ sellerId: order.sellerId, money }), { orderId: order.id, currency: order.currency, at: ctx.now() }, transaction);
   await emailConfirmation(ctx, guild, order, transaction);
-  return 'confirmed';
 }
 
 /** Refunds a payment in full through the payment service; the idempotency key makes a retry safe. */
@@ -358,9 +361,22 @@ async function refundPayment(ctx: AppContext, order: Order) {
   }
 }
 
-export async function refundLatePayment(ctx: AppContext, sessionId: string) {
-  const order = await Order.findOne({ where: { stripeSessionId: sessionId } });
-  if (order) await refundPayment(ctx, order);
+/**
+ * Refunds a payment that came in after its order was cancelled (a job of LATE_REFUND_QUEUE; it throws while the
+ * card service cannot be reached, and the queue tries again). The processor keeps its fee, as on any refund,
+ * so that cost goes on the ledger once, when the refund is done.
+ */
+export async function refundLatePayment(ctx: AppContext, orderId: string) {
+  const order = await findOrder(orderId);
+  if (order.refundedAt) return;
+  await refundPayment(ctx, order);
+  await ctx.sequelize.transaction(async (transaction) => {
+    const locked = await findOrder(orderId, transaction, true);
+    if (locked.refundedAt) return;
+    await locked.update({ refundedAt: ctx.now() }, { transaction });
+    const kept = processingCostEntries(locked.processingCostMinor);
+    if (kept.length > 0) await writeLedger(kept, { orderId: locked.id, currency: locked.currency, at: ctx.now() }, transaction);
+  });
 }
 
 async function reverseLedger(ctx: AppContext, order: Order, transaction: Transaction) {

@@ -3,7 +3,7 @@ import type Stripe from 'stripe';
 import { QueryTypes } from 'sequelize';
 import { badRequest } from '../../errors/index.ts';
 import type { AppContext } from '../../context.ts';
-import { cancelUnpaid, confirmPayment, refundLatePayment } from '../orders/orders.service.ts';
+import { cancelUnpaid, confirmPayment } from '../orders/orders.service.ts';
 
 /**
  * The payment service's events. The signature is checked on the raw body; each event id is
@@ -30,8 +30,8 @@ export function webhookRoutes(ctx: AppContext): Router {
         const session = event.data.object;
         if (session.payment_status !== 'paid') return;
         const paymentIntent = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
-        const outcome = await confirmPayment(ctx, session.id, paymentIntent, transaction);
-        if (outcome === 'refund') followUp = () => refundLatePayment(ctx, session.id);
+        // A payment for an order already cancelled queues its refund in this transaction.
+        await confirmPayment(ctx, session.id, paymentIntent, transaction);
       } else if (event.type === 'checkout.session.expired') {
         const sessionId = event.data.object.id;
         const orderId = event.data.object.metadata?.orderId;

@@ -52,7 +52,6 @@ export async function decide(ctx: AppContext, librarian: Actor, bundleId: string
         reviewedAt: now,
         onShelfAt: now,
         expiresAt: new Date(now.getTime() + guild.settings.shelfLimitDays * DAY_MS),
-        quantityAvailable: bundle.quantity,
       },
       { transaction },
     );

@@ -62,10 +62,25 @@ async function recordClaim(ctx: AppContext, guild: Guild, member: Member, bundle
   const remaining = bundle.quantityAvailable - 1;
   await bundle.update({ quantityAvailable: remaining, state: remaining === 0 ? 'rehomed' : 'on_shelf' }, { transaction });
   const claim = await StarterClaim.create({ bundleId: bundle.id, memberId: member.id, meetingId: meeting?.id ?? null, claimedAt: ctx.now() }, { transaction });
-  await WaitlistEntry.update({ status: 'claimed' }, { where: { memberId: member.id, status: { [Op.in]: ['waiting', 'offered'] } }, transaction });
+  await leaveWaitlistWithClaim(ctx, member.id, transaction);
   const mail = starterClaimed({ guildName: guild.name, name: member.name, title: bundle.title, link: `${ctx.config.appUrl}/starter`, meeting: meeting ? meetingLabel(meeting) : null });
   await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
   return claim;
+}
+
+/**
+ * A member who has claimed a starter bundle leaves the waiting list as `claimed`. A bundle held for them
+ * by an open offer passes to the next person in line, so nobody is offered a second bundle past the limit.
+ */
+export async function leaveWaitlistWithClaim(ctx: AppContext, memberId: string, transaction: Transaction): Promise<void> {
+  const entry = await WaitlistEntry.findOne({ where: { memberId, status: { [Op.in]: ['waiting', 'offered'] } }, transaction, lock: transaction.LOCK.UPDATE });
+  if (!entry) return;
+  await entry.update({ status: 'claimed' }, { transaction });
+  const offer = await WaitlistOffer.findOne({ where: { entryId: entry.id, status: 'open' }, transaction, lock: transaction.LOCK.UPDATE });
+  if (offer) {
+    await offer.update({ status: 'withdrawn', answeredAt: ctx.now() }, { transaction });
+    await offerToNextInLine(ctx, offer.bundleId, transaction);
+  }
 }
 
 /**
@@ -171,6 +186,9 @@ export async function acceptOffer(ctx: AppContext, memberId: string, offerId: st
     const member = (await Member.findByPk(memberId, { transaction, lock: transaction.LOCK.UPDATE }))!;
     const { offer, entry } = await lockedOffer(offerId, memberId, transaction);
     if (offer.status !== 'open' || offer.expiresAt <= ctx.now()) throw conflict('This offer has ended; it went to the next person in line.', { offer: 'Ended.' });
+    // The member may have reached the guild's limit since the offer was made.
+    const eligibility = await eligibilityOf(member, guild, ctx.now(), transaction);
+    if (!eligibility.eligible) throw ineligible(eligibility);
     const bundle = (await Bundle.findByPk(offer.bundleId, { transaction, lock: transaction.LOCK.UPDATE }))!;
     const meeting = await chosenMeeting(meetingId, ctx.now(), transaction);
     await offer.update({ status: 'accepted', answeredAt: ctx.now() }, { transaction });
