@@ -142,6 +142,16 @@ describe('guild settings and the invite code', () => {
     expect((await Guild.findByPk(1))!.toJSON()).toEqual(before);
   });
 
+  it('keeps the currency once amounts are held in it: 1500 cents never become 1500 of another currency', async () => {
+    const seller = await signedInClient(api.runtime.app, await createMember({ name: 'Priced Draft' }));
+    expect((await seller.send('post', '/api/bundles', { title: 'Priced draft', offer: 'sale', priceMinor: 1500 })).status).toBe(201);
+    const before = (await Guild.findByPk(1))!.toJSON();
+    const res = await adminClient.send('put', '/api/guild/settings', { ...validSettings, currency: before.currency === 'USD' ? 'CAD' : 'USD' });
+    expect(res.status).toBe(409);
+    expect(res.body.error.fields.currency).toContain(`kept in ${before.currency}`);
+    expect((await Guild.findByPk(1))!.toJSON()).toEqual(before);
+  });
+
   it('rotates the invite code: the old one stops working for joining', async () => {
     const res = await adminClient.send('post', '/api/guild/invite-code/rotate');
     expect(res.status).toBe(200);

@@ -248,6 +248,12 @@ describe('posting a starter bundle where the guild allows it', () => {
       // 200 g + 15 g envelope → the ½ lb local band 450¢ + 50¢ handling (the guild's default table); nothing for the bundle itself.
       expect(placed.body.order).toMatchObject({ subtotalMinor: 0, postageMinor: 500, chargeMinor: 500, state: 'awaiting_payment' });
       expect(await StarterClaim.count({ where: { memberId: posy.id, state: 'claimed' } })).toBe(1);
+      // The claim goes by post, so the meeting's handover sheet cannot cancel it; its order can.
+      const posted = (await StarterClaim.findOne({ where: { memberId: posy.id, state: 'claimed' } }))!;
+      const fromSheet = await librarianClient.send('post', `/api/handovers/${posted.id}/cancel`, {});
+      expect(fromSheet.status).toBe(409);
+      expect(fromSheet.body.error.fields.id).toBe('Sent by post.');
+      expect((await Bundle.findByPk(id))!.quantityAvailable).toBe(0);
 
       const other = await donated({ title: 'Second starter' });
       const again = await client.send('post', `/api/starter-bundles/${other}/claims`, {});

@@ -100,6 +100,11 @@ export function createCheckoutSession(ctx: FakeContext, params: ParamReader, req
     throw parameterInvalid(params.name('mode'), `The local Stripe stand-in supports only mode=payment, not ${mode}.`);
   }
   params.enumValue('ui_mode', ['hosted']);
+  // The stand-in takes cards only, so the one list of methods it accepts is cards alone.
+  const allowed = params.stringList('allowed_payment_method_types');
+  if (allowed.some((m) => m !== 'card')) {
+    throw parameterInvalid(params.name('allowed_payment_method_types'), 'The local Stripe stand-in takes cards only: allowed_payment_method_types may hold just "card".');
+  }
   const successUrl = readUrl(params, 'success_url', true) as string;
   const cancelUrl = readUrl(params, 'cancel_url', false) ?? null;
   const clientReferenceId = params.string('client_reference_id', { maxLength: 200 }) ?? null;

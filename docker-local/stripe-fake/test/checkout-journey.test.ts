@@ -214,12 +214,20 @@ describe('checkout, payment and refunds through the Stripe SDK', () => {
     const thirtyMinutes = await h.stripe.checkout.sessions.create(bundleCheckoutParams({ expires_at: now + 30 * 60 }));
     expect(thirtyMinutes.expires_at).toBe(now + 30 * 60);
 
+    // Cards are the only method the stand-in takes; asking for cards only is accepted.
+    await expect(h.stripe.checkout.sessions.create(bundleCheckoutParams({ allowed_payment_method_types: ['us_bank_account'] }))).rejects.toMatchObject({
+      code: 'parameter_invalid',
+      param: 'allowed_payment_method_types',
+    });
+    const cardsOnly = await h.stripe.checkout.sessions.create(bundleCheckoutParams({ allowed_payment_method_types: ['card'], expires_at: now + 40 * 60 }));
+    expect(cardsOnly.payment_method_types).toEqual(['card']);
+
     await expect(
       h.stripe.checkout.sessions.create({ ...bundleCheckoutParams(), shipping_address_collection: { allowed_countries: ['US'] } }),
     ).rejects.toMatchObject({ code: 'parameter_unknown', param: 'shipping_address_collection' });
 
     // Nothing half-made by the rejected requests.
-    expect(h.fake.store.sessions.size).toBe(1);
+    expect(h.fake.store.sessions.size).toBe(2);
   });
 
   it('uses the API key scheme Stripe uses: Bearer sk_test_… or 401', async () => {

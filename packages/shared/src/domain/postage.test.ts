@@ -23,7 +23,7 @@ describe('dimensionalWeight (carriers published rules, CHECKS.md)', () => {
     expect(d.volumeCubicInches / 166).toBeCloseTo(11.13, 2);
     expect(d.applies).toBe(true);
     expect(d.pounds).toBe(12);
-    expect(d.grams).toBe(5444); // 12 × 453.59237 = 5443.1 g, rounded up
+    expect(d.grams).toBe(5443); // 12 × 453.59237 = 5443.1 g, rounded down like a 12-lb band's limit
   });
 
   it('12 × 12 × 12 in = 1,728 in³ is not above the threshold, so not applied (Postal Bulletin 22509, boundary)', () => {
@@ -81,7 +81,7 @@ describe('matchZone', () => {
 
 /**
  * Hand-worked table (invented). Largest capacity: large box 9,000 − 400 = 8,600 g.
- * The large box is 14 × 12 × 11 in, so dimensional weight (12 lb = 5,444 g) applies to it.
+ * The large box is 14 × 12 × 11 in, so dimensional weight (12 lb = 5,443 g) applies to it.
  */
 const TABLE: PostageTable = {
   dimensional: USPS_2019,
@@ -145,7 +145,7 @@ describe('quotePostage (hand-worked invented table)', () => {
       '  Padded mailer: 400 g + 25 g tare = 425 g; billable 425 g; zone town band up to 500 g: $3.00.',
       '  Small box: 400 g + 110 g tare = 510 g; billable 510 g; zone town band up to 2,000 g: $6.00.',
       '  Flat-rate box: flat price $15.00.',
-      '  Large box: 400 g + 400 g tare = 800 g; dimensional 14 × 12 × 11 in = 1,848 in³ ÷ 166 → 12 lb = 5,444 g; billable 5,444 g; zone town band up to 10,000 g: $14.00.',
+      '  Large box: 400 g + 400 g tare = 800 g; dimensional 14 × 12 × 11 in = 1,848 in³ ÷ 166 → 12 lb = 5,443 g; billable 5,443 g; zone town band up to 10,000 g: $14.00.',
       '  → Padded mailer, $3.00.',
       'Handling: $0.75.',
       'Total postage: $3.75.',
@@ -154,7 +154,7 @@ describe('quotePostage (hand-worked invented table)', () => {
 
   it('prefers a flat price when it beats the band, and the band when it beats the flat price', () => {
     const country = quoteOf(quotePostage({ table: TABLE, items: [{ ref: 'Bag', grams: 2000 }], postalCode: 'V6B' }));
-    // small box 2,110 g → country ≤ 5,000 g band $19.00; flat $15.00; large box billable 5,444 g → $26.00
+    // small box 2,110 g → country ≤ 5,000 g band $19.00; flat $15.00; large box billable 5,443 g → $26.00
     expect(country.parcels[0]?.packageCode).toBe('flat');
     expect(country.parcels[0]?.bandMaxGrams).toBeNull();
     expect(country.totalMinor).toBe(1575);
@@ -182,9 +182,9 @@ describe('quotePostage (hand-worked invented table)', () => {
     expect(quote.parcels.map((p) => p.units.map((u) => u.ref))).toEqual([['Yardage', 'Strips'], ['Flannel']]);
     const [first, second] = quote.parcels;
     // parcel 1: only the large box holds 8,000 + 400; billable 8,400 g → town ≤ 10,000 g $14.00
-    expect(first).toMatchObject({ packageCode: 'large', contentGrams: 8000, billableGrams: 8400, dimensionalGrams: 5444, priceMinor: 1400 });
-    // parcel 2: flat $15.00 vs large box billable max(4,400, 5,444) = 5,444 g → $14.00
-    expect(second).toMatchObject({ packageCode: 'large', contentGrams: 4000, billableGrams: 5444, bandMaxGrams: 10000, priceMinor: 1400 });
+    expect(first).toMatchObject({ packageCode: 'large', contentGrams: 8000, billableGrams: 8400, dimensionalGrams: 5443, priceMinor: 1400 });
+    // parcel 2: flat $15.00 vs large box billable max(4,400, 5,443) = 5,443 g → $14.00
+    expect(second).toMatchObject({ packageCode: 'large', contentGrams: 4000, billableGrams: 5443, bandMaxGrams: 10000, priceMinor: 1400 });
     expect(quote.totalMinor).toBe(2875); // 1,400 + 1,400 + 75 handling
   });
 
@@ -250,6 +250,24 @@ describe('quotePostage (hand-worked invented table)', () => {
     expect(quote.totalMinor).toBe(800);
     const underPound = quoteOf(quotePostage({ table: poundTable, items: [{ ref: 'Bag', grams: 453 }], postalCode: 'X' }));
     expect(underPound.totalMinor).toBe(500);
+  });
+
+  it('bills a box of exactly 12 dimensional pounds in the 12-lb band, not the next (Postal Bulletin 22509 example box)', () => {
+    const boxTable: PostageTable = {
+      ...TABLE,
+      zones: [{ code: 'all', postalPrefixes: ['*'] }],
+      bands: [
+        { zone: 'all', maxGrams: poundBandLimitGrams(12), priceMinor: 1200 },
+        { zone: 'all', maxGrams: poundBandLimitGrams(13), priceMinor: 1300 },
+      ],
+      // 14 × 12 × 11 in inside: 1,848 in³ / 166 → 12 lb.
+      packaging: [{ code: 'box', name: 'Box', innerMm: [355.6, 304.8, 279.4], tareGrams: 400, maxGrams: 9000, flatPriceMinor: null }],
+      handlingMinor: 0,
+      dimensional: USPS_2019,
+    };
+    const quote = quoteOf(quotePostage({ table: boxTable, items: [{ ref: 'Yardage', grams: 1500 }], postalCode: 'X' }));
+    expect(quote.parcels[0]?.bandMaxGrams).toBe(5443);
+    expect(quote.totalMinor).toBe(1200);
   });
 });
 

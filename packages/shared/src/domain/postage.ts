@@ -127,7 +127,10 @@ export interface DimensionalWeight {
   applies: boolean;
   /** Whole pounds when it applies, else null. */
   pounds: number | null;
-  /** The pounds in grams, rounded up, when it applies, else null. */
+  /**
+   * The pounds in grams when it applies, else null: rounded down, as a band's limit is
+   * (`poundBandLimitGrams`), so a parcel of exactly N dimensional pounds is billed in the N-lb band.
+   */
   grams: number | null;
 }
 
@@ -143,7 +146,7 @@ export function dimensionalWeight(dimensionsIn: readonly [number, number, number
     volumeCubicInches,
     applies,
     pounds,
-    grams: pounds === null ? null : Math.ceil(pounds * GRAMS_PER_POUND),
+    grams: pounds === null ? null : poundBandLimitGrams(pounds),
   };
 }
 

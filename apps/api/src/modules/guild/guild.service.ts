@@ -28,11 +28,29 @@ export function settingsOf(guild: Guild): GuildSettings {
   return { name: guild.name, town: guild.town, currency: guild.currency as GuildSettings['currency'], defaultUnits: guild.defaultUnits, ...guild.settings };
 }
 
+/**
+ * Saves the guild's settings. The currency can change only while no listing, order or ledger entry holds an
+ * amount: prices are whole minor units of the currency they were entered in, so 1500 cents must not become 1500 yen.
+ */
 export async function updateSettings(input: GuildSettings): Promise<GuildSettings> {
-  const guild = await loadGuild();
   const { name, town, currency, defaultUnits, ...settings } = input;
-  await guild.update({ name, town, currency, defaultUnits, settings });
-  return settingsOf(guild);
+  return Guild.sequelize!.transaction(async (transaction) => {
+    const guild = (await Guild.findByPk(1, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    if (currency !== guild.currency) {
+      const [[{ amounts }]] = (await Guild.sequelize!.query(
+        `SELECT EXISTS (SELECT 1 FROM bundles WHERE price_minor IS NOT NULL)
+             OR EXISTS (SELECT 1 FROM orders) OR EXISTS (SELECT 1 FROM ledger_entries) AS amounts`,
+        { transaction },
+      )) as unknown as [[{ amounts: boolean }]];
+      if (amounts) {
+        throw new AppError(409, 'conflict', `The currency stays ${guild.currency}: listings, orders or the ledger already hold amounts in it.`, {
+          currency: `Prices and the ledger are kept in ${guild.currency}; it can change only before any are entered.`,
+        });
+      }
+    }
+    await guild.update({ name, town, currency, defaultUnits, settings }, { transaction });
+    return settingsOf(guild);
+  });
 }
 
 export async function rotateInviteCode(): Promise<string> {

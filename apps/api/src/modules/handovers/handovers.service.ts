@@ -165,6 +165,8 @@ export async function cancelHandover(ctx: AppContext, actor: Actor, id: string):
     const claim = await StarterClaim.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
     if (!claim) throw notFound('That handover');
     if (claim.state !== 'claimed') throw conflict('Only a handover still waiting can be cancelled.', { id: `It is ${claim.state}.` });
+    // A starter bundle sent by post is not a meeting handover: its order is cancelled as an order.
+    if (claim.orderId) throw conflict('That starter bundle goes by post, not at a meeting; cancel its order instead.', { id: 'Sent by post.' });
     await claim.update({ state: 'cancelled', cancelledAt: ctx.now(), cancelReason: 'Not collected at the meeting.' }, { transaction });
     await Bundle.sequelize!.query(
       `UPDATE bundles SET quantity_available = least(quantity, quantity_available + 1), state = CASE WHEN state = 'rehomed' THEN 'on_shelf' ELSE state END WHERE id = $1`,

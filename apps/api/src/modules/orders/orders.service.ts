@@ -291,6 +291,8 @@ async function openCheckout(ctx: AppContext, order: Order) {
     const session = await ctx.stripe.checkout.sessions.create(
       {
         mode: 'payment',
+        // Cards only: a method that settles days later would leave the bundles held with no answer.
+        allowed_payment_method_types: ['card'],
         line_items: lineItems.filter((l) => l.price_data.unit_amount > 0),
         success_url: `${ctx.config.appUrl}/orders/${order.id}?paid={CHECKOUT_SESSION_ID}`,
         cancel_url: `${ctx.config.appUrl}/orders/${order.id}`,

@@ -70,7 +70,7 @@ export function GuildSettingsForm({ settings, onSaved }: { settings: GuildSettin
       </FieldGroup>
 
       <FieldGroup legend="Money and units">
-        <SelectField name="currency" label="Currency" hint="Prices, postage, fees and payouts are all in this currency." options={currencyOptions} />
+        <SelectField name="currency" label="Currency" hint="Prices, postage, fees and payouts are all in this currency. It can change only before the first price is entered." options={currencyOptions} />
         <SelectField
           name="defaultUnits"
           label="Units for new members"
