@@ -82,6 +82,14 @@ describe('buying a sale bundle by post', () => {
     expect(quote.body).toMatchObject({ totalMinor: 730, currency: 'USD', zone: 'local' });
     expect(quote.body.parcels[0]).toMatchObject({ packageCode: 'padded_mailer', contentGrams: 454, billableGrams: 479, priceMinor: 680 });
     expect(quote.body.explanation.length).toBeGreaterThan(2);
+    // The default table's rates are for US addresses: another country gets no quote and no order, naming the field.
+    const abroad = await buyerClient.send('post', '/api/postage-quotes', { items: [{ bundleId, quantity: 1 }], destination: { country: 'ca', postalCode: 'K0A 1A0' } });
+    expect(abroad.status).toBe(422);
+    expect(abroad.body.error.fields['destination.country']).toContain('rates for US only, not CA');
+    const abroadOrder = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address: { ...address, country: 'CA' } });
+    expect(abroadOrder.status).toBe(422);
+    expect(Object.keys(abroadOrder.body.error.fields)).toEqual(['address.country']);
+    expect((await Bundle.findByPk(bundleId))!.state).toBe('on_shelf');
 
     const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address, saveAddress: true });
     expect(placed.status).toBe(201);

@@ -271,6 +271,22 @@ describe('quotePostage (hand-worked invented table)', () => {
   });
 });
 
+describe('countries a postage table covers', () => {
+  const items = [{ ref: 'Bag', grams: 400 }];
+  it('quotes an address in a listed country, in any letter case, and refuses one elsewhere', () => {
+    const table: PostageTable = { ...TABLE, countries: ['CA'] };
+    expect(quotePostage({ table, items, postalCode: 'K0A 1B0', country: 'ca' }).ok).toBe(true);
+    const abroad = quotePostage({ table, items, postalCode: '97451', country: 'US' });
+    expect(abroad.ok).toBe(false);
+    expect(!abroad.ok && abroad.error).toMatchObject({ code: 'country_not_covered' });
+  });
+
+  it('quotes any country when none is listed, as tables saved before the list existed', () => {
+    expect(quotePostage({ table: { ...TABLE, countries: [] }, items, postalCode: 'K0A 1B0', country: 'NZ' }).ok).toBe(true);
+    expect(quotePostage({ table: TABLE, items, postalCode: 'K0A 1B0', country: 'NZ' }).ok).toBe(true);
+  });
+});
+
 describe('DEFAULT_POSTAGE_TABLE (invented guild table)', () => {
   it('has the four presets with tares from CHECKS.md (from memory, ±30 %)', () => {
     const tare = (code: string) => DEFAULT_POSTAGE_TABLE.packaging.find((p) => p.code === code)?.tareGrams ?? Number.NaN;
@@ -281,8 +297,9 @@ describe('DEFAULT_POSTAGE_TABLE (invented guild table)', () => {
     for (const p of DEFAULT_POSTAGE_TABLE.packaging) expect(p.maxGrams).toBeGreaterThan(p.tareGrams);
   });
 
-  it('uses the 2019 US postal dimensional rule (Postal Bulletin 22509)', () => {
+  it('uses the 2019 US postal dimensional rule (Postal Bulletin 22509), and its rates are for US addresses', () => {
     expect(DEFAULT_POSTAGE_TABLE.dimensional).toEqual(USPS_2019);
+    expect(DEFAULT_POSTAGE_TABLE.countries).toEqual(['US']);
   });
 
   it('prices every zone up to the heaviest parcel the largest package can carry', () => {

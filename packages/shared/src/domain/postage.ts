@@ -54,6 +54,8 @@ export interface PackagingPreset {
 }
 
 export interface PostageTable {
+  /** Two-letter codes of the countries the rates are for; none listed means any address is quoted. */
+  countries?: readonly string[];
   dimensional: DimensionalRule;
   zones: readonly PostageZone[];
   bands: readonly PostageBand[];
@@ -74,6 +76,8 @@ export interface PostageQuoteInput {
   table: PostageTable;
   items: readonly PostageItem[];
   postalCode: string;
+  /** Two-letter country code of the address; checked against the table's countries when given. */
+  country?: string;
   /** For the explanation's prices; the table itself holds minor units only. */
   currency?: string;
   locale?: string;
@@ -105,7 +109,7 @@ export interface PostageQuote {
   explanation: string[];
 }
 
-export type PostageErrorCode = 'nothing_to_post' | 'no_zone' | 'too_heavy' | 'no_rate';
+export type PostageErrorCode = 'nothing_to_post' | 'country_not_covered' | 'no_zone' | 'too_heavy' | 'no_rate';
 
 export interface PostageError {
   code: PostageErrorCode;
@@ -244,6 +248,11 @@ export function quotePostage(input: PostageQuoteInput): PostageResult {
   const money = (minor: number) => formatMoney(minor, input.currency ?? 'USD', input.locale ?? 'en-US');
   const units = expandUnits(input.items);
   if (units.length === 0) return fail('nothing_to_post', 'There is nothing to post.');
+  const covered = table.countries ?? [];
+  const country = input.country?.trim().toUpperCase();
+  if (country !== undefined && covered.length > 0 && !covered.includes(country)) {
+    return fail('country_not_covered', `The guild's postage table has rates for ${covered.join(', ')} only, not ${country}. Choose a meeting handover, or ask the seller.`);
+  }
 
   const matched = matchZone(table.zones, input.postalCode);
   if (!matched) return fail('no_zone', `The guild's postage table has no zone for postal code “${input.postalCode}”.`);
@@ -373,6 +382,7 @@ function poundBands(zone: string, limits: ReadonlyArray<readonly [number, number
  * 300 mm cube (just under 12 in) so it stays below the dimensional threshold.
  */
 export const DEFAULT_POSTAGE_TABLE: PostageTable = {
+  countries: ['US'],
   dimensional: { divisorCubicInchesPerPound: 166, thresholdCubicInches: 1728, roundEachDimensionUp: false },
   zones: [
     { code: 'local', postalPrefixes: ['9745'] },

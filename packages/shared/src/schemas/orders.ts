@@ -91,6 +91,11 @@ export const meetingUpdateSchema = meetingSchema.partial();
 const wholeMm = z.int({ error: 'Whole millimetres.' }).min(1).max(2_000);
 export const postageTableSchema = z
   .strictObject({
+    countries: z
+      .array(postalAddressSchema.shape.country, { error: 'List two-letter country codes, like US.' })
+      .max(50, { error: 'At most 50 countries.' })
+      .refine((list) => new Set(list).size === list.length, { error: 'List each country once.' })
+      .default([]),
     dimensional: z.strictObject({
       divisorCubicInchesPerPound: z.number().positive({ error: 'Must be more than 0.' }).max(1_000),
       thresholdCubicInches: z.number().min(0).max(100_000),

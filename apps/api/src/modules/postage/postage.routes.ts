@@ -35,7 +35,7 @@ export function postageRoutes(): Router {
       return { ref: bundle.title, grams: bundle.weightGrams, quantity: item.quantity };
     });
     const guild = await loadGuild();
-    const quote = quoteOrThrow(guild, items, input.destination.postalCode);
+    const quote = quoteOrThrow(guild, items, input.destination, 'destination');
     const body: PostageQuoteView = { ...quote, currency: guild.currency };
     res.json(body);
   });

@@ -5,12 +5,16 @@ import { loadGuild } from '../guild/guild.service.ts';
 
 export const postageTableOf = (guild: Guild): PostageTable => guild.postageTable ?? DEFAULT_POSTAGE_TABLE;
 
-/** Runs the guild's postage rules; a bundle too heavy to post, or a weight with no rate, is a 422 the buyer can act on. */
-export function quoteOrThrow(guild: Guild, items: PostageItem[], postalCode: string): PostageQuote {
-  const result = quotePostage({ table: postageTableOf(guild), items, postalCode, currency: guild.currency });
+/**
+ * Runs the guild's postage rules; a bundle too heavy to post, a weight with no rate or a country the table
+ * does not cover is a 422 the buyer can act on. `field` names the destination in the request (`address`, `destination`).
+ */
+export function quoteOrThrow(guild: Guild, items: PostageItem[], to: { postalCode: string; country: string }, field: string): PostageQuote {
+  const result = quotePostage({ table: postageTableOf(guild), items, postalCode: to.postalCode, country: to.country, currency: guild.currency });
   if (!result.ok) {
     const hint = result.error.code === 'too_heavy' ? ' Choose a meeting handover instead.' : '';
-    throw unprocessable(`${result.error.message}${hint}`, { items: result.error.message });
+    const at = result.error.code === 'country_not_covered' ? `${field}.country` : 'items';
+    throw unprocessable(`${result.error.message}${hint}`, { [at]: result.error.message });
   }
   return result.quote;
 }

@@ -28,13 +28,14 @@ const splitPrefixes = (text: string): string[] =>
     .filter(Boolean);
 
 /** Postal-code prefixes typed as one line ("9745, 9746" or "*"), kept as the list the table stores. */
-export function PrefixesField({ name, label }: { name: string; label: string }) {
+/** A list of short codes typed in one box, separated by commas or spaces: postal-code prefixes, country codes. */
+export function PrefixesField({ name, label, hint = 'Separate prefixes with commas or spaces; * matches every postal code.' }: { name: string; label: string; hint?: string }) {
   const { control } = useFormContext();
   const listError = useErrorAt(name);
   const { errors } = useFormState({ name });
   const error = listError ?? firstItemError(errors, name);
   return (
-    <FieldShell label={label} hint="Separate prefixes with commas or spaces; * matches every postal code." error={error}>
+    <FieldShell label={label} hint={hint} error={error}>
       {(shell) => (
         <Controller
           name={name}

@@ -17,7 +17,7 @@ import { TryQuote } from './try-quote.tsx';
 type TableValues = z.input<typeof postageTableSchema>;
 
 // Lists whose rows carry their own errors (`bands.3.zone`): API errors there go next to the row.
-const ROW_PREFIXES = ['dimensional.', 'zones.', 'bands.', 'packaging.'];
+const ROW_PREFIXES = ['countries.', 'dimensional.', 'zones.', 'bands.', 'packaging.'];
 
 export interface PostageTableEditorProps {
   currency: string;
@@ -48,12 +48,13 @@ function PostageTableForm({ table, currency, units }: { table: PostageTable; cur
   return (
     <Form
       schema={postageTableSchema}
-      defaultValues={structuredClone(table) as TableValues}
+      // A table saved before the countries list existed has none: every country is quoted.
+      defaultValues={{ countries: [], ...structuredClone(table) } as TableValues}
       onSubmit={async (values, methods) => {
         setSavedAt(null);
         try {
           const { postage } = await update.mutateAsync(values);
-          methods.reset(structuredClone(postage) as TableValues);
+          methods.reset({ countries: [], ...structuredClone(postage) } as TableValues);
           setSavedAt(Date.now());
         } catch (error) {
           throw placeNestedFieldErrors(error, methods, ROW_PREFIXES);
@@ -63,6 +64,10 @@ function PostageTableForm({ table, currency, units }: { table: PostageTable; cur
     >
       <div className="space-y-6">
         <QuoteRules />
+
+        <FieldGroup legend="Countries" description="Addresses in other countries get no quote: the buyer chooses a meeting handover or asks the seller.">
+          <PrefixesField name="countries" label="Countries these rates are for" hint="Two-letter codes such as US, separated by commas or spaces. Leave empty to quote every address." />
+        </FieldGroup>
 
         <FieldGroup legend="Dimensional weight" description="A large, light box is billed by its size when its volume is over the threshold.">
           <NumberField name="dimensional.divisorCubicInchesPerPound" label="Divisor (cubic inches per pound)" hint="For example 166 or 139, as your carrier publishes." inputMode="decimal" />
