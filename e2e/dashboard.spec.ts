@@ -32,7 +32,7 @@ test('the treasurer reads the dashboard, every chart as a table too, and the mon
     await expect(figures.getByText(term, { exact: true })).toBeVisible();
   }
   // The treasurer sees the money; members do not (the API leaves it out for them).
-  for (const term of ['Funds raised', 'Credited to sellers', 'Paid out to sellers', 'Postage paid by buyers', 'Refunds']) {
+  for (const term of ['Funds raised', 'Guild fees', 'Card costs', 'Credited to sellers', 'Paid out to sellers', 'Postage paid by buyers', 'Refunds']) {
     await expect(figures.getByText(term, { exact: true })).toBeVisible();
   }
   await expect(figures.getByText(/^\$\d/).first()).toBeVisible();

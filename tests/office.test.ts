@@ -1,3 +1,4 @@
+import { processingCost } from '@scrap-relay/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Meeting, Order, type Member } from '../apps/api/src/db/models/index.ts';
 import { createMember, listenOnApiPort, signedInClient, startTestApi, type Client, type TestApi } from './support/api.ts';
@@ -79,8 +80,12 @@ describe('the dashboard and the month-end statement', () => {
     expect(units(after, 'meeting') - units(before, 'meeting')).toBe(1);
     expect(units(after, 'starter') - units(before, 'starter')).toBe(1);
     expect(after.newQuiltersServed - before.newQuiltersServed).toBe(1);
-    // Fees: 120 kept, 200 charged and reversed by the refund.
-    expect(after.money.fundsRaisedMinor - before.money.fundsRaisedMinor).toBe(120);
+    // Fees: 120 kept, 200 charged and reversed by the refund. The card costs of both charges stay with the guild
+    // (the processor keeps its fee on a refund; from memory), and funds raised is the fees less them.
+    expect(after.money.guildFeesMinor - before.money.guildFeesMinor).toBe(120);
+    // The guild's default card rate (2.9 % + 30¢) on the two charges of 1930 and 2730.
+    expect(after.money.processingCostMinor - before.money.processingCostMinor).toBe(processingCost(1930) + processingCost(2730));
+    expect(after.money.fundsRaisedMinor).toBe(after.money.guildFeesMinor - after.money.processingCostMinor);
     // Seller credits: 1200 − 120 + 730 = 1810 kept; the refunded order's 2000 − 200 + 730 = 2530 came and went.
     expect(after.money.sellerCreditsMinor - before.money.sellerCreditsMinor).toBe(1810);
     expect(after.money.payoutsMinor - before.money.payoutsMinor).toBe(500);
@@ -91,6 +96,7 @@ describe('the dashboard and the month-end statement', () => {
     const csvValue = (name: string) => csv.split('\n').find((line) => line.startsWith(`${name},`))?.split(',')[1];
     expect(Number(csvValue('weight_rehomed_grams'))).toBe(after.weightRehomedGrams);
     expect(Number(csvValue('funds_raised_minor'))).toBe(after.money.fundsRaisedMinor);
+    expect(Number(csvValue('processing_cost_minor'))).toBe(after.money.processingCostMinor);
 
     const s = await statement();
     expect(s.chargesMinor - statementBefore.chargesMinor).toBe(1930 + 2730);

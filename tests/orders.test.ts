@@ -399,6 +399,11 @@ describe('cancelling, refunds and the treasurer', () => {
     const problems = await treasurerClient.get('/api/orders?as=treasurer&problems=open');
     expect(problems.body.items.map((o: { id: string }) => o.id)).toContain(orderId);
     expect((await buyerClient.get('/api/orders?as=treasurer')).status).toBe(403);
+    // The treasurer handles the problem without the buyer's home address: only the buyer and the paid seller see it.
+    const treasurerView = await treasurerClient.get(`/api/orders/${orderId}`);
+    expect(treasurerView.status).toBe(200);
+    expect(treasurerView.body.order.address).toBeNull();
+    expect((await treasurerClient.get(`/api/orders/${orderId}/packing-slip`)).status).toBe(403);
     await waitForMail({ to: treasurer.email, subjectIncludes: 'A problem was reported' });
     expect((await sellerClient.send('post', `/api/orders/${orderId}/refund`)).status).toBe(403);
     const refunded = await treasurerClient.send('post', `/api/orders/${orderId}/refund`);

@@ -12,8 +12,11 @@ const PAID: OrderState[] = ['confirmed', 'posted', 'received', 'handed_over'];
 export const orderPolicy = {
   'order.view': (a: Actor, o?: OrderRecord) => isBuyer(a, o) || isSeller(a, o) || isTreasurer(a),
   'order.pay': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && o!.state === 'awaiting_payment',
-  /** The address reaches the seller only once the order is paid (or confirmed free). */
-  'order.viewAddress': (a: Actor, o?: OrderRecord) => isBuyer(a, o) || isTreasurer(a) || (isSeller(a, o) && PAID.includes(o!.state)),
+  /**
+   * The address is the buyer's own, and reaches the seller only while the order is paid (or confirmed free) and
+   * not cancelled or refunded. Officers never see it: the treasurer refunds and pays out without it.
+   */
+  'order.viewAddress': (a: Actor, o?: OrderRecord) => isBuyer(a, o) || (isSeller(a, o) && PAID.includes(o!.state)),
   'order.markPosted': (a: Actor, o?: OrderRecord) => isSeller(a, o) && o!.fulfilment === 'post' && o!.state === 'confirmed',
   'order.markReceived': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && o!.state === 'posted',
   'order.cancel': (a: Actor, o?: OrderRecord) =>

@@ -8,7 +8,10 @@ export interface DashboardFigures {
   bundlesExpired: number;
   /** Money figures are present only for officers who see the guild's money. */
   money: {
+    /** Guild fees after refunds, less the card processor's fees the guild bore: what the guild kept. */
     fundsRaisedMinor: number;
+    guildFeesMinor: number;
+    processingCostMinor: number;
     sellerCreditsMinor: number;
     payoutsMinor: number;
     postagePaidMinor: number;

@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { payoutEntries, type LedgerEntryView, type LedgerQuery, type PayoutInput, type SellerBalanceView } from '@scrap-relay/shared';
+import { formatMoney, payoutEntries, type LedgerEntryView, type LedgerQuery, type PayoutInput, type SellerBalanceView } from '@scrap-relay/shared';
 import { Member, Payout } from '../../db/models/index.ts';
 import { notFound, unprocessable } from '../../errors/index.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
@@ -101,7 +101,8 @@ export async function recordPayout(ctx: AppContext, actor: Actor, input: PayoutI
     );
     const balance = row?.balance ?? 0;
     if (input.amountMinor > balance) {
-      throw unprocessable(`That is more than the guild owes ${seller.name} (${balance} minor units).`, { amountMinor: 'More than the balance.' });
+      const owed = formatMoney(Math.max(balance, 0), guild.currency);
+      throw unprocessable(`That is more than the guild owes ${seller.name} (${owed}).`, { amountMinor: `More than the ${owed} owed.` });
     }
     const payout = await Payout.create(
       { sellerId: seller.id, amountMinor: input.amountMinor, currency: guild.currency, method: input.method, reference: input.reference, recordedBy: actor.id, createdAt: ctx.now() },

@@ -113,7 +113,9 @@ export async function dashboardFigures(sequelize: Sequelize, q: DashboardQuery, 
 
   const money: DashboardFigures['money'] = withMoney
     ? {
-        fundsRaisedMinor: total('money', 'fees'),
+        fundsRaisedMinor: total('money', 'fees') - total('money', 'processing'),
+        guildFeesMinor: total('money', 'fees'),
+        processingCostMinor: total('money', 'processing'),
         sellerCreditsMinor: total('money', 'credits'),
         payoutsMinor: total('money', 'payouts'),
         postagePaidMinor: total('postage'),
@@ -154,6 +156,8 @@ export function dashboardRows(f: DashboardFigures): [string, string | number][] 
   if (f.money) {
     rows.push(
       ['funds_raised_minor', f.money.fundsRaisedMinor],
+      ['guild_fees_minor', f.money.guildFeesMinor],
+      ['processing_cost_minor', f.money.processingCostMinor],
       ['seller_credits_minor', f.money.sellerCreditsMinor],
       ['payouts_minor', f.money.payoutsMinor],
       ['postage_paid_minor', f.money.postagePaidMinor],

@@ -97,7 +97,9 @@ function Figures({ title, figures, units, busy }: { title: string; figures: Dash
         <>
           <h3 className="pt-2 text-lg font-bold">Money</h3>
           <dl className="grid grid-cols-2 gap-3 sm:gap-4 lg:grid-cols-3">
-            <Figure term="Funds raised" value={formatMoney(money.fundsRaisedMinor, money.currency)} detail="Guild fees kept, after refunds." />
+            <Figure term="Funds raised" value={formatMoney(money.fundsRaisedMinor, money.currency)} detail="Guild fees less card costs: what the guild kept." />
+            <Figure term="Guild fees" value={formatMoney(money.guildFeesMinor, money.currency)} detail="After refunds." />
+            <Figure term="Card costs" value={formatMoney(money.processingCostMinor, money.currency)} detail="The card processor’s fees, kept even on refunds." />
             <Figure term="Credited to sellers" value={formatMoney(money.sellerCreditsMinor, money.currency)} />
             <Figure term="Paid out to sellers" value={formatMoney(money.payoutsMinor, money.currency)} />
             <Figure term="Postage paid by buyers" value={formatMoney(money.postagePaidMinor, money.currency)} />

@@ -68,6 +68,8 @@ export function SellerBalancesView() {
               <Button variant="secondary" onClick={() => choose(row.original.sellerId)}>
                 Record a payout<span className="sr-only"> to {row.original.name}</span>
               </Button>
+            ) : row.original.balanceMinor < 0 ? (
+              <span>Owes the guild {formatMoney(-row.original.balanceMinor, row.original.currency)}, from a refund after a payout</span>
             ) : (
               <span className="text-thread-soft">Nothing owed</span>
             ),
@@ -93,13 +95,24 @@ export function SellerBalancesView() {
   const selected = items.find((item) => item.sellerId === sellerId) ?? null;
   const currency = items[0]?.currency;
   const totalOwed = owed.reduce((sum, item) => sum + item.balanceMinor, 0);
+  const owing = items.filter((item) => item.balanceMinor < 0);
+  const totalOwing = owing.reduce((sum, item) => sum - item.balanceMinor, 0);
 
   return (
     <div className="space-y-6">
       {currency ? (
-        <p className="text-lg">
-          The guild owes sellers <strong>{formatMoney(totalOwed, currency)}</strong> in all.
-        </p>
+        <div className="space-y-2">
+          <p className="text-lg">
+            The guild owes sellers <strong>{formatMoney(totalOwed, currency)}</strong> in all.
+          </p>
+          {owing.length > 0 ? (
+            <p>
+              {owing.length === 1 ? `${owing[0]!.name} owes` : `${owing.length} sellers owe`} the guild{' '}
+              <strong>{formatMoney(totalOwing, currency)}</strong>: a refund came after they were paid out. It comes off their next sales,
+              so the month statement’s total owed to sellers, which nets it off, is {formatMoney(totalOwed - totalOwing, currency)}.
+            </p>
+          ) : null}
+        </div>
       ) : null}
       <DataTable
         caption="Seller balances"
