@@ -142,6 +142,17 @@ describe('guild settings and the invite code', () => {
     expect((await Guild.findByPk(1))!.toJSON()).toEqual(before);
   });
 
+  it('keeps the guild’s time zone, refusing one no clock knows, and a document without it means UTC', async () => {
+    const saved = await adminClient.send('put', '/api/guild/settings', { ...validSettings, timeZone: 'America/Los_Angeles' });
+    expect(saved.status).toBe(200);
+    expect(saved.body.settings.timeZone).toBe('America/Los_Angeles');
+    const wrong = await adminClient.send('put', '/api/guild/settings', { ...validSettings, timeZone: 'Atlantis/Lost_City' });
+    expect(wrong.status).toBe(400);
+    expect(Object.keys(wrong.body.error.fields)).toEqual(['timeZone']);
+    expect((await adminClient.get('/api/guild/settings')).body.settings.timeZone).toBe('America/Los_Angeles');
+    expect((await adminClient.send('put', '/api/guild/settings', validSettings)).body.settings.timeZone).toBe('UTC');
+  });
+
   it('keeps the currency once amounts are held in it: 1500 cents never become 1500 of another currency', async () => {
     const seller = await signedInClient(api.runtime.app, await createMember({ name: 'Priced Draft' }));
     expect((await seller.send('post', '/api/bundles', { title: 'Priced draft', offer: 'sale', priceMinor: 1500 })).status).toBe(201);

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { Bundle, DEFAULT_GUILD_SETTINGS, Guild, Meeting, Order, StarterClaim, WaitlistEntry, type Member } from '../apps/api/src/db/models/index.ts';
 import { lapseOffers } from '../apps/api/src/modules/starter/starter.service.ts';
 import { sendMeetingReminders } from '../apps/api/src/modules/handovers/handovers.service.ts';
+import { formatWhen } from '../apps/api/src/emails/format.ts';
 import { createMember, signedInClient, startTestApi, type Client, type TestApi } from './support/api.ts';
 import { listAndSubmit } from './support/bundles.ts';
 import { clearMail, listMail, waitForMail } from './support/services.ts';
@@ -188,8 +189,10 @@ describe('the waiting list', () => {
 });
 
 describe('meeting reminders and moving handovers', () => {
-  it('e-mails only the people with something to bring or collect, once', async () => {
+  it('e-mails only the people with something to bring or collect, once, with the time where the guild meets', async () => {
     const soon = await Meeting.create({ startsAt: new Date(Date.now() + 36 * 3600 * 1000), place: 'Church room', createdBy: null });
+    const guild = (await Guild.findByPk(1))!;
+    await guild.update({ settings: { ...guild.settings, timeZone: 'Pacific/Auckland' } });
     const id = await donated({ title: 'Starter reds' });
     const collector = await newQuilter('Cora Collector');
     const bystander = await createMember({ name: 'Bea Bystander' });
@@ -200,6 +203,10 @@ describe('meeting reminders and moving handovers', () => {
     expect(await sendMeetingReminders(api.runtime.ctx)).toBe(2);
     const toCollector = await waitForMail({ to: collector.email, subjectIncludes: 'Reminder for the meeting' });
     expect(toCollector.text).toContain('You will collect:');
+    // In the guild's own zone, as the meeting is announced there, not in UTC.
+    expect(toCollector.text).toContain(`${formatWhen(soon.startsAt, 'Pacific/Auckland')}, Church room`);
+    expect(toCollector.text).toMatch(/GMT\+1[23]/);
+    await guild.update({ settings: { ...guild.settings, timeZone: 'UTC' } });
     const toDonor = await waitForMail({ to: donor.email, subjectIncludes: 'Reminder for the meeting' });
     expect(toDonor.text).toContain('Please bring:');
     expect((await listMail()).some((m) => m.to.includes(bystander.email))).toBe(false);

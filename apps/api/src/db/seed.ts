@@ -7,7 +7,7 @@ import { DEFAULT_GUILD_SETTINGS, Guild, Member, initModels } from './models/inde
 import { seedDemoShelf } from './demo-bundles.ts';
 
 /** The invented demo guild: Ferncombe is a made-up town, and every person here is made up. */
-export const DEMO_GUILD = { name: 'Ferncombe Patchwork Guild', town: 'Ferncombe', currency: 'USD', inviteCode: 'FERNCOMBE-2026' };
+export const DEMO_GUILD = { name: 'Ferncombe Patchwork Guild', town: 'Ferncombe', currency: 'USD', inviteCode: 'FERNCOMBE-2026', timeZone: 'America/Los_Angeles' };
 export const DEMO_PASSWORD = 'quilt-relay-demo';
 
 interface DemoAccount {
@@ -40,7 +40,7 @@ export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<
   await sequelize.transaction(async (transaction) => {
     await Guild.findOrCreate({
       where: { id: 1 },
-      defaults: { id: 1, name: DEMO_GUILD.name, town: DEMO_GUILD.town, currency: DEMO_GUILD.currency, defaultUnits: 'imperial', settings: DEFAULT_GUILD_SETTINGS, inviteCode: DEMO_GUILD.inviteCode },
+      defaults: { id: 1, name: DEMO_GUILD.name, town: DEMO_GUILD.town, currency: DEMO_GUILD.currency, defaultUnits: 'imperial', settings: { ...DEFAULT_GUILD_SETTINGS, timeZone: DEMO_GUILD.timeZone }, inviteCode: DEMO_GUILD.inviteCode },
       transaction,
     });
     const passwordHash = await hashPassword(DEMO_PASSWORD);

@@ -54,6 +54,9 @@ export type MemberUpdateInput = z.infer<typeof memberUpdateSchema>;
 export const CURRENCIES = ['USD', 'CAD', 'GBP', 'EUR', 'AUD', 'NZD', 'JPY'] as const;
 export const currencySchema = z.enum(CURRENCIES);
 
+/** IANA time zones this runtime knows (Node and every current browser list them), plus UTC. */
+export const isKnownTimeZone = (zone: string): boolean => zone === 'UTC' || Intl.supportedValuesOf('timeZone').includes(zone);
+
 export const guildSettingsSchema = z.strictObject({
   name: z.string().trim().min(2, { error: 'Enter the guild name.' }).max(100),
   town: z.string().trim().max(100),
@@ -69,5 +72,7 @@ export const guildSettingsSchema = z.strictObject({
   starterWindowDays: z.int().min(1).max(730),
   starterOfferHours: z.int().min(1).max(720),
   starterPostingAllowed: z.boolean(),
+  /** Where the guild meets: e-mails give meeting times and deadlines in this zone. */
+  timeZone: z.string({ error: 'Choose a time zone.' }).refine(isKnownTimeZone, { error: 'Choose a time zone from the list.' }).default('UTC'),
 });
 export type GuildSettings = z.infer<typeof guildSettingsSchema>;

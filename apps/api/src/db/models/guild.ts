@@ -13,6 +13,8 @@ export interface GuildSettingsDocument {
   starterWindowDays: number;
   starterOfferHours: number;
   starterPostingAllowed: boolean;
+  /** Absent in documents saved before it existed: UTC. */
+  timeZone?: string;
 }
 
 export const DEFAULT_GUILD_SETTINGS: GuildSettingsDocument = {
@@ -26,6 +28,7 @@ export const DEFAULT_GUILD_SETTINGS: GuildSettingsDocument = {
   starterWindowDays: 90,
   starterOfferHours: 72,
   starterPostingAllowed: false,
+  timeZone: 'UTC',
 };
 
 export class Guild extends Model<InferAttributes<Guild>, InferCreationAttributes<Guild>> {

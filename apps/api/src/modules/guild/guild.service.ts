@@ -25,7 +25,19 @@ export async function loadGuild(): Promise<Guild> {
 }
 
 export function settingsOf(guild: Guild): GuildSettings {
-  return { name: guild.name, town: guild.town, currency: guild.currency as GuildSettings['currency'], defaultUnits: guild.defaultUnits, ...guild.settings };
+  return {
+    name: guild.name,
+    town: guild.town,
+    currency: guild.currency as GuildSettings['currency'],
+    defaultUnits: guild.defaultUnits,
+    ...guild.settings,
+    timeZone: guildTimeZone(guild),
+  };
+}
+
+/** The zone e-mails give times in; UTC for a guild that has not chosen one. */
+export function guildTimeZone(guild: Guild): string {
+  return guild.settings.timeZone ?? 'UTC';
 }
 
 /**

@@ -7,7 +7,7 @@ import { handoverMoved, meetingReminder } from '../../emails/starter.ts';
 import { meetingLabel } from '../../emails/format.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
-import { loadGuild } from '../guild/guild.service.ts';
+import { guildTimeZone, loadGuild } from '../guild/guild.service.ts';
 import { cancelOrder } from '../orders/orders.service.ts';
 import { offerToNextInLine } from '../starter/starter.service.ts';
 
@@ -146,7 +146,7 @@ export async function moveOpenHandovers(ctx: AppContext, actor: Actor, fromMeeti
     for (const [memberId, titles] of titlesFor) {
       const member = await Member.findByPk(memberId, { transaction });
       if (!member) continue;
-      const mail = handoverMoved({ guildName: guild.name, name: member.name, titles, meeting: meetingLabel(to), link: ctx.config.appUrl });
+      const mail = handoverMoved({ guildName: guild.name, name: member.name, titles, meeting: meetingLabel(to, guildTimeZone(guild)), link: ctx.config.appUrl });
       await ctx.queue.enqueueEmail({ to: member.email, kind: 'meetings', ...mail }, transaction);
     }
     return orders.length + claims.length;
@@ -203,7 +203,7 @@ export async function sendMeetingReminders(ctx: AppContext): Promise<number> {
       for (const id of people) {
         const member = await Member.findByPk(id, { transaction });
         if (!member || !member.active) continue;
-        const mail = meetingReminder({ guildName: guild.name, name: member.name, meeting: meetingLabel(meeting), bring: bring.get(id) ?? [], collect: collect.get(id) ?? [], link: ctx.config.appUrl });
+        const mail = meetingReminder({ guildName: guild.name, name: member.name, meeting: meetingLabel(meeting, guildTimeZone(guild)), bring: bring.get(id) ?? [], collect: collect.get(id) ?? [], link: ctx.config.appUrl });
         await ctx.queue.enqueueEmail({ to: member.email, kind: 'meetings', ...mail }, transaction);
         sent++;
       }

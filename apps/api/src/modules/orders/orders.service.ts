@@ -22,7 +22,7 @@ import {
 } from '../../emails/orders.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
-import { loadGuild } from '../guild/guild.service.ts';
+import { guildTimeZone, loadGuild } from '../guild/guild.service.ts';
 import { meetingLabel } from '../../emails/format.ts';
 import { quoteOrThrow } from '../postage/postage.service.ts';
 import { writeLedger } from './ledger-writer.ts';
@@ -92,7 +92,7 @@ async function emailConfirmation(ctx: AppContext, guild: Guild, order: Order, tr
   const titles = items.map((i) => (i.quantity > 1 ? `${i.title} × ${i.quantity}` : i.title));
   const amount = order.chargeMinor > 0 ? formatMoney(order.chargeMinor, order.currency) : '';
   const link = `${ctx.config.appUrl}/orders/${order.id}`;
-  const when = meeting ? meetingLabel(meeting) : null;
+  const when = meeting ? meetingLabel(meeting, guildTimeZone(guild)) : null;
   await ctx.queue.enqueueEmail(
     { to: seller!.email, ...orderSoldToSeller({ guildName: guild.name, name: seller!.name, reference: order.reference, titles, link, buyerName: buyer!.name, address: order.address, meeting: when, amount: amount || 'nothing (a gift)' }) },
     transaction,

@@ -3,10 +3,10 @@ import { isNewQuilter, offerExpiresAtFrom, starterEligibility, type StarterEligi
 import { Bundle, Meeting, Member, StarterClaim, WaitlistEntry, WaitlistOffer, type Guild } from '../../db/models/index.ts';
 import { AppError, badRequest, conflict, notFound } from '../../errors/index.ts';
 import { starterClaimed, starterOffered } from '../../emails/starter.ts';
-import { meetingLabel } from '../../emails/format.ts';
+import { formatWhen, meetingLabel } from '../../emails/format.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
-import { loadGuild } from '../guild/guild.service.ts';
+import { guildTimeZone, loadGuild } from '../guild/guild.service.ts';
 
 const DAY_MS = 86_400_000;
 
@@ -63,7 +63,7 @@ async function recordClaim(ctx: AppContext, guild: Guild, member: Member, bundle
   await bundle.update({ quantityAvailable: remaining, state: remaining === 0 ? 'rehomed' : 'on_shelf' }, { transaction });
   const claim = await StarterClaim.create({ bundleId: bundle.id, memberId: member.id, meetingId: meeting?.id ?? null, claimedAt: ctx.now() }, { transaction });
   await leaveWaitlistWithClaim(ctx, member.id, transaction);
-  const mail = starterClaimed({ guildName: guild.name, name: member.name, title: bundle.title, link: `${ctx.config.appUrl}/starter`, meeting: meeting ? meetingLabel(meeting) : null });
+  const mail = starterClaimed({ guildName: guild.name, name: member.name, title: bundle.title, link: `${ctx.config.appUrl}/starter`, meeting: meeting ? meetingLabel(meeting, guildTimeZone(guild)) : null });
   await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
   return claim;
 }
@@ -163,7 +163,7 @@ export async function offerToNextInLine(ctx: AppContext, bundleId: string, trans
       name: member.name,
       title: bundle.title,
       link: `${ctx.config.appUrl}/starter/offers/${offer.id}`,
-      deadline: `${offer.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`,
+      deadline: formatWhen(offer.expiresAt, guildTimeZone(guild)),
     });
     await ctx.queue.enqueueEmail({ to: member.email, kind: 'starter', ...mail }, transaction);
     return offer;

@@ -38,6 +38,7 @@ const messages: Partial<Record<keyof GuildSettings, string>> = {
 };
 
 const currencyOptions = CURRENCIES.map((code) => ({ value: code, label: code }));
+const timeZoneOptions = ['UTC', ...Intl.supportedValuesOf('timeZone')].map((zone) => ({ value: zone, label: zone.replaceAll('_', ' ') }));
 const unitOptions = [
   { value: 'imperial', label: 'Inches, yards and ounces' },
   { value: 'metric', label: 'Centimetres, metres and grams' },
@@ -67,6 +68,7 @@ export function GuildSettingsForm({ settings, onSaved }: { settings: GuildSettin
       <FieldGroup legend="The guild">
         <TextField name="name" label="Guild name" hint="Shown in the header of every page and in e-mails." autoComplete="organization" />
         <TextField name="town" label="Town" hint="Where the guild meets. You may leave it empty." autoComplete="address-level2" />
+        <SelectField name="timeZone" label="Time zone" hint="E-mails give meeting times and deadlines in this zone." options={timeZoneOptions} />
       </FieldGroup>
 
       <FieldGroup legend="Money and units">
