@@ -47,6 +47,10 @@ async function donated(overrides: Record<string, unknown> = {}) {
 describe('claiming starter bundles', () => {
   it('a new quilter claims one, and the librarian sees it on the meeting’s handover sheet', async () => {
     const id = await donated();
+    // The donor hears it is for a new quilter, not that it is on sale on the shelf.
+    const thanks = await waitForMail({ to: donor.email, subjectIncludes: 'For a new quilter' });
+    expect(thanks.text).toContain('starter programme');
+    expect(thanks.text).not.toContain('on the guild\'s shelf');
     const nell = await newQuilter('Nell Tester');
     const client = await signedInClient(api.runtime.app, nell);
     const list = await client.get('/api/starter-bundles');

@@ -3,7 +3,9 @@ import type { Sequelize } from 'sequelize';
 import { toHex, type BundleDraftInput } from '@scrap-relay/shared';
 import { localStorage } from '../integrations/storage.ts';
 import { processPhoto } from '../modules/bundles/photo-pipeline.ts';
-import { Bundle, BundlePhoto, Meeting, Member } from './models/index.ts';
+import { Bundle, BundlePhoto, BundleReview, Meeting, Member } from './models/index.ts';
+
+const DEMO_LIBRARIAN_EMAIL = 'lena@ferncombe-quilters.example';
 
 interface DemoBundle extends BundleDraftInput {
   seller: string;
@@ -29,7 +31,7 @@ const DEMO_BUNDLES: DemoBundle[] = [
   {
     seller: 'ruth@ferncombe-quilters.example', state: 'on_shelf', palette: ['#e4572e', '#f3a712', '#a8201a', '#f6d55c'], pattern: 'squares',
     title: 'Batik fat quarters, sunset colours', description: 'Six fat quarters in oranges, golds and reds. Two identical packs.',
-    offer: 'sale', priceMinor: 1500, meetingHandoverOk: false, quantity: 2, weightGrams: 420, fibre: 'batik', cutKinds: ['fat_quarters'],
+    offer: 'sale', priceMinor: 1500, meetingHandoverOk: false, quantity: 2, weightGrams: 215, fibre: 'batik', cutKinds: ['fat_quarters'],
     colourValue: 'medium', colourFamily: 'warm', prewashed: false, smokeFree: true, petFree: true, pieces: [{ widthMm: 457, heightMm: 559, count: 6 }],
   },
   {
@@ -67,12 +69,15 @@ export async function seedDemoShelf(sequelize: Sequelize, uploadDir: string, cur
   const storage = localStorage(uploadDir);
   const meetings = await Meeting.count();
   if (meetings === 0) {
-    const day = (n: number) => new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate() + n, 19, 0));
+    // 7 pm in Ferncombe, whose guild keeps Pacific time: 03:00 UTC the next day in winter (8 pm in summer).
+    const day = (n: number) => new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate() + n + 1, 3, 0));
     await Meeting.bulkCreate([
       { startsAt: day(9), place: 'Ferncombe Village Hall, back room', notes: 'Bring bundles to hand over in a labelled bag.', createdBy: null },
       { startsAt: day(37), place: 'Ferncombe Village Hall, back room', notes: 'Annual stash swap evening.', createdBy: null },
     ]);
   }
+  // The librarian's approvals stand behind the listings on the shelf, as they would in use.
+  const librarian = await Member.findOne({ where: { email: DEMO_LIBRARIAN_EMAIL } });
   for (const [index, demo] of DEMO_BUNDLES.entries()) {
     const seller = await Member.findOne({ where: { email: demo.seller } });
     if (!seller || (await Bundle.findOne({ where: { sellerId: seller.id, title: demo.title! } }))) continue;
@@ -105,6 +110,9 @@ export async function seedDemoShelf(sequelize: Sequelize, uploadDir: string, cur
         },
         { transaction },
       );
+      if (state === 'on_shelf' && librarian) {
+        await BundleReview.create({ bundleId: bundle.id, reviewerId: librarian.id, decision: 'approve', notes: null, createdAt: onShelfAt }, { transaction });
+      }
       const key = `photos/${bundle.id}/demo`;
       await storage.put(`${key}-1600.webp`, photo.display.data);
       await storage.put(`${key}-800.webp`, photo.medium.data);

@@ -19,6 +19,22 @@ export function bundleApproved(p: Base): RenderedEmail {
   });
 }
 
+/** A donation to the starter programme: it goes to a new quilter, not on sale, so the next step differs. */
+export function starterBundleApproved(p: Base): RenderedEmail {
+  const next = 'When a new quilter claims it, we will remind you before the meeting where it changes hands, or e-mail you to post it if it goes by post.';
+  return layout({
+    guildName: p.guildName,
+    subject: `For a new quilter: ${p.title}`,
+    text: `Hello ${p.name},
+
+Thank you. The librarian approved "${p.title}" for the starter programme: it goes to a new quilter, whoever has waited longest first.
+${p.link}
+
+${next}`,
+    bodyHtml: html`<p>Hello ${p.name},</p><p>Thank you. The librarian approved <strong>${p.title}</strong> for the starter programme: it goes to a new quilter, whoever has waited longest first.</p>${button(p.link, 'See your bundle')}<p>${next}</p>`,
+  });
+}
+
 export function bundleReturned(p: Base & { notes: string }): RenderedEmail {
   return layout({
     guildName: p.guildName,

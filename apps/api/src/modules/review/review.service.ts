@@ -1,7 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import type { ReviewDecisionInput } from '@scrap-relay/shared';
 import { Bundle, BundleReview, Member } from '../../db/models/index.ts';
-import { bundleApproved, bundleReturned, wishMatched } from '../../emails/bundles.ts';
+import { bundleApproved, starterBundleApproved, bundleReturned, wishMatched } from '../../emails/bundles.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { loadGuild } from '../guild/guild.service.ts';
@@ -55,7 +55,8 @@ export async function decide(ctx: AppContext, librarian: Actor, bundleId: string
       },
       { transaction },
     );
-    await ctx.queue.enqueueEmail({ to: seller.email, kind: 'review', ...bundleApproved({ guildName: guild.name, name: seller.name, title: bundle.title, link }) }, transaction);
+    const approved = bundle.offer === 'starter' ? starterBundleApproved : bundleApproved;
+    await ctx.queue.enqueueEmail({ to: seller.email, kind: 'review', ...approved({ guildName: guild.name, name: seller.name, title: bundle.title, link }) }, transaction);
 
     // A starter bundle goes first to whoever has waited longest.
     if (bundle.offer === 'starter') await offerToNextInLine(ctx, bundle.id, transaction);
