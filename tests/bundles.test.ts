@@ -334,9 +334,32 @@ describe('bad listing input', () => {
   });
 
   it('refuses unknown shelf filters with 400 naming them', async () => {
-    const res = await buyerClient.get('/api/bundles?fibre=spider_silk&sort=sideways&page=0');
+    const res = await buyerClient.get('/api/bundles?fibre=spider_silk&sort=sideways&page=0&size=strip_7');
     expect(res.status).toBe(400);
-    expect(Object.keys(res.body.error.fields).sort()).toEqual(['fibre', 'page', 'sort']);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['fibre', 'page', 'size', 'sort']);
+  });
+
+  it('finds bundles by strip width or square size, and keeps each size with its cut kind', async () => {
+    const word = 'sizecheck';
+    const strips = await listAndSubmit(sellerClient, { title: `${word} strips`, cutKinds: ['strips', 'squares'], cutSizes: ['strip_2_5', 'square_5'] });
+    const wide = await listAndSubmit(sellerClient, { title: `${word} wide strips`, cutKinds: ['strips'], cutSizes: ['strip_5'] });
+    for (const id of [strips, wide]) expect((await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'approve' })).status).toBe(200);
+    const found = async (query: string) =>
+      ((await buyerClient.get(`/api/bundles?q=${word}&${query}`)).body.items as { id: string }[]).map((b) => b.id).sort();
+    expect(await found('size=strip_2_5')).toEqual([strips]);
+    expect(await found('size=square_5&cut=squares')).toEqual([strips]);
+    expect(await found('size=strip_5')).toEqual([wide]);
+    expect(await found('size=square_10')).toEqual([]);
+    expect((await buyerClient.get(`/api/bundles/${strips}`)).body.bundle.cutSizes).toEqual(['strip_2_5', 'square_5']);
+
+    // A square size needs squares among the cut kinds; unticking a kind drops its sizes with it.
+    const draft = await newDraft(sellerClient, { ...completeListing, cutKinds: ['strips'], cutSizes: ['strip_2_5'] });
+    const mismatch = await sellerClient.send('patch', `/api/bundles/${draft}`, { cutSizes: ['square_10'] });
+    expect(mismatch.status).toBe(400);
+    expect(mismatch.body.error.fields.cutSizes).toBe('10-inch squares need Squares among the cut kinds.');
+    const unticked = await sellerClient.send('patch', `/api/bundles/${draft}`, { cutKinds: ['yardage'] });
+    expect(unticked.status).toBe(200);
+    expect(unticked.body.bundle).toMatchObject({ cutKinds: ['yardage'], cutSizes: [] });
   });
 });
 
@@ -360,9 +383,12 @@ describe('wishes', () => {
     expect(created.status).toBe(201);
     const other = await buyerClient.send('post', '/api/wishes', { name: 'Selvages', filters: { cut: 'selvages' } });
     expect(other.status).toBe(201);
+    // A size the new bundle does not have: no e-mail for this one.
+    const wide = await buyerClient.send('post', '/api/wishes', { name: 'Dark batik, 5-inch strips', filters: { fibre: 'batik', size: 'strip_5' } });
+    expect(wide.status).toBe(201);
     await sellerClient.send('post', '/api/wishes', { name: 'My own batik', filters: { fibre: 'batik' } });
 
-    const id = await listAndSubmit(sellerClient, { title: 'Dark batik offcuts', fibre: 'batik', colourValue: 'dark' });
+    const id = await listAndSubmit(sellerClient, { title: 'Dark batik offcuts', fibre: 'batik', colourValue: 'dark', cutSizes: ['strip_2_5'] });
     await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'approve' });
     const mail = await waitForMail({ to: buyer.email, subjectIncludes: 'Dark batik' });
     expect(mail.text).toContain('Dark batik offcuts');
@@ -374,9 +400,10 @@ describe('wishes', () => {
     const all = await listMail();
     expect(all.filter((m) => m.to.includes(buyer.email) && m.subject.includes('your wish')).length).toBe(1);
     expect(all.filter((m) => m.to.includes(seller.email) && m.subject.includes('your wish')).length).toBe(0);
+    expect(all.some((m) => m.subject.includes('5-inch strips'))).toBe(false);
 
     const list = await buyerClient.get('/api/wishes');
-    expect(list.body.items.map((w: { name: string }) => w.name).sort()).toEqual(['Dark batik', 'Selvages']);
+    expect(list.body.items.map((w: { name: string }) => w.name).sort()).toEqual(['Dark batik', 'Dark batik, 5-inch strips', 'Selvages']);
     expect((await buyerClient.send('delete', `/api/wishes/${other.body.wish.id}`)).status).toBe(204);
     expect((await sellerClient.send('delete', `/api/wishes/${created.body.wish.id}`)).status).toBe(404);
   });

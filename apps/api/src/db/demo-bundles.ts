@@ -19,13 +19,13 @@ const DEMO_BUNDLES: DemoBundle[] = [
   {
     seller: 'ruth@ferncombe-quilters.example', state: 'on_shelf', palette: ['#2c3e73', '#f1e9d2', '#4a6fa5', '#d8cfb4'], pattern: 'strips',
     title: 'Indigo and cream 2½-inch strips', description: 'Width-of-fabric strips left over from a sampler quilt. All prewashed cotton, pressed and rolled.',
-    offer: 'sale', priceMinor: 800, meetingHandoverOk: true, quantity: 1, weightGrams: 680, fibre: 'quilting_cotton', cutKinds: ['strips'],
+    offer: 'sale', priceMinor: 800, meetingHandoverOk: true, quantity: 1, weightGrams: 680, fibre: 'quilting_cotton', cutKinds: ['strips'], cutSizes: ['strip_2_5'],
     colourValue: 'medium', colourFamily: 'cool', prewashed: true, smokeFree: true, petFree: true, pieces: [],
   },
   {
     seller: 'gus@ferncombe-quilters.example', state: 'on_shelf', palette: ['#a0522d', '#d2a679', '#7b3f1d', '#e8c9a0'], pattern: 'squares',
     title: 'Flannel squares for a rag quilt', description: 'A bag of soft plaid flannel, mostly 5-inch squares. Free for the postage.',
-    offer: 'postage_only', priceMinor: null, meetingHandoverOk: false, quantity: 1, weightGrams: 900, fibre: 'flannel', cutKinds: ['squares'],
+    offer: 'postage_only', priceMinor: null, meetingHandoverOk: false, quantity: 1, weightGrams: 900, fibre: 'flannel', cutKinds: ['squares'], cutSizes: ['square_5'],
     colourValue: 'mixed', colourFamily: 'warm', prewashed: false, smokeFree: true, petFree: false, pieces: [],
   },
   {

@@ -98,6 +98,7 @@ export function makeBundleView(overrides: Partial<BundleView> = {}): BundleView 
     weightGrams: 450,
     fibre: 'quilting_cotton',
     cutKinds: ['strips'],
+    cutSizes: ['strip_2_5'],
     colour: { value: 'medium', family: 'cool', suggested: null },
     prewashed: true,
     disclosures: { smokeFree: true, petFree: true },

@@ -1,4 +1,4 @@
-import type { BundleCutPlan, BundleState, ColourFamily, ColourValue, CutKind, Fibre, Offer, YieldEstimate } from '../domain/index.ts';
+import type { BundleCutPlan, BundleState, ColourFamily, ColourValue, CutKind, CutSize, Fibre, Offer, YieldEstimate } from '../domain/index.ts';
 import type { PieceInput } from '../schemas/bundles.ts';
 
 export interface PhotoView {
@@ -43,6 +43,8 @@ export interface BundleView {
   weightGrams: number | null;
   fibre: Fibre | null;
   cutKinds: CutKind[];
+  /** Standard strip widths and square sizes in the bag, if the seller said. */
+  cutSizes: CutSize[];
   colour: {
     value: ColourValue | null;
     family: ColourFamily | null;

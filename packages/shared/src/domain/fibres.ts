@@ -74,6 +74,35 @@ export const CUT_KIND_LABELS: Readonly<Record<CutKind, string>> = {
   batting: 'Batting offcuts',
 };
 
+/**
+ * The standard sizes a bag of strips or squares may hold: the widths and squares patterns most often call for
+ * (common practice). Each belongs to one cut kind, which the bundle must have.
+ */
+export const CUT_SIZES = ['strip_1_5', 'strip_2', 'strip_2_5', 'strip_3_5', 'strip_5', 'square_2_5', 'square_5', 'square_10'] as const;
+export type CutSize = (typeof CUT_SIZES)[number];
+
+export const CUT_SIZE_KIND: Readonly<Record<CutSize, 'strips' | 'squares'>> = {
+  strip_1_5: 'strips',
+  strip_2: 'strips',
+  strip_2_5: 'strips',
+  strip_3_5: 'strips',
+  strip_5: 'strips',
+  square_2_5: 'squares',
+  square_5: 'squares',
+  square_10: 'squares',
+};
+
+export const CUT_SIZE_LABELS: Readonly<Record<CutSize, string>> = {
+  strip_1_5: '1½-inch strips',
+  strip_2: '2-inch strips',
+  strip_2_5: '2½-inch strips',
+  strip_3_5: '3½-inch strips',
+  strip_5: '5-inch strips',
+  square_2_5: '2½-inch squares',
+  square_5: '5-inch squares',
+  square_10: '10-inch squares',
+};
+
 export const COLOUR_VALUES = ['light', 'medium', 'dark', 'mixed'] as const;
 export type ColourValue = (typeof COLOUR_VALUES)[number];
 

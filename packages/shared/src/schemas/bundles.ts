@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { COLOUR_FAMILIES, COLOUR_VALUES, CUT_KINDS, FIBRES } from '../domain/fibres.ts';
+import { COLOUR_FAMILIES, COLOUR_VALUES, CUT_KINDS, CUT_SIZE_KIND, CUT_SIZE_LABELS, CUT_SIZES, FIBRES } from '../domain/fibres.ts';
 
 /** Offers a member can choose when listing; `starter` donates the bundle to the starter programme for new quilters. */
 export const LISTING_OFFERS = ['sale', 'postage_only', 'meeting', 'starter'] as const;
@@ -35,6 +35,10 @@ const fields = {
     .array(z.enum(CUT_KINDS, { error: 'Choose cut kinds from the list.' }))
     .max(CUT_KINDS.length)
     .refine((a) => new Set(a).size === a.length, { error: 'Each cut kind once.' }),
+  cutSizes: z
+    .array(z.enum(CUT_SIZES, { error: 'Choose sizes from the list.' }))
+    .max(CUT_SIZES.length)
+    .refine((a) => new Set(a).size === a.length, { error: 'Each size once.' }),
   colourValue: z.enum(COLOUR_VALUES, { error: 'Choose light, medium, dark or mixed.' }).nullable(),
   colourFamily: z.enum(COLOUR_FAMILIES, { error: 'Choose a colour family from the list.' }).nullable(),
   prewashed: z.boolean(),
@@ -50,8 +54,18 @@ function priceFitsOffer(v: { offer?: string | null; priceMinor?: number | null; 
   if (v.meetingHandoverOk) ctx.addIssue({ code: 'custom', path: ['meetingHandoverOk'], message: 'Only a sale has a choice of handover.' });
 }
 
+/** A strip width needs strips among the cut kinds, a square size squares; checked wherever both are known. */
+function sizesFitKinds(v: { cutKinds?: readonly string[]; cutSizes?: readonly (typeof CUT_SIZES)[number][] }, ctx: z.RefinementCtx) {
+  if (!v.cutSizes || !v.cutKinds) return;
+  const missing = v.cutSizes.find((size) => !v.cutKinds!.includes(CUT_SIZE_KIND[size]));
+  if (missing) {
+    const kind = CUT_SIZE_KIND[missing] === 'strips' ? 'Strips' : 'Squares';
+    ctx.addIssue({ code: 'custom', path: ['cutSizes'], message: `${CUT_SIZE_LABELS[missing]} need ${kind} among the cut kinds.` });
+  }
+}
+
 /** A draft saves whatever has been filled in so far; each field present must be valid. */
-export const bundleDraftSchema = z.strictObject(fields).partial().superRefine(priceFitsOffer);
+export const bundleDraftSchema = z.strictObject(fields).partial().superRefine(priceFitsOffer).superRefine(sizesFitKinds);
 export type BundleDraftInput = z.infer<typeof bundleDraftSchema>;
 
 /** What a bundle needs before the librarian sees it. */
@@ -60,8 +74,10 @@ export const bundleCompleteSchema = z
     ...fields,
     description: fields.description.default(''),
     cutKinds: fields.cutKinds.min(1, { error: 'Choose at least one cut kind.' }),
+    cutSizes: fields.cutSizes.default([]),
   })
   .superRefine(priceFitsOffer)
+  .superRefine(sizesFitKinds)
   .superRefine((v, ctx) => {
     if (v.offer === 'sale' && v.priceMinor == null) ctx.addIssue({ code: 'custom', path: ['priceMinor'], message: 'A sale needs a price.' });
   });
@@ -85,6 +101,7 @@ const queryInt = (max: number) => z.coerce.number({ error: 'Enter a whole number
 export const shelfFiltersSchema = z.strictObject({
   offer: z.enum(SHELF_OFFERS, { error: 'Unknown offer.' }).optional(),
   cut: z.enum(CUT_KINDS, { error: 'Unknown cut kind.' }).optional(),
+  size: z.enum(CUT_SIZES, { error: 'Unknown size.' }).optional(),
   value: z.enum(COLOUR_VALUES, { error: 'Unknown colour value.' }).optional(),
   family: z.enum(COLOUR_FAMILIES, { error: 'Unknown colour family.' }).optional(),
   fibre: z.enum(FIBRES, { error: 'Unknown fibre.' }).optional(),

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
-import type { BundleState, ColourFamily, ColourValue, CutKind, Fibre, Offer, PieceInput } from '@scrap-relay/shared';
+import type { BundleState, ColourFamily, ColourValue, CutKind, CutSize, Fibre, Offer, PieceInput } from '@scrap-relay/shared';
 import type { BundlePhoto } from './bundle-photo.ts';
 import type { Member } from './member.ts';
 
@@ -18,6 +18,7 @@ export class Bundle extends Model<InferAttributes<Bundle>, InferCreationAttribut
   declare weightGrams: number | null;
   declare fibre: Fibre | null;
   declare cutKinds: CreationOptional<CutKind[]>;
+  declare cutSizes: CreationOptional<CutSize[]>;
   declare colourValue: ColourValue | null;
   declare colourFamily: ColourFamily | null;
   declare prewashed: CreationOptional<boolean>;
@@ -52,6 +53,7 @@ export class Bundle extends Model<InferAttributes<Bundle>, InferCreationAttribut
         weightGrams: { type: DataTypes.INTEGER, allowNull: true },
         fibre: { type: DataTypes.TEXT, allowNull: true },
         cutKinds: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
+        cutSizes: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
         colourValue: { type: DataTypes.TEXT, allowNull: true },
         colourFamily: { type: DataTypes.TEXT, allowNull: true },
         prewashed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },

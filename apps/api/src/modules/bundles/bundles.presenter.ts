@@ -59,6 +59,7 @@ export function presentBundle(bundle: Bundle, viewer: Actor, seller: SellerSumma
     weightGrams: bundle.weightGrams,
     fibre: bundle.fibre,
     cutKinds: bundle.cutKinds,
+    cutSizes: bundle.cutSizes,
     colour: { value: bundle.colourValue, family: bundle.colourFamily, suggested: suggestedColour(photos) },
     prewashed: bundle.prewashed,
     disclosures: { smokeFree: bundle.smokeFree, petFree: bundle.petFree },

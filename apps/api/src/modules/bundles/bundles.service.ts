@@ -3,6 +3,7 @@ import type { Transaction } from 'sequelize';
 import {
   bundleCompleteSchema,
   bundleDraftSchema,
+  CUT_SIZE_KIND,
   MAX_PHOTOS_PER_BUNDLE,
   toHex,
   type BundleDraftInput,
@@ -38,6 +39,7 @@ function draftFields(bundle: Bundle): BundleDraftInput {
     weightGrams: bundle.weightGrams ?? undefined,
     fibre: bundle.fibre ?? undefined,
     cutKinds: bundle.cutKinds,
+    cutSizes: bundle.cutSizes,
     colourValue: bundle.colourValue,
     colourFamily: bundle.colourFamily,
     prewashed: bundle.prewashed,
@@ -50,6 +52,8 @@ function draftFields(bundle: Bundle): BundleDraftInput {
 /** Choosing a free offer clears the price and the handover choice unless the same request sets them (then the schema refuses). */
 function mergeDraft(current: BundleDraftInput, patch: BundleDraftInput): BundleDraftInput {
   const merged = { ...current, ...patch };
+  // Unticking a cut kind drops its sizes too, unless the same request says which sizes to keep.
+  if (patch.cutKinds && !('cutSizes' in patch)) merged.cutSizes = (current.cutSizes ?? []).filter((size) => patch.cutKinds!.includes(CUT_SIZE_KIND[size]));
   if (patch.offer && patch.offer !== 'sale') {
     if (!('priceMinor' in patch)) merged.priceMinor = null;
     if (!('meetingHandoverOk' in patch)) merged.meetingHandoverOk = false;

@@ -41,6 +41,7 @@ function whereClause(q: ShelfQuery): { sql: string; bind: unknown[] } {
   };
   if (q.offer) add((p) => `b.offer = ${p}`, q.offer);
   if (q.cut) add((p) => `b.cut_kinds @> ARRAY[${p}]::text[]`, q.cut);
+  if (q.size) add((p) => `b.cut_sizes @> ARRAY[${p}]::text[]`, q.size);
   if (q.value) add((p) => `b.colour_value = ${p}`, q.value);
   if (q.family) add((p) => `b.colour_family = ${p}`, q.family);
   if (q.fibre) add((p) => `b.fibre = ${p}`, q.fibre);

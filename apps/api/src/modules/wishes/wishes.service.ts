@@ -18,6 +18,7 @@ export const WISH_MATCH_SQL = `
     WHERE w.member_id <> b.seller_id AND b.offer <> 'starter'
       AND (w.filters->>'offer' IS NULL OR w.filters->>'offer' = b.offer)
       AND (w.filters->>'cut' IS NULL OR b.cut_kinds @> ARRAY[w.filters->>'cut'])
+      AND (w.filters->>'size' IS NULL OR b.cut_sizes @> ARRAY[w.filters->>'size'])
       AND (w.filters->>'value' IS NULL OR w.filters->>'value' = b.colour_value)
       AND (w.filters->>'family' IS NULL OR w.filters->>'family' = b.colour_family)
       AND (w.filters->>'fibre' IS NULL OR w.filters->>'fibre' = b.fibre)
