@@ -123,7 +123,7 @@ test('Gus buys Ruth’s bundle by post, Ruth posts it, Gus receives it, Tomas pa
   await gus.goto(orderPath);
   await expect(gus.getByRole('region', { name: 'Posting' })).toContainText('FERN-4471-22');
   await gus.getByRole('button', { name: 'Mark as received' }).click();
-  await expect(gus.getByText('Received. Thank you for passing fabric on.')).toBeVisible();
+  await expect(gus.getByText('Received. Enjoy your new fabric.')).toBeVisible();
   await screenshot(gus, 'order-received-buyer');
 
   // Tomas: the order's entries in the ledger (card payment $19.30 in, Ruth credited $18.10), then a payout to Ruth.

@@ -94,7 +94,7 @@ test('Gus takes Ruth’s postage-only gift and pays only the postage', { tag: '@
 
   await gus.goto(orderPath);
   await gus.getByRole('button', { name: 'Mark as received' }).click();
-  await expect(gus.getByText('Received. Thank you for passing fabric on.')).toBeVisible();
+  await expect(gus.getByText('Received. Enjoy your new fabric.')).toBeVisible();
   await gus.goto(paths.app.orders.getHref());
   await expect(gus.getByRole('listitem').filter({ hasText: title })).toContainText('Received');
   await screenshot(gus, 'gift-orders-list');

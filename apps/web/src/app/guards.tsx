@@ -18,7 +18,7 @@ export function RequireSignedIn({ children }: { children?: ReactNode }) {
 /** Pages for some officers only: everyone else is told plainly, not bounced elsewhere. */
 export function RequireAbility({ page, children }: { page: AppPage; children?: ReactNode }) {
   const user = useSession().data?.user;
-  if (!user || !canOpen(page, user.abilities)) return <NotAvailable />;
+  if (!user || !canOpen(page, user.abilities)) return <NotAvailable page={page} />;
   return children ?? <Outlet />;
 }
 

@@ -72,6 +72,18 @@ describe('route guards', () => {
     expect(currentLinks(container)).toEqual([]);
   });
 
+  it('tells a member who is not a new quilter that starter bundles are for new quilters, and how to give one', async () => {
+    serveApi(makeUser());
+    const { router, container } = await openApp('/starter');
+
+    await waitFor(() => expect(heading(container)).toBe('Starter bundles are for new quilters'));
+    expect(router.state.location.pathname).toBe('/starter');
+    expect(container.textContent).toContain('New quilters are members who joined the guild within its newcomer window, or whom the librarian has flagged as new.');
+    expect(container.textContent).not.toContain('guild officers');
+    const give = [...container.querySelectorAll('main a')].find((a) => a.textContent === 'Give a starter bundle');
+    expect(give?.getAttribute('href')).toBe('/my-bundles/new');
+  });
+
   it('opens the members page for an account that may manage members', async () => {
     serveApi(makeUser({ roles: ['member', 'admin'], abilities: ADMIN_ABILITIES }));
     const { container } = await openApp('/admin/members');

@@ -1,35 +1,15 @@
 import { describe, expect, it } from 'vitest';
+import { makeHandover } from '../../testing/handovers.ts';
 import { markedLocally } from './api/mark-handover.ts';
 import { filterHandovers, groupHandovers, sheetProgress } from './handover-groups.ts';
-import type { HandoverView } from '@scrap-relay/shared';
-
-let counter = 0;
-function handover(giver: string, collector: string, overrides: Partial<HandoverView> = {}): HandoverView {
-  counter += 1;
-  return {
-    id: `h-${counter}`,
-    kind: 'order',
-    reference: `SR-${String(counter).padStart(4, '0')}`,
-    giver: { id: giver ? `m-${giver.toLowerCase()}` : '', name: giver || 'Guild stash' },
-    collector: { id: `m-${collector}`, name: collector },
-    items: [{ title: `Bundle ${counter}`, quantity: 1, thumbUrl: null }],
-    done: false,
-    doneAt: null,
-    doneBy: null,
-    checkOffUrl: `http://app.test/handovers/h-${counter}`,
-    qrSvg: '<svg/>',
-    abilities: { markDone: true, undo: false, cancel: true },
-    ...overrides,
-  };
-}
 
 describe('grouping the handover sheet', () => {
   const sheet = [
-    handover('Wren', 'Bea'),
-    handover('Alder', 'Cy'),
-    handover('Wren', 'Abe', { done: true }),
-    handover('', 'Dot', { kind: 'starter' }),
-    handover('Alder', 'amos'),
+    makeHandover('Wren', 'Bea'),
+    makeHandover('Alder', 'Cy'),
+    makeHandover('Wren', 'Abe', { done: true }),
+    makeHandover('', 'Dot', { kind: 'starter' }),
+    makeHandover('Alder', 'amos'),
   ];
 
   it('groups by who brings, people and their collectors in name order', () => {
@@ -63,7 +43,7 @@ describe('grouping the handover sheet', () => {
 describe('a tick shown before the API answers', () => {
   it('records the viewer and the time, and offers undo instead of the tick', () => {
     const now = new Date('2026-12-10T19:05:00Z');
-    const ticked = markedLocally(handover('Wren', 'Bea'), true, 'Lena Marsh', now);
+    const ticked = markedLocally(makeHandover('Wren', 'Bea'), true, 'Lena Marsh', now);
     expect(ticked).toMatchObject({ done: true, doneBy: 'Lena Marsh', doneAt: '2026-12-10T19:05:00.000Z', abilities: { markDone: false, undo: true, cancel: false } });
     expect(markedLocally(ticked, false, 'Lena Marsh', now)).toMatchObject({ done: false, doneBy: null, doneAt: null, abilities: { markDone: true, undo: false } });
   });

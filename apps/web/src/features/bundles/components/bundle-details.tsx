@@ -42,9 +42,10 @@ export function BundleDetails({ bundle, units, viewerId, shopperActions }: Bundl
     ...(bundle.offer === 'sale' ? ([['Handover', bundle.meetingHandoverOk ? 'Posted, or collected at a guild meeting' : 'Posted']] as Array<[string, ReactNode]>) : []),
     ['Weight', bundle.weightGrams ? `${formatWeight(bundle.weightGrams, units)}${bundle.quantity > 1 ? ' per pack' : ''}` : 'Not given'],
     ...(bundle.quantity > 1 ? ([['Packs', `${bundle.quantityAvailable} of ${bundle.quantity} left`]] as Array<[string, ReactNode]>) : []),
-    ['State', <BundleStateLabel key="state" state={bundle.state} />],
+    ['State', <BundleStateLabel key="state" state={bundle.state} offer={bundle.offer} />],
   ];
-  if (bundle.onShelfAt) facts.push(['On the shelf since', formatDate(bundle.onShelfAt)]);
+  // Starter bundles never go on the shelf: they are offered to new quilters from the day they are approved.
+  if (bundle.onShelfAt) facts.push([bundle.offer === 'starter' ? 'Offered to new quilters since' : 'On the shelf since', formatDate(bundle.onShelfAt)]);
 
   return (
     <div className="space-y-6">
@@ -122,6 +123,13 @@ function DefaultShopperActions({ bundle }: { bundle: BundleView }) {
   }
   if (bundle.offer === 'starter' && bundle.state === 'on_shelf') {
     return <p className="text-thread-soft">Starter bundles are kept for new quilters, who claim them through the starter programme.</p>;
+  }
+  if (bundle.offer === 'starter' && bundle.state === 'held') {
+    return (
+      <p className="text-thread-soft">
+        The new quilter first on the waiting list has been offered it and is deciding. If they pass it on, it goes to the next new quilter in line.
+      </p>
+    );
   }
   if (bundle.state !== 'on_shelf') return <p className="text-thread-soft">This bundle is not on offer at the moment.</p>;
   return null;

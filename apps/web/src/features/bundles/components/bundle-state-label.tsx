@@ -1,5 +1,6 @@
-import { BUNDLE_STATE_LABELS, type BundleState } from '@scrap-relay/shared';
+import type { BundleState, Offer } from '@scrap-relay/shared';
 import { cn } from '../../../utils/cn.ts';
+import { bundleStateLabel } from '../utils/bundle-text.ts';
 
 // Tone by what the member should do next: act (returned), wait (review, checkout), done, or nothing.
 const tones: Record<BundleState, string> = {
@@ -14,10 +15,10 @@ const tones: Record<BundleState, string> = {
 };
 
 /** The bundle's state in words, with a border so it never relies on colour alone. */
-export function BundleStateLabel({ state, className }: { state: BundleState; className?: string }) {
+export function BundleStateLabel({ state, offer, className }: { state: BundleState; offer: Offer | null; className?: string }) {
   return (
     <span className={cn('inline-flex items-center rounded-stitch border-2 px-2 py-0.5 font-semibold', tones[state], className)}>
-      {BUNDLE_STATE_LABELS[state]}
+      {bundleStateLabel(state, offer)}
     </span>
   );
 }

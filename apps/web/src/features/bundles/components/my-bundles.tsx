@@ -160,7 +160,7 @@ function BundleSummary({ bundle, units }: { bundle: BundleView; units: UnitSyste
 function StateCell({ bundle }: { bundle: BundleView }) {
   return (
     <div className="space-y-1">
-      <BundleStateLabel state={bundle.state} />
+      <BundleStateLabel state={bundle.state} offer={bundle.offer} />
       {bundle.state === 'on_shelf' && bundle.expiresAt ? <p className="text-thread-soft">Until {formatDate(bundle.expiresAt)}</p> : null}
       {bundle.state === 'returned' && bundle.reviewNotes ? <p className="text-thread-soft">See the librarian’s note above.</p> : null}
     </div>

@@ -24,6 +24,17 @@ function useHasCamera(): boolean {
   return coarse;
 }
 
+/** Touch screens choose or take photos; a mouse may also drag them in, which a narrow window does not offer room for. */
+function AddPhotosLead({ touch }: { touch: boolean }) {
+  if (touch) return 'Choose photos, or take them now with the camera.';
+  return (
+    <>
+      <span className="sm:hidden">Choose photos of the bundle.</span>
+      <span className="hidden sm:inline">Drag photos here, or</span>
+    </>
+  );
+}
+
 /**
  * Photos of the bundle: add by choosing, photographing or dropping files; a
  * progress bar per photo while it uploads; reorder with buttons (keyboard and
@@ -77,7 +88,7 @@ export function PhotoManager({ bundle, onAddFiles, isStarting = false }: PhotoMa
           dragging ? 'border-cornflower bg-muslin' : 'border-selvage bg-linen',
         )}
       >
-        <p className="text-lg font-semibold">{full ? 'This bundle has all the photos it can hold.' : 'Drag photos here, or'}</p>
+        <p className="text-lg font-semibold">{full ? 'This bundle has all the photos it can hold.' : <AddPhotosLead touch={hasCamera} />}</p>
         <div className="flex flex-wrap justify-center gap-3">
           <Button onClick={() => pickerRef.current?.click()} disabled={full || isStarting} aria-describedby={hintId} isPending={isStarting} pendingLabel="Starting your draft…">
             Choose photos

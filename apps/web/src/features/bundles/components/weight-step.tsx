@@ -3,6 +3,7 @@ import { useMemo } from 'react';
 import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import { Button } from '../../../components/ui/button.tsx';
 import { FieldGroup, TextField } from '../../../components/ui/form.tsx';
+import { bareWeightNote } from '../../../utils/weight-text.ts';
 import { emptyPieceRow, parseLengthText, parseWeightText, type ListingFormValues } from '../utils/listing-form.ts';
 import { CutPlanPictures } from './cut-plan-pictures.tsx';
 import { useListingWizard } from './listing-context.ts';
@@ -26,11 +27,7 @@ export function WeightStep() {
         <TextField
           name="weightText"
           label="Weight of one pack"
-          hint={
-            units === 'metric'
-              ? 'Weigh the fabric without the bag, for example 750 g or 1.2 kg.'
-              : 'Weigh the fabric without the bag, for example 1 lb 4 oz, 12 oz or 1.5 lb.'
-          }
+          hint={`Weigh the fabric without the bag, for example ${units === 'metric' ? '750 g or 1.2 kg' : '1 lb 4 oz, 12 oz or 1.5 lb'}. ${bareWeightNote(units)}`}
           autoComplete="off"
           className="max-w-md"
         />

@@ -27,10 +27,18 @@ describe('weights typed by members (factors from NIST SP 811 appendix B: 1 oz = 
     expect(parseWeightText('1 lb 4 oz', 'imperial')).toBe(567); // 566.99 g
   });
 
-  it('refuses a bare number from an imperial member (ounces or pounds?) but reads it as grams for a metric one', () => {
-    expect(parseWeightText('12', 'imperial')).toBeNull();
+  it('reads a bare number as ounces for an imperial member and grams for a metric one, as the shelf’s weight filter does', () => {
+    expect(parseWeightText('40', 'imperial')).toBe(1134); // 1133.98 g = 2 lb 8 oz
+    expect(parseWeightText('12', 'imperial')).toBe(parseWeightText('12 oz', 'imperial'));
     expect(parseWeightText('750', 'metric')).toBe(750);
     expect(parseWeightText('1.2 kg', 'metric')).toBe(1200);
+    expect(parseWeightText('a big bag', 'imperial')).toBeNull();
+  });
+
+  it('sends a bare number as the weight instead of dropping it', () => {
+    const { input, problems } = toDraftInput(blank({ weightText: '40' }), imperial);
+    expect(problems).toEqual({});
+    expect(input.weightGrams).toBe(1134);
   });
 
   it('shows stored grams as text that reads back to the very same grams', () => {
@@ -122,7 +130,7 @@ describe('the draft the form describes', () => {
 
   it('names each field it cannot read, by form field', () => {
     const { problems } = toDraftInput(
-      blank({ weightText: '12', offer: 'sale', priceText: '12.505', quantity: 'two', pieces: [{ width: '18', height: 'wide', count: '1.5' }] }),
+      blank({ weightText: 'a dozen', offer: 'sale', priceText: '12.505', quantity: 'two', pieces: [{ width: '18', height: 'wide', count: '1.5' }] }),
       imperial,
     );
     expect(Object.keys(problems).sort()).toEqual(['pieces.0.count', 'pieces.0.height', 'priceText', 'quantity', 'weightText']);

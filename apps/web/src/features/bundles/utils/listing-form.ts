@@ -7,7 +7,6 @@ import {
   MM_PER_INCH,
   parseLengthToMm,
   parseMoneyToMinor,
-  parseWeightToGrams,
   type BundleDraftInput,
   type BundleView,
   type ColourFamily,
@@ -19,6 +18,7 @@ import {
 import type { LISTING_OFFERS } from '@scrap-relay/shared';
 import { set, type FieldErrors, type Resolver } from 'react-hook-form';
 import { minorToMajorText } from '../../../utils/units.ts';
+import { parseTypedWeight } from '../../../utils/weight-text.ts';
 
 /**
  * The listing form in the words people type (weights as "1 lb 4 oz", prices as
@@ -74,10 +74,10 @@ export const emptyPieceRow = (): PieceRow => ({ width: '', height: '', count: '1
 
 /* ---------- text ↔ stored integers ---------- */
 
-/** A bare number is grams for metric members; imperial members say oz or lb (a bare "2" could be either). */
+/** A bare number is grams or ounces by the member's units, as on the shelf's weight filter; the step reads it back as it is typed. */
 export function parseWeightText(text: string, units: UnitSystem): number | null {
   if (text.trim() === '') return null;
-  return parseWeightToGrams(text, units === 'metric' ? { bareUnit: 'g' } : {});
+  return parseTypedWeight(text, units);
 }
 
 /** A bare number is centimetres for metric members and inches ("2½", "2 1/2", "18") for imperial ones. */
@@ -159,7 +159,7 @@ export function toDraftInput(values: ListingFormValues, ctx: ListingContext): Co
       problems.weightText =
         ctx.units === 'metric'
           ? 'Write the weight in grams or kilograms, for example 750 g or 1.2 kg.'
-          : 'Write the weight with its unit, for example 1 lb 4 oz or 12 oz.';
+          : 'Write the weight in pounds and ounces, for example 1 lb 4 oz or 12 oz.';
     } else {
       input.weightGrams = grams;
     }

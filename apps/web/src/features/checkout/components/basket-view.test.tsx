@@ -122,7 +122,7 @@ describe('checking out the basket', () => {
     expect(JSON.parse(window.localStorage.getItem(BASKET_STORAGE_KEY) ?? '{}').items).toHaveLength(1);
   });
 
-  it('takes out a bundle someone else bought first, says why, and charges nothing', async () => {
+  it('takes out a bundle someone else bought first, says why, charges nothing, and points the empty basket to the shelf', async () => {
     serveApi({
       bundleAnswers: [bundle(), bundle({ state: 'rehomed', quantityAvailable: 0 })],
       orderAnswer: jsonResponse(409, { error: { code: 'conflict', message: '“Dark batik 2½-inch strips” is no longer available.', fields: { items: 'No longer available.' } } }),
@@ -133,6 +133,8 @@ describe('checking out the basket', () => {
 
     await waitFor(() => expect(container.textContent).toContain('“Dark batik 2½-inch strips” has found a new home. It has been taken out of your basket.'));
     expect(container.textContent).toContain('Your basket is empty.');
+    const shelfLink = [...container.querySelectorAll('a')].find((a) => a.textContent === 'Browse the shelf');
+    expect(shelfLink?.getAttribute('href')).toBe('/shelf');
     expect(JSON.parse(window.localStorage.getItem(BASKET_STORAGE_KEY) ?? '{}').items).toEqual([]);
   });
 

@@ -3,6 +3,7 @@ import { useQueries, useQueryClient } from '@tanstack/react-query';
 import { useEffect, useMemo, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { paths } from '../../../config/paths.ts';
+import { EmptyWithShelfLink } from '../../../components/empty-with-shelf-link.tsx';
 import { Panel } from '../../../components/layouts/page.tsx';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { Button } from '../../../components/ui/button.tsx';
@@ -140,10 +141,10 @@ export function BasketView({ member, guild, addedBundleId }: BasketViewProps) {
       ) : null}
 
       {items.length === 0 ? (
-        <Panel>
+        <EmptyWithShelfLink>
           <p className="text-lg">Your basket is empty.</p>
           <p>Add bundles from their pages on the shelf; they wait here until you check out. Nothing is held for you until then.</p>
-        </Panel>
+        </EmptyWithShelfLink>
       ) : null}
 
       {checking.length > 0 ? <Loading label={`Checking ${checking.length === 1 ? 'a bundle' : `${checking.length} bundles`} with the shelf…`} /> : null}

@@ -94,13 +94,14 @@ export function PrintSheet({ meeting, items }: { meeting: MeetingView; items: Ha
             </tr>
           </thead>
           <tbody>
+            {/* The collector's name on every row: a page break may fall between one person's rows, and the door reads one row at a time. */}
             {byCollector.flatMap((group) =>
               group.handovers.map((handover, index) => (
-                <tr key={handover.id} className="break-inside-avoid border-b border-black align-top">
+                <tr key={handover.id} className={cn('break-inside-avoid border-b border-black align-top', index === 0 && 'border-t-2')}>
                   <td className="py-1 pr-2">
                     <PenTick done={handover.done} />
                   </td>
-                  <td className="py-1 pr-2 font-bold">{index === 0 ? group.person.name : ''}</td>
+                  <td className="py-1 pr-2 font-bold">{group.person.name}</td>
                   <td className="py-1 pr-2">{handover.reference}</td>
                   <td className="py-1 pr-2">{handover.giver.name}</td>
                   <td className="py-1">{handover.items.map((item) => (item.quantity > 1 ? `${item.title} × ${item.quantity}` : item.title)).join('; ')}</td>

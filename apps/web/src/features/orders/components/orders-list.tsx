@@ -1,8 +1,9 @@
 import { formatMoney, type OrderView } from '@scrap-relay/shared';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths.ts';
+import { EmptyWithShelfLink } from '../../../components/empty-with-shelf-link.tsx';
 import { Alert } from '../../../components/ui/alert.tsx';
-import { Button } from '../../../components/ui/button.tsx';
+import { Button, ButtonLink } from '../../../components/ui/button.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { cn } from '../../../utils/cn.ts';
 import { formatDate } from '../../../utils/format.ts';
@@ -10,8 +11,8 @@ import { useOrders, type OrderSide } from '../api/get-orders.ts';
 import { OrderStatusBadge } from './order-status-badge.tsx';
 
 const SIDES: Record<OrderSide, { label: string; empty: string }> = {
-  buyer: { label: 'I bought', empty: 'You have not bought anything or taken a gift yet.' },
-  seller: { label: 'I gave or sold', empty: 'Nobody has bought or claimed your bundles yet.' },
+  buyer: { label: 'I bought', empty: 'No orders yet: you have not bought or asked for a bundle from the shelf.' },
+  seller: { label: 'I gave or sold', empty: 'No orders yet: nobody has bought or asked for one of your bundles.' },
 };
 
 /** A switch between the two sides (a link each, so the choice is in the address and survives a reload). */
@@ -35,7 +36,13 @@ export function OrderSideSwitch({ side }: { side: OrderSide }) {
   );
 }
 
-export function OrdersList({ side }: { side: OrderSide }) {
+export interface OrdersListProps {
+  side: OrderSide;
+  /** A new quilter: starter bundles they claim are not orders, so an empty list says where those are. */
+  claimsStarter: boolean;
+}
+
+export function OrdersList({ side, claimsStarter }: OrdersListProps) {
   const orders = useOrders(side);
   if (orders.isPending) return <Loading label="Loading your orders…" />;
   if (orders.isError) {
@@ -48,7 +55,23 @@ export function OrdersList({ side }: { side: OrderSide }) {
       </Alert>
     );
   }
-  if (orders.data.items.length === 0) return <p className="text-lg">{SIDES[side].empty}</p>;
+  if (orders.data.items.length === 0) {
+    const pointToClaims = side === 'buyer' && claimsStarter;
+    return (
+      <EmptyWithShelfLink
+        otherLinks={
+          pointToClaims ? (
+            <ButtonLink to={paths.app.starter.getHref()} variant="secondary">
+              Your starter bundles
+            </ButtonLink>
+          ) : null
+        }
+      >
+        <p className="text-lg">{SIDES[side].empty}</p>
+        {pointToClaims ? <p>Starter bundles you claim are not orders: they are listed on the Starter bundles page.</p> : null}
+      </EmptyWithShelfLink>
+    );
+  }
   return (
     <ul className="space-y-4" aria-label={SIDES[side].label}>
       {orders.data.items.map((order) => (

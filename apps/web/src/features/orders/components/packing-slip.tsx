@@ -81,6 +81,7 @@ function SlipSheet({ order, qrSvg, guildName, units, from }: { order: OrderView;
         )}
       </div>
 
+      {/* A weight stays on one line ("1 lb 8 oz"); on a phone the bundle titles wrap instead. */}
       <table className="w-full border-collapse">
         <caption className="sr-only">Bundles in this parcel</caption>
         <thead>
@@ -101,7 +102,7 @@ function SlipSheet({ order, qrSvg, guildName, units, from }: { order: OrderView;
             <tr key={item.bundleId} className="border-b border-seam print:border-black">
               <td className="py-2 pr-3">{item.title}</td>
               <td className="px-3 py-2 text-right">{item.quantity}</td>
-              <td className="py-2 pl-3 text-right">{formatWeight(item.weightGrams * item.quantity, units)}</td>
+              <td className="py-2 pl-3 text-right whitespace-nowrap">{formatWeight(item.weightGrams * item.quantity, units)}</td>
             </tr>
           ))}
         </tbody>
@@ -110,7 +111,7 @@ function SlipSheet({ order, qrSvg, guildName, units, from }: { order: OrderView;
             <th scope="row" colSpan={2} className="py-2 pr-3 text-right">
               Fabric in total
             </th>
-            <td className="py-2 pl-3 text-right font-bold">{formatWeight(totalGrams, units)}</td>
+            <td className="py-2 pl-3 text-right font-bold whitespace-nowrap">{formatWeight(totalGrams, units)}</td>
           </tr>
         </tfoot>
       </table>

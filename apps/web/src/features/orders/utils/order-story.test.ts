@@ -91,6 +91,28 @@ describe('what happens next', () => {
     expect(orderNextStep({ ...base, state: 'posted', viewerIs: 'seller' })).toBe('Posted. Waiting for Maud Tilling to say it arrived.');
   });
 
+  it('thanks the seller for a received order, and wishes the buyer joy of the fabric instead', () => {
+    const received: OrderView = { ...base, state: 'received', receivedAt: '2026-11-06T16:00:00.000Z' };
+    expect(orderNextStep({ ...received, viewerIs: 'seller' })).toBe('Received by Maud Tilling. Thank you for passing fabric on.');
+    expect(orderNextStep(received)).toBe('Received. Enjoy your new fabric.');
+    expect(orderNextStep({ ...received, viewerIs: 'officer' })).toBe('Received by Maud Tilling.');
+  });
+
+  it('words a meeting handover for each side, thanking only the giver', () => {
+    const handedOver: OrderView = { ...base, state: 'handed_over', fulfilment: 'meeting', handedOverAt: '2026-11-10T19:30:00.000Z' };
+    expect(orderNextStep({ ...handedOver, viewerIs: 'seller' })).toBe('Handed over to Maud Tilling at the meeting. Thank you for passing fabric on.');
+    expect(orderNextStep(handedOver)).toBe('Collected at the meeting. Enjoy your new fabric.');
+    expect(orderNextStep({ ...handedOver, viewerIs: 'officer' })).toBe('Handed over to Maud Tilling at the meeting.');
+  });
+
+  it('tells an officer looking in who does what next, never “you”', () => {
+    const officer = (order: Partial<OrderView>) => orderNextStep({ ...base, viewerIs: 'officer', ...order });
+    expect(officer({})).toBe('Waiting for Maud Tilling’s card payment.');
+    expect(officer({ state: 'confirmed' })).toBe('Paid. Waiting for Orla Vance to post it.');
+    expect(officer({ state: 'confirmed', fulfilment: 'meeting' })).toBe('Confirmed. Orla Vance hands the bundles to Maud Tilling at the meeting below.');
+    expect(officer({ state: 'posted' })).toBe('Posted. Waiting for Maud Tilling to say it arrived.');
+  });
+
   it('says whether a cancelled order was refunded', () => {
     expect(orderNextStep({ ...base, state: 'cancelled' })).toBe('Cancelled. Nothing was charged.');
     expect(orderNextStep({ ...base, state: 'cancelled', refundedAt: '2026-11-02T11:00:00.000Z' })).toMatch(/refunded in full/);

@@ -49,28 +49,31 @@ export function orderTimeline(order: OrderView): TimelineEvent[] {
   return events.sort((a, b) => a.at.localeCompare(b.at) || rankOf(a.key) - rankOf(b.key));
 }
 
-/** One or two sentences for the top of the order page, from where the viewer stands. */
+/**
+ * One or two sentences for the top of the order page, from where the viewer stands:
+ * the buyer, the seller (who is thanked for passing fabric on), or an officer looking in.
+ */
 export function orderNextStep(order: OrderView): string {
-  const buyer = order.viewerIs === 'buyer';
-  const seller = order.viewerIs === 'seller';
+  const { viewerIs, buyer, seller } = order;
   switch (order.state) {
     case 'awaiting_payment':
-      return buyer
-        ? 'Waiting for your card payment.'
-        : `Waiting for ${order.buyer.name}’s card payment. Nothing to do yet.`;
+      if (viewerIs === 'buyer') return 'Waiting for your card payment.';
+      return viewerIs === 'seller' ? `Waiting for ${buyer.name}’s card payment. Nothing to do yet.` : `Waiting for ${buyer.name}’s card payment.`;
     case 'confirmed':
       if (order.fulfilment === 'meeting') {
-        return seller ? 'Confirmed. Bring the bundles to the meeting below, in a bag labelled with the order reference.' : 'Confirmed. Collect the bundles at the meeting below.';
+        if (viewerIs === 'seller') return 'Confirmed. Bring the bundles to the meeting below, in a bag labelled with the order reference.';
+        return viewerIs === 'buyer' ? 'Confirmed. Collect the bundles at the meeting below.' : `Confirmed. ${seller.name} hands the bundles to ${buyer.name} at the meeting below.`;
       }
-      return seller
-        ? 'Paid. Pack the bundles, print the packing slip, post them to the address below, then mark the order posted.'
-        : `Paid. ${order.seller.name} will post it to you.`;
+      if (viewerIs === 'seller') return 'Paid. Pack the bundles, print the packing slip, post them to the address below, then mark the order posted.';
+      return viewerIs === 'buyer' ? `Paid. ${seller.name} will post it to you.` : `Paid. Waiting for ${seller.name} to post it.`;
     case 'posted':
-      return buyer ? 'On its way. Mark it received when it arrives.' : `Posted. Waiting for ${order.buyer.name} to say it arrived.`;
+      return viewerIs === 'buyer' ? 'On its way. Mark it received when it arrives.' : `Posted. Waiting for ${buyer.name} to say it arrived.`;
     case 'received':
-      return 'Received. Thank you for passing fabric on.';
+      if (viewerIs === 'seller') return `Received by ${buyer.name}. Thank you for passing fabric on.`;
+      return viewerIs === 'buyer' ? 'Received. Enjoy your new fabric.' : `Received by ${buyer.name}.`;
     case 'handed_over':
-      return 'Handed over at the meeting.';
+      if (viewerIs === 'seller') return `Handed over to ${buyer.name} at the meeting. Thank you for passing fabric on.`;
+      return viewerIs === 'buyer' ? 'Collected at the meeting. Enjoy your new fabric.' : `Handed over to ${buyer.name} at the meeting.`;
     case 'cancelled':
       return order.refundedAt ? 'Cancelled, and the card payment was refunded in full.' : 'Cancelled. Nothing was charged.';
     case 'refunded':

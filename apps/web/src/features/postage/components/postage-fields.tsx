@@ -27,7 +27,6 @@ const splitPrefixes = (text: string): string[] =>
     .map((part) => part.trim())
     .filter(Boolean);
 
-/** Postal-code prefixes typed as one line ("9745, 9746" or "*"), kept as the list the table stores. */
 /** A list of short codes typed in one box, separated by commas or spaces: postal-code prefixes, country codes. */
 export function PrefixesField({ name, label, hint = 'Separate prefixes with commas or spaces; * matches every postal code.' }: { name: string; label: string; hint?: string }) {
   const { control } = useFormContext();
@@ -136,7 +135,7 @@ function OptionalMoneyInput({ currency, value, onChange, inputRef, ...rest }: Op
 }
 
 /** A band's zone, chosen from the zones above; an unknown code (from an older table) stays visible so its error makes sense. */
-export function BandZoneField({ name, label }: { name: string; label: string }) {
+export function BandZoneField({ name, label, className }: { name: string; label: string; className?: string }) {
   const { register, control } = useFormContext();
   const zones = (useWatch({ control, name: 'zones' }) as Array<{ code?: string }> | undefined) ?? [];
   const current = useWatch({ control, name }) as string | undefined;
@@ -144,7 +143,7 @@ export function BandZoneField({ name, label }: { name: string; label: string }) 
   const codes = [...new Set(zones.map((zone) => zone.code?.trim() ?? '').filter(Boolean))];
   if (current && !codes.includes(current)) codes.push(current);
   return (
-    <FieldShell label={label} error={error}>
+    <FieldShell label={label} error={error} className={className}>
       {(shell) => <Select {...shell} options={codes.map((code) => ({ value: code, label: code }))} {...register(name)} />}
     </FieldShell>
   );

@@ -84,6 +84,24 @@ describe('the postage table editor', () => {
     expect(puts).toEqual([{ countries: [], ...table }]); // a table saved before the countries list quotes every country
   });
 
+  it('gives each band’s zone a column of its own, wide enough for a code like “regional”, with Remove under the row', async () => {
+    serveApi(() => jsonResponse(500));
+    const { container } = await openEditor();
+    const band = await waitFor(() => {
+      const found = fieldsetNamed(container, 'Band 1');
+      if (!found) throw new Error('The bands are not shown yet.');
+      return found;
+    });
+    const zone = band.querySelector('select') as HTMLSelectElement;
+    expect(zone.value).toBe('local');
+    const zoneField = zone.parentElement as HTMLElement;
+    const row = zoneField.parentElement as HTMLElement;
+    // A wrapping row in which the zone starts at 9rem (a select showing "regional"): a narrow form wraps a field to the next line instead of squeezing it.
+    expect(row.className).toContain('sm:flex-wrap');
+    expect(zoneField.className).toMatch(/sm:flex-\[\d+_1_9rem\]/);
+    expect(row.contains(buttonNamed(band, 'Remove band 1'))).toBe(false);
+  });
+
   it('refuses a band in a zone that does not exist before sending anything, naming the row', async () => {
     const { puts } = serveApi(() => jsonResponse(200, { postage: DEFAULT_POSTAGE_TABLE }));
     const { container } = await openEditor();

@@ -136,6 +136,10 @@ function ZonesSection() {
   );
 }
 
+// Flex bases: a zone code needs about 9rem with the select's arrow; a weight or a price fits in 6rem.
+const BAND_ZONE_COLUMN = 'sm:flex-[3_1_9rem]';
+const BAND_NUMBER_COLUMN = 'sm:flex-[2_1_6rem]';
+
 interface BandsSectionProps {
   currency: string;
   units: UnitSystem;
@@ -153,19 +157,26 @@ function BandsSection({ currency, units, money, parseMoney }: BandsSectionProps)
     >
       <ListError name="bands" />
       {bands.fields.map((field, index) => (
-        <fieldset key={field.id} className="rounded-stitch border-2 border-seam p-4">
+        <fieldset key={field.id} className="space-y-4 rounded-stitch border-2 border-seam p-4">
           <legend className="px-2 font-bold">Band {index + 1}</legend>
-          <div className="grid items-start gap-4 sm:grid-cols-[1fr_1fr_1fr_auto]">
-            <BandZoneField name={`bands.${index}.zone`} label="Zone" />
-            <div>
+          {/* The zone never narrower than a code like "regional"; beside the quote tester the row wraps instead of squeezing it. */}
+          <div className="grid items-start gap-4 sm:flex sm:flex-wrap">
+            <BandZoneField name={`bands.${index}.zone`} label="Zone" className={BAND_ZONE_COLUMN} />
+            <div className={BAND_NUMBER_COLUMN}>
               <NumberField name={`bands.${index}.maxGrams`} label="Up to (grams)" />
               <WeightEcho name={`bands.${index}.maxGrams`} units={units} />
             </div>
-            <ScaledNumberField name={`bands.${index}.priceMinor`} label={`Price (${currency})`} toText={money} fromText={parseMoney} />
-            <Button variant="quiet" onClick={() => bands.remove(index)} disabled={bands.fields.length === 1} className="sm:mt-8">
-              Remove band {index + 1}
-            </Button>
+            <ScaledNumberField
+              name={`bands.${index}.priceMinor`}
+              label={`Price (${currency})`}
+              toText={money}
+              fromText={parseMoney}
+              className={BAND_NUMBER_COLUMN}
+            />
           </div>
+          <Button variant="quiet" onClick={() => bands.remove(index)} disabled={bands.fields.length === 1}>
+            Remove band {index + 1}
+          </Button>
         </fieldset>
       ))}
       <Button

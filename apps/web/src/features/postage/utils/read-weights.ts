@@ -1,4 +1,5 @@
-import { parseWeightToGrams, type UnitSystem } from '@scrap-relay/shared';
+import type { UnitSystem } from '@scrap-relay/shared';
+import { parseTypedWeight } from '../../../utils/weight-text.ts';
 
 export interface TriedWeights {
   grams: number[];
@@ -11,7 +12,7 @@ export function readWeights(text: string, units: UnitSystem): TriedWeights {
   const result: TriedWeights = { grams: [], unreadable: [] };
   text.split('\n').forEach((line, index) => {
     if (!line.trim()) return;
-    const grams = parseWeightToGrams(line, { bareUnit: units === 'metric' ? 'g' : 'oz' });
+    const grams = parseTypedWeight(line, units);
     if (grams === null || grams <= 0) result.unreadable.push(index + 1);
     else result.grams.push(grams);
   });

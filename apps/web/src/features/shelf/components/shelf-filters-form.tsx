@@ -16,6 +16,7 @@ import { useEffect, useId, useMemo } from 'react';
 import { useFormContext } from 'react-hook-form';
 import { Button } from '../../../components/ui/button.tsx';
 import { Form, SelectField, SubmitButton, TextField } from '../../../components/ui/form.tsx';
+import { bareWeightNote } from '../../../utils/weight-text.ts';
 import { filterFormSchema, filterFormValues, weightExample, type FilterFormValues } from '../utils/filter-form.ts';
 
 const choices = <T extends string>(any: string, values: readonly T[], labels: Readonly<Record<T, string>>) => [
@@ -42,7 +43,7 @@ export function ShelfFiltersForm({ filters, units, currency, onApply, onClear }:
   const schema = useMemo(() => filterFormSchema({ units, currency, current: filters }), [units, currency, filters]);
   const values = useMemo(() => filterFormValues(filters, { units, currency }), [filters, units, currency]);
   const weightHintId = useId();
-  const weightHint = `${weightExample(units)}. A number alone counts as ${units === 'metric' ? 'grams' : 'ounces'}.`;
+  const weightHint = `${weightExample(units)}. ${bareWeightNote(units)}`;
 
   return (
     <Form<FilterFormValues, ShelfFilters> schema={schema} defaultValues={values} onSubmit={(chosen) => onApply(chosen)} className="space-y-5">

@@ -4,13 +4,13 @@ import {
   MAX_BUNDLE_GRAMS,
   MAX_PRICE_MINOR,
   parseMoneyToMinor,
-  parseWeightToGrams,
   shelfFiltersSchema,
   type ShelfFilters,
   type UnitSystem,
 } from '@scrap-relay/shared';
 import { z } from 'zod';
 import { minorToMajorText } from '../../../utils/units.ts';
+import { parseTypedWeight } from '../../../utils/weight-text.ts';
 
 /**
  * The shelf's filter form: weights typed in the member's own units and a price in
@@ -36,9 +36,6 @@ export interface FilterFormContext {
   /** The filters in force, so a weight shown rounded ("1 lb 2 oz" for 500 g) and sent back untouched keeps its exact grams. */
   current: ShelfFilters;
 }
-
-/** A number alone is read in the smaller everyday unit: ounces or grams. */
-const bareWeightUnit = (units: UnitSystem) => (units === 'metric' ? 'g' : 'oz');
 
 export const weightExample = (units: UnitSystem): string => (units === 'metric' ? 'e.g. 500 g or 1.5 kg' : 'e.g. 12 oz or 1 lb 4 oz');
 
@@ -67,7 +64,7 @@ export function filterFormSchema({ units, currency, current }: FilterFormContext
         const typed = form[field].trim();
         if (typed === '') return undefined;
         if (kept !== undefined && typed === formatWeight(kept, units)) return kept;
-        const parsed = parseWeightToGrams(typed, { bareUnit: bareWeightUnit(units) });
+        const parsed = parseTypedWeight(typed, units);
         if (parsed === null) {
           ctx.addIssue({ code: 'custom', path: [field], message: `Enter a weight such as ${units === 'metric' ? '500 g' : '12 oz'}.` });
           return undefined;

@@ -1,9 +1,10 @@
 import { Alert } from '../../../components/ui/alert.tsx';
 import { formatDate } from '../../../utils/format.ts';
 import type { StarterEligibilityView } from '../types.ts';
+import { NewQuiltersOnly } from './new-quilters-only.tsx';
 
-/** The member's standing, in plain words: may claim now, not a new quilter, or may claim again from a date. */
-export function EligibilityNotice({ eligibility }: { eligibility: StarterEligibilityView }) {
+/** The member's standing, in plain words: may claim now, not a new quilter (and how to give one instead), or may claim again from a date. */
+export function EligibilityNotice({ eligibility, canGive }: { eligibility: StarterEligibilityView; canGive: boolean }) {
   if (eligibility.eligible) {
     return (
       <Alert tone="success" title="You may claim a starter bundle" announce={false}>
@@ -25,10 +26,7 @@ export function EligibilityNotice({ eligibility }: { eligibility: StarterEligibi
   }
   return (
     <Alert tone="info" title="Starter bundles are kept for new quilters" announce={false}>
-      <p>
-        Your account is not counted as a new quilter’s. Members count as new for a time after they join the guild, or when the librarian
-        flags them. If you have just started quilting, ask the librarian.
-      </p>
+      <NewQuiltersOnly canGive={canGive} />
     </Alert>
   );
 }

@@ -78,7 +78,7 @@ describe('claiming a starter bundle', () => {
     const { container } = await render(
       <AppProvider queryClient={makeQueryClient()}>
         <MemoryRouter>
-          <StarterProgramme units="metric" runsProgramme={false} />
+          <StarterProgramme units="metric" runsProgramme={false} canGive={false} />
         </MemoryRouter>
       </AppProvider>,
     );

@@ -23,10 +23,12 @@ export interface StarterProgrammeProps {
   units: UnitSystem;
   /** The librarian's links (waiting list, making up a starter bundle). */
   runsProgramme: boolean;
+  /** May list bundles, so a member who is not a new quilter is shown how to give a starter bundle. */
+  canGive: boolean;
 }
 
 /** The member's starter-programme page: how it works, their standing, what is free, the waiting list and their claims. */
-export function StarterProgramme({ units, runsProgramme }: StarterProgrammeProps) {
+export function StarterProgramme({ units, runsProgramme, canGive }: StarterProgrammeProps) {
   const starter = useStarterBundles();
   const meetings = useMeetings('upcoming');
   const [claiming, setClaiming] = useState<BundleView | null>(null);
@@ -78,7 +80,7 @@ export function StarterProgramme({ units, runsProgramme }: StarterProgrammeProps
           ) : null}
 
           <Panel title="Your standing">
-            <EligibilityNotice eligibility={starter.data.status.eligibility} />
+            <EligibilityNotice eligibility={starter.data.status.eligibility} canGive={canGive} />
           </Panel>
 
           {starter.data.items.length > 0 ? (

@@ -9,7 +9,7 @@ export function Component() {
   const guild = useSession().data?.guild;
   const added = (useLocation().state as { added?: unknown } | null)?.added;
   return (
-    <Page title="Your basket" intro="Bundles you mean to buy or claim for postage. Each member’s bundles check out together as one order.">
+    <Page title="Your basket" intro="Bundles you mean to buy or ask for. Each member’s bundles check out together as one order.">
       <BasketView
         member={{ id: user.id, units: user.units, emailVerified: user.emailVerified }}
         guild={{ name: guild?.name ?? 'The guild', currency: guild?.currency ?? 'USD' }}

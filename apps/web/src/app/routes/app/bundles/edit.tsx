@@ -47,8 +47,8 @@ export function Component() {
     return (
       <Page title={title} width="narrow">
         <p>
-          This bundle is <BundleStateLabel state={bundle.state} />, so it cannot be changed now. To change it, withdraw it first from
-          its page; you can then edit and relist it.
+          This bundle is <BundleStateLabel state={bundle.state} offer={bundle.offer} />, so it cannot be changed now. To change it, withdraw it
+          first from its page; you can then edit and relist it.
         </p>
         <ButtonLink to={paths.app.bundle.getHref(bundle.id)} variant="secondary">
           Open the bundle’s page
@@ -57,7 +57,7 @@ export function Component() {
     );
   }
   return (
-    <Page title={title} intro={<span>State: <BundleStateLabel state={bundle.state} /></span>}>
+    <Page title={title} intro={<span>State: <BundleStateLabel state={bundle.state} offer={bundle.offer} /></span>}>
       {bundle.state === 'returned' && bundle.reviewNotes ? <ReviewNotes notes={bundle.reviewNotes} /> : null}
       <ListingWizard key={bundle.id} bundle={bundle} units={user.units} currency={bundle.currency} />
     </Page>

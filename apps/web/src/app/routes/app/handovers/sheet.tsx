@@ -9,7 +9,12 @@ export function Component() {
   const { meetingId = '' } = useParams();
   return (
     <PrintFrame>
-      <Page title="Handover sheet" intro="Who brings what to whom at this meeting. Tick each handover at the door, or print the sheet." width="wide">
+      <Page
+        title="Handover sheet"
+        // The sheet on paper has its own headings; how to use the screen is not printed.
+        intro={<span className="print:hidden">Who brings what to whom at this meeting. Tick each handover at the door, or print the sheet.</span>}
+        width="wide"
+      >
         <HandoverSheetView meetingId={meetingId} viewerName={user.name} />
       </Page>
     </PrintFrame>

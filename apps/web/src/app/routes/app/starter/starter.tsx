@@ -6,7 +6,7 @@ export function Component() {
   const user = useSessionUser();
   return (
     <Page title="Starter bundles" intro="Free bundles of fabric for quilters who are just starting out, donated by members and checked by the librarian.">
-      <StarterProgramme units={user.units} runsProgramme={user.abilities.runStarterProgramme} />
+      <StarterProgramme units={user.units} runsProgramme={user.abilities.runStarterProgramme} canGive={user.abilities.listBundles} />
     </Page>
   );
 }
