@@ -1,5 +1,5 @@
 // Types only from the shared schemas: their values would bring zod into the shelf's first load (see parseShelfFilters).
-import { COLOUR_FAMILIES, COLOUR_VALUES, CUT_KINDS, FIBRES, type ShelfFilters, type ShelfQuery } from '@scrap-relay/shared';
+import { COLOUR_FAMILIES, COLOUR_VALUES, CUT_KINDS, CUT_SIZES, FIBRES, type ShelfFilters, type ShelfQuery } from '@scrap-relay/shared';
 
 /**
  * The shelf's filters as they travel: in the shelf's address (so a search can be
@@ -17,7 +17,7 @@ export interface ShelfSearch {
 }
 
 /** Filter keys in the order they appear in an address and in words. */
-export const SHELF_FILTER_KEYS = ['offer', 'cut', 'value', 'family', 'fibre', 'minGrams', 'maxGrams', 'maxPriceMinor', 'q'] as const satisfies readonly (keyof ShelfFilters)[];
+export const SHELF_FILTER_KEYS = ['offer', 'cut', 'size', 'value', 'family', 'fibre', 'minGrams', 'maxGrams', 'maxPriceMinor', 'q'] as const satisfies readonly (keyof ShelfFilters)[];
 
 const DEFAULT_SORT: ShelfSort = 'newest';
 
@@ -58,6 +58,7 @@ const wholeNumber =
 const FILTER_READERS: { [K in (typeof SHELF_FILTER_KEYS)[number]]-?: (raw: unknown) => ShelfFilters[K] } = {
   offer: (raw) => (typeof raw === 'string' && Object.hasOwn(OFFERS, raw) ? (raw as ShelfOffer) : undefined),
   cut: oneOf(CUT_KINDS),
+  size: oneOf(CUT_SIZES),
   value: oneOf(COLOUR_VALUES),
   family: oneOf(COLOUR_FAMILIES),
   fibre: oneOf(FIBRES),

@@ -2,6 +2,7 @@ import {
   COLOUR_FAMILY_LABELS,
   COLOUR_VALUE_LABELS,
   CUT_KIND_LABELS,
+  CUT_SIZE_LABELS,
   FIBRE_LABELS,
   formatMoney,
   formatWeight,
@@ -38,7 +39,8 @@ export function describeShelfFilters(filters: ShelfFilters, { units, currency }:
   if (filters.fibre) parts.push(FIBRE_LABELS[filters.fibre]);
   if (filters.value) parts.push(COLOUR_VALUE_LABELS[filters.value]);
   if (filters.family) parts.push(COLOUR_FAMILY_LABELS[filters.family]);
-  if (filters.cut) parts.push(CUT_KIND_LABELS[filters.cut]);
+  if (filters.size) parts.push(CUT_SIZE_LABELS[filters.size]);
+  else if (filters.cut) parts.push(CUT_KIND_LABELS[filters.cut]);
   if (filters.offer) parts.push(OFFER_WORDS[filters.offer]);
   const { minGrams, maxGrams } = filters;
   if (minGrams !== undefined && maxGrams !== undefined) parts.push(`${formatWeight(minGrams, units)} to ${formatWeight(maxGrams, units)}`);

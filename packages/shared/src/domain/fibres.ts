@@ -103,6 +103,10 @@ export const CUT_SIZE_LABELS: Readonly<Record<CutSize, string>> = {
   square_10: '10-inch squares',
 };
 
+/** "2½-inch strips, 5-inch squares", or null for none. */
+export const cutSizesText = (sizes: readonly CutSize[] | undefined): string | null =>
+  sizes && sizes.length > 0 ? sizes.map((size) => CUT_SIZE_LABELS[size]).join(', ') : null;
+
 export const COLOUR_VALUES = ['light', 'medium', 'dark', 'mixed'] as const;
 export type ColourValue = (typeof COLOUR_VALUES)[number];
 

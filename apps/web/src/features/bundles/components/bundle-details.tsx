@@ -2,6 +2,7 @@ import {
   COLOUR_FAMILY_LABELS,
   COLOUR_VALUE_LABELS,
   CUT_KIND_LABELS,
+  cutSizesText,
   FIBRE_LABELS,
   formatWeight,
   type BundleView,
@@ -78,6 +79,7 @@ export function BundleDetails({ bundle, units, viewerId, shopperActions }: Bundl
         <Facts
           facts={[
             ['Cut kinds', bundle.cutKinds.length ? bundle.cutKinds.map((kind) => CUT_KIND_LABELS[kind]).join(', ') : 'Not given'],
+            ...(bundle.cutSizes.length ? ([['Sizes', cutSizesText(bundle.cutSizes)]] as [string, ReactNode][]) : []),
             ['Fibre', bundle.fibre ? FIBRE_LABELS[bundle.fibre] : 'Not given'],
             ['Colour value', bundle.colour.value ? COLOUR_VALUE_LABELS[bundle.colour.value] : 'Not given'],
             ['Colour family', bundle.colour.family ? COLOUR_FAMILY_LABELS[bundle.colour.family] : 'Not given'],

@@ -5,6 +5,9 @@ import {
   COLOUR_VALUES,
   CUT_KIND_LABELS,
   CUT_KINDS,
+  CUT_SIZE_KIND,
+  CUT_SIZE_LABELS,
+  CUT_SIZES,
   FIBRE_LABELS,
   FIBRES,
 } from '@scrap-relay/shared';
@@ -62,6 +65,29 @@ function CutKindsGroup() {
         ))}
       </div>
       {error?.message ? <FieldError id="cut-kinds-error">{error.message}</FieldError> : null}
+      <CutSizesGroup />
+    </fieldset>
+  );
+}
+
+/** The standard widths of the strips and sizes of the squares, once strips or squares are ticked. */
+function CutSizesGroup() {
+  const { register } = useFormContext<ListingFormValues>();
+  const kinds = useWatch<ListingFormValues, 'cutKinds'>({ name: 'cutKinds' });
+  const { errors } = useFormState<ListingFormValues>({ name: 'cutSizes' });
+  const error = get(errors, 'cutSizes') as { message?: string } | undefined;
+  const sizes = CUT_SIZES.filter((size) => (kinds ?? []).includes(CUT_SIZE_KIND[size]));
+  if (sizes.length === 0) return null;
+  return (
+    <fieldset aria-describedby={error?.message ? 'cut-sizes-error' : undefined} className="space-y-2 border-t-2 border-seam pt-4">
+      <legend className="text-base font-bold">Standard sizes (optional)</legend>
+      <p className="text-thread-soft">Tick the sizes that make up most of the bag, so members looking for them find it.</p>
+      <div className="grid gap-x-6 sm:grid-cols-2">
+        {sizes.map((size) => (
+          <Checkbox key={size} label={CUT_SIZE_LABELS[size]} value={size} {...register('cutSizes')} />
+        ))}
+      </div>
+      {error?.message ? <FieldError id="cut-sizes-error">{error.message}</FieldError> : null}
     </fieldset>
   );
 }

@@ -81,6 +81,7 @@ describe('the draft the form describes', () => {
     expect(input).toEqual({
       description: '',
       cutKinds: [],
+      cutSizes: [],
       colourValue: null,
       colourFamily: null,
       prewashed: false,
@@ -98,6 +99,8 @@ describe('the draft the form describes', () => {
       blank({
         title: 'Warm reds',
         cutKinds: ['strips', 'fat_quarters'],
+        // The square size goes: squares are not ticked.
+        cutSizes: ['strip_2_5', 'square_5'],
         fibre: 'quilting_cotton',
         weightText: '1 lb 4 oz',
         pieces: [{ width: '18', height: '22', count: '2' }, emptyPieceRow(), { width: '2 1/2', height: '42', count: '14' }],
@@ -111,6 +114,7 @@ describe('the draft the form describes', () => {
     expect(problems).toEqual({});
     expect(input).toMatchObject({
       title: 'Warm reds',
+      cutSizes: ['strip_2_5'],
       weightGrams: 567,
       pieces: [
         { widthMm: 457, heightMm: 559, count: 2 },

@@ -1,6 +1,7 @@
 import {
   bundleCompleteSchema,
   bundleDraftSchema,
+  CUT_SIZE_KIND,
   formatLength,
   formatWeight,
   GRAMS_PER_OUNCE,
@@ -12,6 +13,7 @@ import {
   type ColourFamily,
   type ColourValue,
   type CutKind,
+  type CutSize,
   type Fibre,
   type UnitSystem,
 } from '@scrap-relay/shared';
@@ -51,6 +53,7 @@ export interface ListingFormValues {
   title: string;
   description: string;
   cutKinds: CutKind[];
+  cutSizes: CutSize[];
   fibre: Fibre | '';
   colourValue: ColourValue | '';
   colourFamily: ColourFamily | '';
@@ -109,6 +112,7 @@ export function formValuesFromBundle(bundle: BundleView | null, ctx: ListingCont
     title: bundle?.title ?? '',
     description: bundle?.description ?? '',
     cutKinds: bundle ? [...bundle.cutKinds] : [],
+    cutSizes: bundle ? [...bundle.cutSizes] : [],
     fibre: bundle?.fibre ?? '',
     colourValue: bundle?.colour.value ?? '',
     colourFamily: bundle?.colour.family ?? '',
@@ -144,6 +148,8 @@ export function toDraftInput(values: ListingFormValues, ctx: ListingContext): Co
   const input: BundleDraftInput = {
     description: values.description,
     cutKinds: values.cutKinds,
+    // A size whose kind was unticked goes with it, as the API would drop it.
+    cutSizes: values.cutSizes.filter((size) => values.cutKinds.includes(CUT_SIZE_KIND[size])),
     colourValue: values.colourValue || null,
     colourFamily: values.colourFamily || null,
     prewashed: values.prewashed,
@@ -218,7 +224,7 @@ export function formFieldOf(apiPath: string, pieceRows: readonly number[] = []):
     const row = pieceRows[Number(index)] ?? Number(index);
     return `pieces.${row}.${PIECE_FIELD_OF[leaf] ?? leaf}`;
   }
-  if (head === 'cutKinds') return 'cutKinds';
+  if (head === 'cutKinds' || head === 'cutSizes') return head;
   return FORM_FIELD_OF[head] ?? head;
 }
 
@@ -227,6 +233,7 @@ const STEP_OF_FIELD: Readonly<Record<string, ListingStep>> = {
   title: 'contents',
   description: 'contents',
   cutKinds: 'contents',
+  cutSizes: 'contents',
   fibre: 'contents',
   colourValue: 'contents',
   colourFamily: 'contents',
@@ -255,6 +262,7 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = {
   title: 'Title',
   description: 'Description',
   cutKinds: 'Cut kinds',
+  cutSizes: 'Sizes',
   fibre: 'Fibre',
   colourValue: 'Colour value',
   colourFamily: 'Colour family',

@@ -5,6 +5,8 @@ import {
   COLOUR_VALUE_LABELS,
   CUT_KINDS,
   CUT_KIND_LABELS,
+  CUT_SIZES,
+  CUT_SIZE_LABELS,
   FIBRES,
   FIBRE_LABELS,
   OFFER_LABELS,
@@ -26,6 +28,7 @@ const choices = <T extends string>(any: string, values: readonly T[], labels: Re
 
 const offerOptions = choices('Any offer', SHELF_OFFERS, OFFER_LABELS);
 const cutOptions = choices('Any cut', CUT_KINDS, CUT_KIND_LABELS);
+const sizeOptions = choices('Any size', CUT_SIZES, CUT_SIZE_LABELS);
 const valueOptions = choices('Any value', COLOUR_VALUES, COLOUR_VALUE_LABELS);
 const familyOptions = choices('Any colour family', COLOUR_FAMILIES, COLOUR_FAMILY_LABELS);
 const fibreOptions = choices('Any fibre', FIBRES, FIBRE_LABELS);
@@ -51,6 +54,7 @@ export function ShelfFiltersForm({ filters, units, currency, onApply, onClear }:
       <TextField name="q" label="Words in the title or description" type="search" autoComplete="off" enterKeyHint="search" />
       <SelectField name="offer" label="Offer" options={offerOptions} />
       <SelectField name="cut" label="Cut" options={cutOptions} />
+      <SelectField name="size" label="Strip width or square size" options={sizeOptions} />
       <SelectField name="fibre" label="Fibre" options={fibreOptions} />
       <SelectField name="value" label="Colour value" options={valueOptions} />
       <SelectField name="family" label="Colour family" options={familyOptions} />

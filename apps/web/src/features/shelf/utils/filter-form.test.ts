@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { filterFormSchema, filterFormValues, type FilterFormContext, type FilterFormValues } from './filter-form.ts';
 
-const blank: FilterFormValues = { offer: '', cut: '', value: '', family: '', fibre: '', minWeight: '', maxWeight: '', maxPrice: '', q: '' };
+const blank: FilterFormValues = { offer: '', cut: '', size: '', value: '', family: '', fibre: '', minWeight: '', maxWeight: '', maxPrice: '', q: '' };
 const imperial: FilterFormContext = { units: 'imperial', currency: 'USD', current: {} };
 const metric: FilterFormContext = { units: 'metric', currency: 'EUR', current: {} };
 
@@ -50,7 +50,10 @@ describe('the shelf filter form', () => {
 
   it('checks menu choices against the vocabularies, as the API does', () => {
     expect(parse(imperial, { fibre: 'spider_silk' }).success).toBe(false);
+    expect(parse(imperial, { size: 'strip_7' }).success).toBe(false);
     const result = parse(imperial, { fibre: 'wool', cut: 'fat_quarters', offer: 'sale', q: '  reds  ' });
     expect(result.success && result.data).toMatchObject({ fibre: 'wool', cut: 'fat_quarters', offer: 'sale', q: 'reds' });
+    const sized = parse(imperial, { cut: 'strips', size: 'strip_2_5' });
+    expect(sized.success && sized.data).toMatchObject({ cut: 'strips', size: 'strip_2_5' });
   });
 });

@@ -21,6 +21,7 @@ import { parseTypedWeight } from '../../../utils/weight-text.ts';
 export interface FilterFormValues {
   offer: string;
   cut: string;
+  size: string;
   value: string;
   family: string;
   fibre: string;
@@ -43,6 +44,7 @@ export function filterFormValues(filters: ShelfFilters, { units, currency }: Omi
   return {
     offer: filters.offer ?? '',
     cut: filters.cut ?? '',
+    size: filters.size ?? '',
     value: filters.value ?? '',
     family: filters.family ?? '',
     fibre: filters.fibre ?? '',
@@ -58,7 +60,7 @@ const text = z.string();
 export function filterFormSchema({ units, currency, current }: FilterFormContext): z.ZodType<ShelfFilters, FilterFormValues> {
   const heaviest = formatWeight(MAX_BUNDLE_GRAMS, units);
   return z
-    .object({ offer: text, cut: text, value: text, family: text, fibre: text, minWeight: text, maxWeight: text, maxPrice: text, q: text })
+    .object({ offer: text, cut: text, size: text, value: text, family: text, fibre: text, minWeight: text, maxWeight: text, maxPrice: text, q: text })
     .transform((form, ctx) => {
       const grams = (field: 'minWeight' | 'maxWeight', kept: number | undefined): number | undefined => {
         const typed = form[field].trim();
@@ -95,6 +97,7 @@ export function filterFormSchema({ units, currency, current }: FilterFormContext
       return {
         offer: chosen(form.offer),
         cut: chosen(form.cut),
+        size: chosen(form.size),
         value: chosen(form.value),
         family: chosen(form.family),
         fibre: chosen(form.fibre),
