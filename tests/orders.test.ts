@@ -432,6 +432,35 @@ describe('cancelling, refunds and the treasurer', () => {
     expect((await buyerClient.get('/api/ledger')).status).toBe(403);
   });
 
+  it('tells the treasurer when a refund would leave a seller who has been paid out owing the guild, and nobody else', async () => {
+    const paidOut = await createMember({ name: 'Wren Ashdown' });
+    const paidOutClient = await signedInClient(api.runtime.app, paidOut);
+    const order = await paidByPost(await shelved({ priceMinor: 900 }, paidOutClient));
+    const credit = order.sellerCreditMinor!;
+    expect(credit).toBeGreaterThan(0);
+
+    const before = (await treasurerClient.get(`/api/orders/${order.id}`)).body.order;
+    expect(before.abilities.refund).toBe(true);
+    expect(before.refundEffect).toEqual({ sellerBalanceMinor: credit, sellerCreditMinor: credit });
+
+    const payout = await treasurerClient.send('post', '/api/payouts', { sellerId: paidOut.id, amountMinor: credit, method: 'bank_transfer' });
+    expect(payout.status).toBe(201);
+    const afterPayout = (await treasurerClient.get(`/api/orders/${order.id}`)).body.order;
+    expect(afterPayout.refundEffect).toEqual({ sellerBalanceMinor: 0, sellerCreditMinor: credit });
+    expect(afterPayout.refundEffect.sellerBalanceMinor - afterPayout.refundEffect.sellerCreditMinor).toBe(-credit);
+    expect(afterPayout.refundEffect.sellerBalanceMinor).toBe(await ledgerTotal(`WHERE account = 'seller:${paidOut.id}'`));
+
+    // The buyer and the seller see the order without it; so does anyone after the refund.
+    expect((await buyerClient.get(`/api/orders/${order.id}`)).body.order.refundEffect).toBeNull();
+    expect((await paidOutClient.get(`/api/orders/${order.id}`)).body.order.refundEffect).toBeNull();
+    const refunded = await treasurerClient.send('post', `/api/orders/${order.id}/refund`);
+    expect(refunded.body.order).toMatchObject({ state: 'refunded', refundEffect: null });
+
+    const balance = (await treasurerClient.get('/api/seller-balances')).body.items.find((b: { sellerId: string }) => b.sellerId === paidOut.id);
+    expect(balance.balanceMinor).toBe(-credit);
+    expect(await ledgerTotal(`WHERE account = 'seller:${paidOut.id}'`)).toBe(-credit);
+  });
+
   it('keeps the ledger balanced after everything above', async () => {
     expect(await ledgerTotal()).toBe(0);
     const [rows] = await api.runtime.ctx.sequelize.query(`SELECT transaction_id FROM ledger_entries GROUP BY transaction_id HAVING sum(amount_minor) <> 0`);

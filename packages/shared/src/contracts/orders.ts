@@ -59,7 +59,17 @@ export interface OrderView {
   refundedAt: string | null;
   problems: { id: string; message: string; createdAt: string; resolvedAt: string | null }[];
   createdAt: string;
+  /** Only for a viewer who may refund the order (abilities.refund): what a refund would take back from the seller. */
+  refundEffect: RefundEffectView | null;
   abilities: OrderAbilities;
+}
+
+/** The seller's side of a refund, from the ledger, in minor units of the order's currency. */
+export interface RefundEffectView {
+  /** What the guild owes the seller now: credits less refunds and payouts (below zero, the seller owes the guild). */
+  sellerBalanceMinor: number;
+  /** This order's credit to the seller still standing: what the refund reverses. */
+  sellerCreditMinor: number;
 }
 
 export interface PostageQuoteView extends PostageQuote {

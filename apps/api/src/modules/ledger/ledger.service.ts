@@ -1,8 +1,17 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { formatMoney, payoutEntries, type LedgerEntryView, type LedgerQuery, type PayoutInput, type SellerBalanceView } from '@scrap-relay/shared';
-import { Member, Payout } from '../../db/models/index.ts';
+import {
+  formatMoney,
+  payoutEntries,
+  sellerAccount,
+  type LedgerEntryView,
+  type LedgerQuery,
+  type PayoutInput,
+  type RefundEffectView,
+  type SellerBalanceView,
+} from '@scrap-relay/shared';
+import { Member, Payout, type Order } from '../../db/models/index.ts';
 import { notFound, unprocessable } from '../../errors/index.ts';
-import { authorize, type Actor } from '../../policies/index.ts';
+import { authorize, can, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { loadGuild } from '../guild/guild.service.ts';
 import { writeLedger } from '../orders/ledger-writer.ts';
@@ -85,6 +94,30 @@ export async function sellerBalances(sequelize: Sequelize, actor: Actor): Promis
     balanceMinor: r.credited - r.paid_out,
     currency: guild.currency,
   }));
+}
+
+/**
+ * For each order this viewer may refund: its seller's balance now and the order's seller credit still standing
+ * (what a refund reverses), so the treasurer sees a refund that would leave a paid-out seller owing the guild.
+ * One query for any number of orders; an empty map when the viewer may refund none of them.
+ */
+export async function refundEffects(
+  sequelize: Sequelize,
+  actor: Actor,
+  orders: readonly Order[],
+): Promise<Map<string, RefundEffectView>> {
+  const refundable = orders.filter((o) => can(actor, 'order.refund', o));
+  if (refundable.length === 0) return new Map();
+  const rows = await sequelize.query<{ order_id: string; balance: number; credit: number }>(
+    `SELECT w.order_id,
+            coalesce(sum(e.amount_minor), 0)::int AS balance,
+            coalesce(sum(e.amount_minor) FILTER (WHERE e.order_id = w.order_id), 0)::int AS credit
+     FROM unnest($1::uuid[], $2::text[]) AS w(order_id, account)
+     LEFT JOIN ledger_entries e ON e.account = w.account
+     GROUP BY w.order_id`,
+    { bind: [refundable.map((o) => o.id), refundable.map((o) => sellerAccount(o.sellerId))], type: QueryTypes.SELECT },
+  );
+  return new Map(rows.map((r) => [r.order_id, { sellerBalanceMinor: r.balance, sellerCreditMinor: r.credit }]));
 }
 
 export async function recordPayout(ctx: AppContext, actor: Actor, input: PayoutInput): Promise<Payout> {

@@ -1,4 +1,4 @@
-import type { MeetingView, OrderView } from '@scrap-relay/shared';
+import type { MeetingView, OrderView, RefundEffectView } from '@scrap-relay/shared';
 import type { Meeting, Order } from '../../db/models/index.ts';
 import { can, type Actor } from '../../policies/index.ts';
 
@@ -14,8 +14,16 @@ export function presentMeeting(meeting: Meeting, viewer: Actor): MeetingView {
 
 const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
 
+/** What the presenter needs besides the order, read for a whole list at once. */
+export interface OrderExtras {
+  /** Each bundle's first photo thumbnail, by bundle id. */
+  thumbs?: Map<string, string | null>;
+  /** By order id, for the orders the viewer may refund (ledger's refundEffects). */
+  refundEffects?: Map<string, RefundEffectView>;
+}
+
 /** Chooses every field for this viewer: the address only when policy allows, e-mail only to the other party of a paid order. */
-export function presentOrder(order: Order, viewer: Actor, thumbs: Map<string, string | null> = new Map()): OrderView {
+export function presentOrder(order: Order, viewer: Actor, { thumbs = new Map(), refundEffects = new Map() }: OrderExtras = {}): OrderView {
   const viewerIs = order.buyerId === viewer.id ? 'buyer' : order.sellerId === viewer.id ? 'seller' : 'officer';
   const paid = order.paidAt !== null;
   const seesMoneySplit = viewerIs !== 'buyer';
@@ -59,6 +67,7 @@ export function presentOrder(order: Order, viewer: Actor, thumbs: Map<string, st
         ? []
         : (order.problems ?? []).map((p) => ({ id: p.id, message: p.message, createdAt: p.createdAt.toISOString(), resolvedAt: iso(p.resolvedAt) })),
     createdAt: order.createdAt.toISOString(),
+    refundEffect: can(viewer, 'order.refund', order) ? (refundEffects.get(order.id) ?? null) : null,
     abilities: {
       pay: can(viewer, 'order.pay', order),
       markPosted: can(viewer, 'order.markPosted', order),

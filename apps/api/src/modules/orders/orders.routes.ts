@@ -1,14 +1,15 @@
 import { Router, type Request } from 'express';
 import { z } from 'zod';
 import QRCode from 'qrcode';
-import { orderCancelSchema, orderCreateSchema, orderPostedSchema, orderProblemSchema } from '@scrap-relay/shared';
+import { orderCancelSchema, orderCreateSchema, orderPostedSchema, orderProblemSchema, type OrderView } from '@scrap-relay/shared';
 import { BundlePhoto, type Order } from '../../db/models/index.ts';
 import { requireMember, requireVerifiedMember } from '../../middleware/authenticate.ts';
 import { parseInput } from '../../middleware/validate.ts';
-import { authorize } from '../../policies/index.ts';
+import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { actorOf } from '../members/members.presenter.ts';
 import { routeId } from '../bundles/bundles.routes.ts';
+import { refundEffects } from '../ledger/ledger.service.ts';
 import { presentOrder } from './orders.presenter.ts';
 import * as orders from './orders.service.ts';
 
@@ -24,13 +25,19 @@ async function firstThumbs(ctx: AppContext, list: Order[]): Promise<Map<string, 
   return new Map(photos.map((p) => [p.bundleId, ctx.storage.publicUrl(p.thumbKey)]));
 }
 
+/** Presents a list of orders with what they need from other tables, read once for the whole list. */
+async function presentOrders(ctx: AppContext, actor: Actor, list: Order[]): Promise<OrderView[]> {
+  const [thumbs, effects] = await Promise.all([firstThumbs(ctx, list), refundEffects(ctx.sequelize, actor, list)]);
+  return list.map((o) => presentOrder(o, actor, { thumbs, refundEffects: effects }));
+}
+
 export function ordersRoutes(ctx: AppContext): Router {
   const router = Router();
 
   const present = async (req: Request, id: string) => {
     const actor = actorOf(requireMember(req));
-    const order = await orders.viewableOrder(actor, id);
-    return presentOrder(order, actor, await firstThumbs(ctx, [order]));
+    const [view] = await presentOrders(ctx, actor, [await orders.viewableOrder(actor, id)]);
+    return view!;
   };
 
   router.post('/orders', async (req, res) => {
@@ -45,8 +52,7 @@ export function ordersRoutes(ctx: AppContext): Router {
     const actor = actorOf(requireMember(req));
     const { as, problems } = parseInput(listQuerySchema, req.query);
     const list = as === 'treasurer' ? await orders.ordersWithOpenProblems(actor, problems === 'open') : await orders.listOrders(actor, as);
-    const thumbs = await firstThumbs(ctx, list);
-    res.json({ items: list.map((o) => presentOrder(o, actor, thumbs)) });
+    res.json({ items: await presentOrders(ctx, actor, list) });
   });
 
   router.get('/orders/:id', async (req, res) => {
@@ -59,7 +65,7 @@ export function ordersRoutes(ctx: AppContext): Router {
     const id = routeId(req.params.id, 'That order');
     const order = await orders.viewableOrder(actor, id);
     authorize(actor, 'order.viewAddress', order);
-    const view = presentOrder(order, actor, await firstThumbs(ctx, [order]));
+    const [view] = await presentOrders(ctx, actor, [order]);
     const qrSvg = await QRCode.toString(order.reference, { type: 'svg', margin: 1, errorCorrectionLevel: 'M' });
     res.json({ order: view, qrSvg });
   });

@@ -12,9 +12,9 @@ export const postageTableOf = (guild: Guild): PostageTable => guild.postageTable
 export function quoteOrThrow(guild: Guild, items: PostageItem[], to: { postalCode: string; country: string }, field: string): PostageQuote {
   const result = quotePostage({ table: postageTableOf(guild), items, postalCode: to.postalCode, country: to.country, currency: guild.currency });
   if (!result.ok) {
-    const hint = result.error.code === 'too_heavy' ? ' Choose a meeting handover instead.' : '';
+    // The domain's messages already say what to do instead (a meeting handover, or asking the seller).
     const at = result.error.code === 'country_not_covered' ? `${field}.country` : 'items';
-    throw unprocessable(`${result.error.message}${hint}`, { [at]: result.error.message });
+    throw unprocessable(result.error.message, { [at]: result.error.message });
   }
   return result.quote;
 }

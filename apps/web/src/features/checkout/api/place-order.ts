@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { OrderCreateInput, OrderView } from '@scrap-relay/shared';
 import { api } from '../../../lib/api-client.ts';
 import type { MutationConfig } from '../../../lib/react-query.ts';
-import { myAddressQueryKey } from './get-my-address.ts';
+import { myAddressQueryKey } from '../../../lib/my-address.ts';
 
 export interface PlacedOrder {
   order: OrderView;

@@ -4,9 +4,9 @@ import { Alert } from '../../../components/ui/alert.tsx';
 import { Button } from '../../../components/ui/button.tsx';
 import { Form, SubmitButton } from '../../../components/ui/form.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
-import { useMyAddress } from '../api/get-my-address.ts';
+import { useMyAddress } from '../../../lib/my-address.ts';
 import { useUpdateMyAddress } from '../api/update-my-address.ts';
-import { addressFormValues } from '../utils/address-defaults.ts';
+import { addressFormValues } from '../../../utils/address-defaults.ts';
 import { AddressFields } from './address-fields.tsx';
 
 /** The member's saved postal address, used to fill in checkout by post. */

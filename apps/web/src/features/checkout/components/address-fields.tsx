@@ -1,3 +1,4 @@
+import { CountryField, PostalCodeField } from '../../../components/postal-fields.tsx';
 import { TextField } from '../../../components/ui/form.tsx';
 
 /**
@@ -19,17 +20,8 @@ export function AddressFields({ prefix = '' }: { prefix?: string }) {
       />
       <TextField name={name('town')} label="Town or city" autoComplete="shipping address-level2" />
       <TextField name={name('region')} label="State, province or county (optional)" autoComplete="shipping address-level1" />
-      <TextField name={name('postalCode')} label="Postal code" autoComplete="shipping postal-code" autoCapitalize="characters" spellCheck={false} />
-      <TextField
-        name={name('country')}
-        label="Country"
-        hint="Two-letter code, like US or CA."
-        autoComplete="shipping country"
-        autoCapitalize="characters"
-        maxLength={2}
-        spellCheck={false}
-        className="[&_input]:max-w-32"
-      />
+      <PostalCodeField name={name('postalCode')} />
+      <CountryField name={name('country')} />
     </div>
   );
 }

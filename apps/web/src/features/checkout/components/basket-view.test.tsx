@@ -1,11 +1,12 @@
 // @vitest-environment happy-dom
-import type { BundleView, MeetingView, PostageQuoteView } from '@scrap-relay/shared';
+import type { BundleView, MeetingView } from '@scrap-relay/shared';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { BASKET_STORAGE_KEY } from '../../../lib/basket-store.ts';
 import { createQueryClient } from '../../../lib/react-query.ts';
 import { jsonResponse, makeBundleView, makeSession, makeUser } from '../../../testing/fixtures.ts';
+import { makePostageQuote } from '../../../testing/postage.ts';
 import { buttonNamed, cleanup, click, render, waitFor } from '../../../testing/render.tsx';
 import { BasketView } from './basket-view.tsx';
 
@@ -26,28 +27,10 @@ const bundle = (overrides: Partial<BundleView> = {}): BundleView =>
     ...overrides,
   });
 
-const quote: PostageQuoteView = {
-  zone: 'local',
-  parcels: [
-    {
-      number: 1,
-      units: [{ ref: 'Dark batik 2½-inch strips', grams: 454 }],
-      packageCode: 'padded_mailer',
-      packageName: 'Padded mailer',
-      contentGrams: 454,
-      tareGrams: 25,
-      dimensionalGrams: null,
-      billableGrams: 479,
-      zone: 'local',
-      bandMaxGrams: 907,
-      priceMinor: 680,
-    },
-  ],
-  handlingMinor: 50,
-  totalMinor: 730,
+const quote = makePostageQuote({
   explanation: ['Postal code “LH1 4QT” is in zone local (prefix “LH1”).', 'Total postage: £7.30.'],
   currency: 'GBP',
-};
+});
 
 const meeting: MeetingView = { id: MEETING_ID, startsAt: '2026-12-10T19:00:00.000Z', place: 'Larkhollow Chapel Hall', notes: '', abilities: { edit: false } };
 const savedAddress = { name: 'Hester Quill', line1: '3 Loom Street', line2: '', town: 'Larkhollow', region: '', postalCode: 'LH1 4QT', country: 'GB' };

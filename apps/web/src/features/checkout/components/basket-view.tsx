@@ -12,7 +12,7 @@ import { isApiError } from '../../../lib/api-client.ts';
 import { itemsFor, updateBasket, useStoredBasket, withoutItems, withQuantity, writeBasket } from '../../../lib/basket-store.ts';
 import { useMeetings } from '../../../lib/meetings.ts';
 import { basketBundleQueryKey, getBundleQueryOptions } from '../api/get-bundle.ts';
-import { useMyAddress } from '../api/get-my-address.ts';
+import { useMyAddress } from '../../../lib/my-address.ts';
 import type { PlacedOrder } from '../api/place-order.ts';
 import { groupBySeller, reviewBasket, type BasketRemoval, type BundleLookup } from '../utils/basket-lines.ts';
 import { BasketLineItem } from './basket-line-item.tsx';

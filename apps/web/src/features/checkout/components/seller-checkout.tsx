@@ -23,10 +23,10 @@ import { Loading } from '../../../components/ui/loading.tsx';
 import { isApiError, type ApiError } from '../../../lib/api-client.ts';
 import { placeNestedFieldErrors } from '../../../lib/form-errors.ts';
 import { formatMeetingWhen } from '../../../utils/meetings.ts';
-import { usePostageQuote } from '../api/get-postage-quote.ts';
+import { usePostageQuote } from '../../../lib/postage-quotes.ts';
 import { usePlaceOrder, type PlacedOrder } from '../api/place-order.ts';
 import { useDebouncedValue } from '../hooks/use-debounced-value.ts';
-import { addressFormValues } from '../utils/address-defaults.ts';
+import { addressFormValues } from '../../../utils/address-defaults.ts';
 import {
   allowsFulfilment,
   fulfilmentPlans,
@@ -38,7 +38,7 @@ import {
 } from '../utils/basket-lines.ts';
 import { AddressFields } from './address-fields.tsx';
 import { BasketLineItem } from './basket-line-item.tsx';
-import { PostageQuoteSummary } from './postage-quote-summary.tsx';
+import { PostageQuoteSummary } from '../../../components/postage-quote-summary.tsx';
 
 /** The post form: the shared address schema plus the "save for next time" choice the order takes. */
 const postCheckoutSchema = z.object({ address: postalAddressSchema, saveAddress: z.boolean() });

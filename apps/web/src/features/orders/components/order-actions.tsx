@@ -146,6 +146,7 @@ function RefundAction({ order }: { order: OrderView }) {
             ? 'The bundles have not been posted, so they go back on the shelf.'
             : 'The bundles were already sent, so they stay rehomed.'}
         </p>
+        <SellerOwingNote order={order} />
         {refund.isError ? (
           <p role="alert" className="font-semibold text-madder-deep">
             {refund.error.message}
@@ -153,6 +154,25 @@ function RefundAction({ order }: { order: OrderView }) {
         ) : null}
       </ConfirmDialog>
     </div>
+  );
+}
+
+/** Said before a refund that takes back more than the guild still owes the seller, because part was paid out already. */
+function SellerOwingNote({ order }: { order: OrderView }) {
+  const effect = order.refundEffect;
+  if (!effect) return null;
+  const afterMinor = effect.sellerBalanceMinor - effect.sellerCreditMinor;
+  if (afterMinor >= 0) return null;
+  const money = (minor: number) => formatMoney(minor, order.currency);
+  const name = order.seller.name;
+  return (
+    <Alert
+      tone="warning"
+      announce={false}
+      title={effect.sellerBalanceMinor < 0 ? `${name} already owes the guild ${money(-effect.sellerBalanceMinor)}` : `${name} has been paid out already`}
+    >
+      <p>After this refund they will owe the guild {money(-afterMinor)}, which comes off their next sales.</p>
+    </Alert>
   );
 }
 

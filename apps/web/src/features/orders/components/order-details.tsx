@@ -3,6 +3,7 @@ import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths.ts';
 import { Panel } from '../../../components/layouts/page.tsx';
+import { PostageWorking } from '../../../components/postage-quote-summary.tsx';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { formatMeetingWhen } from '../../../utils/meetings.ts';
 import type { PaymentWait } from '../hooks/use-order-after-payment.ts';
@@ -92,18 +93,7 @@ export function OrderDetails({ order, units, payment }: OrderDetailsProps) {
 
       <Panel title={order.fulfilment === 'post' ? 'Posting' : 'Meeting handover'}>
         {order.fulfilment === 'post' ? <PostingDetails order={order} /> : <MeetingDetails order={order} />}
-        {order.postageExplanation.length > 0 ? (
-          <details className="rounded-stitch border-2 border-seam bg-linen p-3">
-            <summary className="min-h-11 cursor-pointer py-2 font-semibold">How the postage was worked out</summary>
-            <ol className="mt-2 space-y-1 text-thread-soft">
-              {order.postageExplanation.map((line, index) => (
-                <li key={index} className={line.startsWith(' ') ? 'pl-6' : undefined}>
-                  {line.trim()}
-                </li>
-              ))}
-            </ol>
-          </details>
-        ) : null}
+        {order.postageExplanation.length > 0 ? <PostageWorking explanation={order.postageExplanation} className="bg-linen" /> : null}
       </Panel>
 
       <Panel title="Who">

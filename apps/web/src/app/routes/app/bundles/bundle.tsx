@@ -8,6 +8,7 @@ import { isApiError } from '../../../../lib/api-client.ts';
 import { useSessionUser } from '../../../../features/auth/api/get-session.ts';
 import { useBundle } from '../../../../features/bundles/api/get-bundle.ts';
 import { BundleDetails } from '../../../../features/bundles/components/bundle-details.tsx';
+import { PostageToYou } from '../../../../features/bundles/components/postage-to-you.tsx';
 
 export function Component() {
   const { id = '' } = useParams();
@@ -53,6 +54,7 @@ export function Component() {
         </Alert>
       ) : null}
       <BundleDetails bundle={bundle} units={user.units} viewerId={user.id} />
+      <PostageToYou bundle={bundle} units={user.units} viewerId={user.id} />
     </Page>
   );
 }

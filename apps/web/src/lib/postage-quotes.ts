@@ -1,10 +1,11 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { PostageQuoteRequest, PostageQuoteView } from '@scrap-relay/shared';
-import { api } from '../../../lib/api-client.ts';
+import { api } from './api-client.ts';
 
 /**
  * What posting these bundles to this postal code costs by the guild's table. A
  * POST because it carries a list, but it changes nothing, so it is read as a query.
+ * Asked by the basket (a seller's bundles together) and the bundle page (one bundle).
  */
 export const getPostageQuote = (request: PostageQuoteRequest, { signal }: { signal?: AbortSignal } = {}): Promise<PostageQuoteView> =>
   api.post('/postage-quotes', request, { signal });

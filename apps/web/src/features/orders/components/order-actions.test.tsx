@@ -1,0 +1,72 @@
+// @vitest-environment happy-dom
+import type { OrderView, RefundEffectView } from '@scrap-relay/shared';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { MemoryRouter } from 'react-router-dom';
+import { afterEach, describe, expect, it } from 'vitest';
+import { createQueryClient } from '../../../lib/react-query.ts';
+import { makeOrderView } from '../../../testing/orders.ts';
+import { buttonNamed, cleanup, click, render } from '../../../testing/render.tsx';
+import { OrderActions } from './order-actions.tsx';
+
+afterEach(() => cleanup());
+
+/** A posted order of $19.30 the treasurer may refund; the seller's credit on it is $18.10. */
+const refundable = (refundEffect: RefundEffectView | null): OrderView =>
+  makeOrderView({
+    state: 'posted',
+    viewerIs: 'officer',
+    seller: { id: 's-1', name: 'Orla Vance', email: 'orla@larkhollow.example' },
+    paidAt: '2026-11-02T10:05:00.000Z',
+    postedAt: '2026-11-03T09:00:00.000Z',
+    guildFeeMinor: 120,
+    sellerCreditMinor: 1810,
+    refundEffect,
+    abilities: { pay: false, markPosted: false, markReceived: false, cancel: false, refund: true, reportProblem: false, viewAddress: false },
+  });
+
+/** Opens the refund dialog and gives its text. */
+async function refundDialogText(order: OrderView): Promise<string> {
+  const { container } = await render(
+    <QueryClientProvider client={createQueryClient()}>
+      <MemoryRouter>
+        <OrderActions order={order} />
+      </MemoryRouter>
+    </QueryClientProvider>,
+  );
+  await click(buttonNamed(container, 'Refund $19.30'));
+  const dialog = container.querySelector('dialog');
+  expect(dialog?.open).toBe(true);
+  return dialog?.textContent ?? '';
+}
+
+describe('the treasurer’s refund dialog', () => {
+  it('warns that a seller paid out already will owe the guild what the refund takes back', async () => {
+    const text = await refundDialogText(refundable({ sellerBalanceMinor: 0, sellerCreditMinor: 1810 }));
+
+    expect(text).toContain('Orla Vance has been paid out already');
+    expect(text).toContain('After this refund they will owe the guild $18.10, which comes off their next sales.');
+  });
+
+  it('counts only the part of the credit that was paid out', async () => {
+    const text = await refundDialogText(refundable({ sellerBalanceMinor: 1360, sellerCreditMinor: 1810 }));
+
+    expect(text).toContain('they will owe the guild $4.50');
+  });
+
+  it('says what the seller owes already when a refund adds to it', async () => {
+    const text = await refundDialogText(refundable({ sellerBalanceMinor: -250, sellerCreditMinor: 1810 }));
+
+    expect(text).toContain('Orla Vance already owes the guild $2.50');
+    expect(text).toContain('they will owe the guild $20.60');
+  });
+
+  it('says nothing about owing while the guild still holds enough for the seller', async () => {
+    for (const effect of [{ sellerBalanceMinor: 1810, sellerCreditMinor: 1810 }, null]) {
+      const text = await refundDialogText(refundable(effect));
+
+      expect(text).toContain('The bundles were already sent, so they stay rehomed.');
+      expect(text).not.toMatch(/owe|paid out/);
+      cleanup();
+    }
+  });
+});
