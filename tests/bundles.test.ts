@@ -354,6 +354,10 @@ describe('bad listing input', () => {
 
     // A square size needs squares among the cut kinds; unticking a kind drops its sizes with it.
     const draft = await newDraft(sellerClient, { ...completeListing, cutKinds: ['strips'], cutSizes: ['strip_2_5'] });
+    const unknown = await sellerClient.send('patch', `/api/bundles/${draft}`, { cutSizes: ['strip_9'], title: 'Not saved' });
+    expect(unknown.status).toBe(400);
+    expect(Object.keys(unknown.body.error.fields)).toEqual(['cutSizes.0']);
+    expect((await Bundle.findByPk(draft))!.title).toBe(completeListing.title);
     const mismatch = await sellerClient.send('patch', `/api/bundles/${draft}`, { cutSizes: ['square_10'] });
     expect(mismatch.status).toBe(400);
     expect(mismatch.body.error.fields.cutSizes).toBe('10-inch squares need Squares among the cut kinds.');

@@ -495,5 +495,10 @@ describe('bad order input', () => {
     const res = await admin.send('put', '/api/guild/postage', { ...current, bands: [{ zone: 'moon', maxGrams: 100, priceMinor: 100 }] });
     expect(res.status).toBe(400);
     expect(res.body.error.fields['bands.0.zone']).toMatch(/moon/);
+    // Countries are two-letter codes, each once; nothing is saved when one is wrong.
+    const badCountries = await admin.send('put', '/api/guild/postage', { ...current, countries: ['US', 'USA', 'US'] });
+    expect(badCountries.status).toBe(400);
+    expect(Object.keys(badCountries.body.error.fields)).toEqual(expect.arrayContaining(['countries.1']));
+    expect((await admin.get('/api/guild/postage')).body.postage).toEqual(current);
   });
 });
