@@ -7,3 +7,4 @@ export * from './postage.ts';
 export * from './money.ts';
 export * from './colour.ts';
 export * from './claims.ts';
+export * from './roles.ts';

@@ -1,6 +1,7 @@
 import { z } from 'zod';
+// In the domain, not here: a page that only lists roles then loads no zod schema.
+import { ROLES } from '../domain/roles.ts';
 
-export const ROLES = ['member', 'librarian', 'treasurer', 'admin'] as const;
 export const roleSchema = z.enum(ROLES);
 export type Role = z.infer<typeof roleSchema>;
 
