@@ -11,7 +11,7 @@ import {
   quotePostage,
   roundUpToWholePounds,
 } from './postage.ts';
-import { GRAMS_PER_OUNCE } from './units.ts';
+import { GRAMS_PER_OUNCE, formatWeight } from './units.ts';
 
 const USPS_2019: DimensionalRule = { divisorCubicInchesPerPound: 166, thresholdCubicInches: 1728, roundEachDimensionUp: false };
 const PRIVATE_CARRIER: DimensionalRule = { divisorCubicInchesPerPound: 139, thresholdCubicInches: 0, roundEachDimensionUp: false };
@@ -268,6 +268,19 @@ describe('quotePostage (hand-worked invented table)', () => {
     const quote = quoteOf(quotePostage({ table: boxTable, items: [{ ref: 'Yardage', grams: 1500 }], postalCode: 'X' }));
     expect(quote.parcels[0]?.bandMaxGrams).toBe(5443);
     expect(quote.totalMinor).toBe(1200);
+  });
+});
+
+describe('the working for a reader who uses pounds and ounces', () => {
+  it('keeps every sum in grams and gives the billable weight and the band in pounds and ounces too', () => {
+    const metric = quoteOf(quotePostage({ table: TABLE, items: [{ ref: 'Blues', grams: 400 }], postalCode: 'K0A 1B0' }));
+    const imperial = quoteOf(quotePostage({ table: TABLE, items: [{ ref: 'Blues', grams: 400 }], postalCode: 'K0A 1B0', units: 'imperial' }));
+    expect(imperial.totalMinor).toBe(metric.totalMinor);
+    const billable = imperial.parcels[0]!.billableGrams;
+    const text = imperial.explanation.join('\n');
+    expect(text).toContain(`billable ${billable.toLocaleString('en-US')} g (${formatWeight(billable, 'imperial')})`);
+    expect(text).toContain('400 g'); // the content, still in grams, so the sums add up
+    expect(metric.explanation.join('\n')).not.toContain(' oz');
   });
 });
 

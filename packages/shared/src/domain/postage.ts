@@ -22,7 +22,8 @@
  *    bands at pound limits; see poundBandLimitGrams.)
  * 6. Total = sum of parcel prices + handling (once per quote).
  */
-import { GRAMS_PER_POUND, formatMoney } from './units.ts';
+import type { UnitSystem } from '../schemas/members.ts';
+import { GRAMS_PER_POUND, formatMoney, formatWeight } from './units.ts';
 
 export interface DimensionalRule {
   divisorCubicInchesPerPound: number;
@@ -81,6 +82,11 @@ export interface PostageQuoteInput {
   /** For the explanation's prices; the table itself holds minor units only. */
   currency?: string;
   locale?: string;
+  /**
+   * The reader's units. The working stays in grams, so its sums add up exactly; for `imperial` the
+   * billable weight, the band and the too-heavy message also give pounds and ounces.
+   */
+  units?: UnitSystem;
 }
 
 export interface QuotedParcel {
@@ -191,6 +197,9 @@ export function matchZone(zones: readonly PostageZone[], postalCode: string): { 
 
 const decimal = (n: number): string => n.toLocaleString('en-US', { maximumFractionDigits: 2 });
 const grams = (g: number): string => `${decimal(g)} g`;
+/** Grams, with pounds and ounces beside them for a reader who uses them. */
+const gramsFor = (units: UnitSystem | undefined) => (g: number): string =>
+  units === 'imperial' ? `${grams(g)} (${formatWeight(g, 'imperial')})` : grams(g);
 const volumeOf = (p: PackagingPreset): number => p.innerMm[0] * p.innerMm[1] * p.innerMm[2];
 
 interface Unit {
@@ -246,6 +255,7 @@ function priceCandidate(preset: PackagingPreset, contentGrams: number, zoneBands
 export function quotePostage(input: PostageQuoteInput): PostageResult {
   const { table } = input;
   const money = (minor: number) => formatMoney(minor, input.currency ?? 'USD', input.locale ?? 'en-US');
+  const weight = gramsFor(input.units);
   const units = expandUnits(input.items);
   if (units.length === 0) return fail('nothing_to_post', 'There is nothing to post.');
   const covered = table.countries ?? [];
@@ -268,7 +278,7 @@ export function quotePostage(input: PostageQuoteInput): PostageResult {
       ok: false,
       error: {
         code: 'too_heavy',
-        message: `“${heaviest.ref}” weighs ${grams(heaviest.grams)}; the largest package (${largest.name}) holds ${grams(maxContentGrams)}. Choose handover at a meeting instead.`,
+        message: `“${heaviest.ref}” weighs ${weight(heaviest.grams)}; the largest package (${largest.name}) holds ${weight(maxContentGrams)}. Choose handover at a meeting instead.`,
         ref: heaviest.ref,
         grams: heaviest.grams,
         maxContentGrams,
@@ -293,7 +303,7 @@ export function quotePostage(input: PostageQuoteInput): PostageResult {
     const candidates = table.packaging
       .filter((p) => contentGrams + p.tareGrams <= p.maxGrams)
       .map((p) => priceCandidate(p, contentGrams, zoneBands, table.dimensional));
-    for (const c of candidates) explanation.push(`  ${describeCandidate(c, contentGrams, zone, table.dimensional, money)}`);
+    for (const c of candidates) explanation.push(`  ${describeCandidate(c, contentGrams, zone, table.dimensional, money, weight)}`);
 
     const chosen = candidates
       .filter((c): c is Candidate & { priceMinor: number } => c.priceMinor !== null)
@@ -345,6 +355,7 @@ function describeCandidate(
   zone: string,
   rule: DimensionalRule,
   money: (minor: number) => string,
+  weight: (g: number) => string,
 ): string {
   const name = c.preset.name;
   if (c.preset.flatPriceMinor !== null) return `${name}: flat price ${money(c.preset.flatPriceMinor)}.`;
@@ -356,9 +367,9 @@ function describeCandidate(
       `dimensional ${d.dimensionsIn.map(decimal).join(' × ')} in = ${decimal(d.volumeCubicInches)} in³ ÷ ${rule.divisorCubicInchesPerPound} → ${d.pounds} lb = ${grams(d.grams)}`,
     );
   }
-  parts.push(`billable ${grams(c.billableGrams)}`);
+  parts.push(`billable ${weight(c.billableGrams)}`);
   const price = c.band
-    ? `zone ${zone} band up to ${grams(c.band.maxGrams)}: ${money(c.band.priceMinor)}.`
+    ? `zone ${zone} band up to ${weight(c.band.maxGrams)}: ${money(c.band.priceMinor)}.`
     : `no band in zone ${zone} covers it.`;
   return `${parts.join('; ')}; ${price}`;
 }

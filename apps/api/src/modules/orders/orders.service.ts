@@ -208,7 +208,7 @@ export async function placeOrder(ctx: AppContext, buyer: Member, input: OrderCre
 
     const quote =
       input.fulfilment === 'post'
-        ? quoteOrThrow(guild, lines.map((l) => ({ ref: l.bundle.title, grams: l.bundle.weightGrams!, quantity: l.quantity })), input.address!, 'address')
+        ? quoteOrThrow(guild, lines.map((l) => ({ ref: l.bundle.title, grams: l.bundle.weightGrams!, quantity: l.quantity })), input.address!, 'address', buyer.units ?? guild.defaultUnits)
         : null;
     const money = orderMoney({
       lines: lines.map((l) => ({ priceMinor: l.bundle.offer === 'sale' ? l.bundle.priceMinor! : 0, quantity: l.quantity })),

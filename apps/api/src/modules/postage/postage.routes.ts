@@ -25,7 +25,8 @@ export function postageRoutes(): Router {
 
   /** A quote for bundles on the shelf, to the viewer's own postal code, before anything is held. */
   router.post('/postage-quotes', async (req, res) => {
-    const actor = actorOf(requireMember(req));
+    const member = requireMember(req);
+    const actor = actorOf(member);
     const input = parseInput(postageQuoteRequestSchema, req.body);
     const bundles = await Bundle.findAll({ where: { id: input.items.map((i) => i.bundleId) } });
     const byId = new Map(bundles.map((b) => [b.id, b]));
@@ -35,7 +36,7 @@ export function postageRoutes(): Router {
       return { ref: bundle.title, grams: bundle.weightGrams, quantity: item.quantity };
     });
     const guild = await loadGuild();
-    const quote = quoteOrThrow(guild, items, input.destination, 'destination');
+    const quote = quoteOrThrow(guild, items, input.destination, 'destination', member.units ?? guild.defaultUnits);
     const body: PostageQuoteView = { ...quote, currency: guild.currency };
     res.json(body);
   });

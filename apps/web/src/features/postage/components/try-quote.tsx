@@ -28,6 +28,7 @@ export function TryQuote({ currency, units }: { currency: string; units: UnitSys
       items: weights.grams.map((grams, index) => ({ ref: `Bundle ${index + 1}`, grams })),
       postalCode: postalCode.trim(),
       currency,
+      units,
     });
     outcome = result.ok ? (
       <div className="space-y-2">
