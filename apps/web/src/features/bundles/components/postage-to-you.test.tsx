@@ -39,7 +39,7 @@ async function openPanel(bundle: BundleView) {
   const { container } = await render(
     <QueryClientProvider client={createQueryClient()}>
       <MemoryRouter>
-        <PostageToYou bundle={bundle} viewerId={VIEWER} units="imperial" />
+        <PostageToYou bundle={bundle} units="imperial" />
       </MemoryRouter>
     </QueryClientProvider>,
   );
@@ -108,7 +108,11 @@ describe('postage to you on the bundle page', () => {
   it('shows nothing on the member’s own bundle, a meeting or starter bundle, or one they may not buy', async () => {
     serveApi(savedAddress);
     for (const bundle of [
-      saleBundle({ seller: { id: VIEWER, firstName: 'Hester', rehomedCount: 0, returnedCount: 0 } }),
+      // The member's own bundle, as the API presents it to them: no `buy` ability.
+      saleBundle({
+        seller: { id: VIEWER, firstName: 'Hester', rehomedCount: 0, returnedCount: 0 },
+        abilities: { edit: false, submit: false, withdraw: true, relist: false, review: false, buy: false, claim: false },
+      }),
       saleBundle({ offer: 'meeting', priceMinor: null }),
       saleBundle({ offer: 'starter', priceMinor: null }),
       saleBundle({ abilities: { edit: false, submit: false, withdraw: false, relist: false, review: false, buy: false, claim: false } }),

@@ -18,13 +18,14 @@ import { defaultCountryFor } from '../../../utils/address-defaults.ts';
 const destinationSchema = postageQuoteRequestSchema.shape.destination;
 type Destination = { country: string; postalCode: string };
 
-/** Whether this viewer may have the bundle posted to them: a sale or postage-only bundle of someone else's that they may buy. */
-const quotesPostageFor = (bundle: BundleView, viewerId: string): boolean =>
-  (bundle.offer === 'sale' || bundle.offer === 'postage_only') && bundle.seller.id !== viewerId && bundle.abilities.buy;
+/**
+ * Whether this viewer may have the bundle posted to them: a sale or postage-only bundle they may buy (the API's
+ * `buy` ability already leaves out their own bundles).
+ */
+const quotesPostageFor = (bundle: BundleView): boolean => (bundle.offer === 'sale' || bundle.offer === 'postage_only') && bundle.abilities.buy;
 
 export interface PostageToYouProps {
   bundle: BundleView;
-  viewerId: string;
   units: UnitSystem;
 }
 
@@ -32,8 +33,8 @@ export interface PostageToYouProps {
  * What posting one of this bundle to the member would cost, before they commit: to their saved address at once,
  * or to a postal code they try.
  */
-export function PostageToYou({ bundle, viewerId, units }: PostageToYouProps) {
-  if (!quotesPostageFor(bundle, viewerId)) return null;
+export function PostageToYou({ bundle, units }: PostageToYouProps) {
+  if (!quotesPostageFor(bundle)) return null;
   return (
     <Panel title="Postage to you">
       <SavedOrTried bundle={bundle} units={units} />
@@ -44,7 +45,7 @@ export function PostageToYou({ bundle, viewerId, units }: PostageToYouProps) {
   );
 }
 
-function SavedOrTried({ bundle, units }: Omit<PostageToYouProps, 'viewerId'>) {
+function SavedOrTried({ bundle, units }: PostageToYouProps) {
   const address = useMyAddress();
   const [tried, setTried] = useState<Destination | null>(null);
   const [trying, setTrying] = useState(false);

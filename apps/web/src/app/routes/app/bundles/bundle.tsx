@@ -54,7 +54,7 @@ export function Component() {
         </Alert>
       ) : null}
       <BundleDetails bundle={bundle} units={user.units} viewerId={user.id} />
-      <PostageToYou bundle={bundle} units={user.units} viewerId={user.id} />
+      <PostageToYou bundle={bundle} units={user.units} />
     </Page>
   );
 }
