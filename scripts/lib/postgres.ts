@@ -4,6 +4,7 @@ import path from 'node:path';
 import { SetupError } from './errors.ts';
 import { note } from './log.ts';
 import { machineScratchDir } from './paths.ts';
+import { aptInstall } from './apt.ts';
 import { assertPortFree } from './ports.ts';
 import { runCommand, tail, type RunResult } from './run.ts';
 
@@ -44,13 +45,7 @@ async function installPostgres(): Promise<string> {
     );
   }
   note('PostgreSQL is not installed; installing it with apt-get (once)…');
-  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-  for (const args of [['update'], ['install', '-y', 'postgresql']]) {
-    const result = await runCommand('apt-get', args, { env, capture: true });
-    if (result.code !== 0) {
-      throw new SetupError(`apt-get ${args.join(' ')} failed:\n${tail(result.stdout + result.stderr)}`);
-    }
-  }
+  await aptInstall('postgresql');
   const bin = findBinaries();
   if (bin === undefined) throw new SetupError('apt-get installed postgresql, but no server binaries were found under /usr/lib/postgresql.');
   return bin;
