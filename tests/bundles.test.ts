@@ -4,7 +4,7 @@ import sharp from 'sharp';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { Bundle, BundlePhoto, type Member } from '../apps/api/src/db/models/index.ts';
 import { expireBundles } from '../apps/api/src/jobs/scheduled.ts';
-import { countRows, createMember, signedInClient, startTestApi, type Client, type TestApi } from './support/api.ts';
+import { Client, countRows, createMember, signedInClient, startTestApi, type TestApi } from './support/api.ts';
 import { completeListing, listAndSubmit } from './support/bundles.ts';
 import { jpegPhoto, pngClaiming } from './support/photos.ts';
 import { clearMail, listMail, waitForMail } from './support/services.ts';
@@ -101,7 +101,11 @@ describe('listing, review and the shelf', () => {
     expect(thumb.status).toBe(200);
     expect(thumb.headers['content-type']).toBe('image/webp');
     expect(thumb.headers['x-content-type-options']).toBe('nosniff');
-    expect(thumb.headers['cache-control']).toMatch(/max-age=31536000/);
+    expect(thumb.headers['cache-control']).toBe('private, max-age=31536000, immutable');
+    // Photos are for members, like the shelf they are on: the address alone is not enough.
+    const signedOut = await new Client(api.runtime.app).get(card.thumbUrl);
+    expect(signedOut.status).toBe(401);
+    expect(signedOut.headers['content-type']).toMatch(/^application\/json/);
   });
 
   it('pages through the shelf: later pages continue where the page before stopped, under the same count, and a text search counts four pages ahead', async () => {
@@ -150,6 +154,18 @@ describe('listing, review and the shelf', () => {
     expect((await buyerClient.get(`/api/bundles?q=${word}&pageSize=1&page=1`)).body).toMatchObject({ page: 1, total: 5, totalCapped: true });
     expect((await buyerClient.get(`/api/bundles?q=${word}&pageSize=1&page=3`)).body).toMatchObject({ page: 3, total: 7, totalCapped: false });
     expect((await buyerClient.get(`/api/bundles?q=${word}&pageSize=60`)).body).toMatchObject({ total: 7, totalCapped: false });
+  });
+
+  it('refuses to send a sale priced under the least card payment for review, naming the price', async () => {
+    const id = await newDraft(sellerClient, { ...completeListing, priceMinor: 25 });
+    expect((await upload(sellerClient, id, [{ data: await jpegPhoto(), name: 'a.jpg' }])).status).toBe(201);
+    const refused = await sellerClient.send('post', `/api/bundles/${id}/submit`);
+    expect(refused.status).toBe(422);
+    // USD 0.50: Stripe's minimum charge amount (docs.stripe.com/currencies), from memory.
+    expect(refused.body.error.fields.priceMinor).toMatch(/^Prices start at \$0\.50/);
+    expect((await Bundle.findByPk(id))!.state).toBe('draft');
+    expect((await sellerClient.send('patch', `/api/bundles/${id}`, { priceMinor: 50 })).status).toBe(200);
+    expect((await sellerClient.send('post', `/api/bundles/${id}/submit`)).status).toBe(200);
   });
 
   it('returns a bundle with notes: the seller is e-mailed, edits and resubmits', async () => {
@@ -209,7 +225,7 @@ describe('listing, review and the shelf', () => {
     }
     const mine = await sellerClient.get(`/api/bundles/${id}`);
     expect(mine.body.bundle).toMatchObject({ state: 'expired', abilities: { relist: true } });
-    await waitForMail({ to: seller.email, subjectIncludes: 'Off the shelf after 90 days' });
+    await waitForMail({ to: seller.email, subjectIncludes: 'Off the shelf after 91 days' });
   });
 });
 

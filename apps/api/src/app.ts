@@ -6,7 +6,7 @@ import type pg from 'pg';
 import { configurePassport } from './auth/passport.ts';
 import { sessionMiddleware } from './auth/session.ts';
 import type { AppContext } from './context.ts';
-import { errorHandler, notFoundHandler } from './errors/index.ts';
+import { errorHandler, notFoundHandler, unauthenticated } from './errors/index.ts';
 import { csrfProtection } from './middleware/csrf.ts';
 import { requestLog } from './middleware/request-log.ts';
 import { guildRoutes } from './modules/guild/guild.routes.ts';
@@ -58,14 +58,14 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   // Before the JSON parser: the signature is checked on the raw body.
   api.use(webhookRoutes(ctx));
   api.use(express.json({ limit: '100kb', strict: true }));
-  api.use(sessionMiddleware(ctx.config, pool));
+  const sessions = sessionMiddleware(ctx.config, pool);
   const passport = configurePassport();
   // No compatibility shim for passport 0.4-era strategies (req._passport): passport-local does not need it.
-  api.use(passport.initialize({ compat: false }));
-  api.use(passport.session());
+  const signedIn = [sessions, passport.initialize({ compat: false }), passport.session()];
+  api.use(signedIn);
   api.use(csrfProtection(['/stripe/webhook']));
   api.use(sessionRoutes(ctx, pool));
-  api.use(membersRoutes(ctx));
+  api.use(membersRoutes(ctx, pool));
   api.use(guildRoutes());
   api.use(reviewRoutes(ctx));
   api.use(bundlesRoutes(ctx));
@@ -81,8 +81,13 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   api.use(notFoundHandler);
   app.use('/api', api);
 
-  // Photo files are written once under keys we make, so they can be cached for good.
-  app.use('/uploads', express.static(path.resolve(ctx.config.uploadDir), { index: false, maxAge: '1y', immutable: true, fallthrough: false }));
+  // Photos are for the guild's members, like the shelf: a signed-out request gets 401, whoever has the address.
+  // They are written once under keys we make, so a member's browser keeps them for good, and no shared cache does.
+  const uploads = express.Router();
+  uploads.use(signedIn);
+  uploads.use((req, _res, next) => next(req.user ? undefined : unauthenticated()));
+  uploads.use(express.static(path.resolve(ctx.config.uploadDir), { index: false, fallthrough: false, setHeaders: privateForGood }));
+  app.use('/uploads', uploads);
 
   if (ctx.config.webDist) {
     const dist = path.resolve(ctx.config.webDist);
@@ -92,6 +97,10 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
 
   app.use(errorHandler);
   return app;
+}
+
+function privateForGood(res: express.Response) {
+  res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
 }
 
 function noCacheForHtml(res: express.Response, file: string) {
