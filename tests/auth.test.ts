@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { Member, MemberToken } from '../apps/api/src/db/models/index.ts';
+import { ACCOUNT_MAIL_LIMITS } from '../apps/api/src/modules/members/members.routes.ts';
 import { appWith, Client, countRows, createMember, signedInClient, startTestApi, TEST_INVITE_CODE, TEST_PASSWORD, uniqueEmail, type TestApi } from './support/api.ts';
 import { clearMail, waitForMail } from './support/services.ts';
 
@@ -231,5 +232,91 @@ describe('password reset', () => {
     const before = await countRows(api.runtime.ctx.sequelize, ['member_tokens']);
     expect((await client.send('post', '/api/password-resets', { email: uniqueEmail('stranger') })).status).toBe(202);
     expect(await countRows(api.runtime.ctx.sequelize, ['member_tokens'])).toEqual(before);
+  });
+});
+
+describe('limits on password-reset and verification e-mails', () => {
+  // Behind a trusted proxy, so each test asks from its own documentation address (RFC 5737 TEST-NET-3)
+  // and its counts stay apart from every other test's.
+  const proxiedApp = () => appWith(api, (c) => ({ ...c, trustProxy: 'loopback' }));
+  let nextHost = 1;
+  const networkAddress = () => `203.0.113.${nextHost++}`;
+  const { perAddress, perIp } = ACCOUNT_MAIL_LIMITS;
+
+  const queuedMailTo = async (email: string) => {
+    const [rows] = await api.runtime.ctx.sequelize.query(`SELECT count(*)::int AS n FROM pgboss.job WHERE name = 'email-send' AND data->>'to' = $1`, {
+      bind: [email],
+    });
+    return (rows as { n: number }[])[0]!.n;
+  };
+  const tokensOf = (member: Member, purpose: string) => MemberToken.count({ where: { memberId: member.id, purpose } });
+  const askReset = (client: Client, ip: string, email: string) =>
+    client.send('post', '/api/password-resets', { email }).set('X-Forwarded-For', ip);
+  // The minutes left can differ by one between two answers; the rest of the answer may not.
+  const withoutNumbers = (body: { error: { message: string } }) => ({ ...body, error: { ...body.error, message: body.error.message.replace(/\d+/g, 'N') } });
+
+  it('sends a member at most the limit of reset e-mails an hour, then answers 429 exactly as for an address with no account', async () => {
+    const member = await createMember();
+    const stranger = uniqueEmail('stranger');
+    const client = new Client(proxiedApp());
+    await client.refreshSession();
+    const ip = networkAddress();
+
+    for (let i = 0; i < perAddress; i++) {
+      expect((await askReset(client, ip, member.email)).status).toBe(202);
+      expect((await askReset(client, ip, stranger)).status).toBe(202);
+    }
+    // The address is counted as the form normalises it: upper case is the same inbox.
+    const memberLimited = await askReset(client, ip, member.email.toUpperCase());
+    const strangerLimited = await askReset(client, ip, stranger);
+    expect(memberLimited.status).toBe(429);
+    expect(strangerLimited.status).toBe(429);
+    expect(memberLimited.body.error.code).toBe('rate_limited');
+    expect(memberLimited.body.error.message).toMatch(/Please wait \d+ minutes? before asking again/);
+    expect(withoutNumbers(memberLimited.body)).toEqual(withoutNumbers(strangerLimited.body));
+    expect(memberLimited.headers['retry-after']).toBeDefined();
+
+    // Three links and three e-mails, not four; nothing for the address without an account.
+    expect(await tokensOf(member, 'password_reset')).toBe(perAddress);
+    expect(await queuedMailTo(member.email)).toBe(perAddress);
+    expect(await queuedMailTo(stranger)).toBe(0);
+    const mail = await waitForMail({ to: member.email, subjectIncludes: 'Reset your' });
+    expect(mail.text).toContain('/reset-password?token=');
+
+    // Another network address does not lift the limit on the inbox.
+    const elsewhere = await askReset(client, networkAddress(), member.email);
+    expect(elsewhere.status).toBe(429);
+    expect(await tokensOf(member, 'password_reset')).toBe(perAddress);
+  });
+
+  it('limits one network address across many e-mail addresses', async () => {
+    const client = new Client(proxiedApp());
+    await client.refreshSession();
+    const ip = networkAddress();
+    for (let i = 0; i < perIp; i++) expect((await askReset(client, ip, uniqueEmail('sprayed'))).status).toBe(202);
+    const member = await createMember();
+    const limited = await askReset(client, ip, member.email);
+    expect(limited.status).toBe(429);
+    expect(limited.body.error.code).toBe('rate_limited');
+    expect(await tokensOf(member, 'password_reset')).toBe(0);
+    // The member, asking from their own network, still gets their link.
+    expect((await askReset(client, networkAddress(), member.email)).status).toBe(202);
+    expect(await tokensOf(member, 'password_reset')).toBe(1);
+    await waitForMail({ to: member.email, subjectIncludes: 'Reset your' });
+  });
+
+  it('limits new verification links for a signed-in member', async () => {
+    const member = await createMember({ verified: false });
+    const app = proxiedApp();
+    const client = await signedInClient(app, member);
+    const ip = networkAddress();
+    const resend = () => client.send('post', '/api/email-verifications/resend').set('X-Forwarded-For', ip);
+    for (let i = 0; i < perAddress; i++) expect((await resend()).status).toBe(202);
+    const limited = await resend();
+    expect(limited.status).toBe(429);
+    expect(limited.body.error.code).toBe('rate_limited');
+    expect(await tokensOf(member, 'email_verification')).toBe(perAddress);
+    expect(await queuedMailTo(member.email)).toBe(perAddress);
+    await waitForMail({ to: member.email, subjectIncludes: 'confirm your e-mail' });
   });
 });

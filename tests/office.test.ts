@@ -1,8 +1,10 @@
 import { processingCost } from '@scrap-relay/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Meeting, Order, type Member } from '../apps/api/src/db/models/index.ts';
+import { Bundle, Guild, Meeting, Member, Order, Payout } from '../apps/api/src/db/models/index.ts';
+import { expireBundles, SHELF_WARNING_DAYS, warnBundlesLeavingShelf } from '../apps/api/src/jobs/scheduled.ts';
 import { createMember, listenOnApiPort, signedInClient, startTestApi, type Client, type TestApi } from './support/api.ts';
 import { listAndSubmit } from './support/bundles.ts';
+import { serviceEnv, waitForMail } from './support/services.ts';
 import { payCheckout, sessionIdFromUrl } from './support/stripe-fake.ts';
 
 let api: TestApi;
@@ -163,5 +165,180 @@ describe('the member’s own profile', () => {
     const [rows] = await api.runtime.ctx.sequelize.query(`SELECT name, email, active, closed_at FROM members WHERE id = $1`, { bind: [leaver.id] });
     expect((rows as { name: string; email: string; active: boolean }[])[0]).toMatchObject({ name: 'Former member', active: false });
     expect((rows as { email: string }[])[0]!.email).not.toContain('millbrook');
+  });
+});
+
+/** E-mail jobs queued for one address, with the kind each was filed under (pg-boss keeps them in its job table). */
+async function queuedMail(email: string, subjectIncludes: string) {
+  const [rows] = await api.runtime.ctx.sequelize.query(
+    `SELECT data->>'subject' AS subject, data->>'kind' AS kind FROM pgboss.job WHERE name = 'email-send' AND data->>'to' = $1 AND data->>'subject' LIKE $2`,
+    { bind: [email, `%${subjectIncludes}%`] },
+  );
+  return rows as { subject: string; kind: string | null }[];
+}
+const oneLine = (text: string) => text.replace(/\s+/g, ' ');
+const dollars = (cents: number) => `$${(cents / 100).toFixed(2)}`;
+
+describe('the payout e-mail', () => {
+  it('tells the seller the amount, the moment in the guild’s time zone and what the guild still owes, queued with the payout', async () => {
+    const payee = await createMember({ name: 'Orla Penhallow' });
+    const payeeClient = await signedInClient(api.runtime.app, payee);
+    const id = await listAndSubmit(payeeClient, { title: 'Payout sale', priceMinor: 1200, weightGrams: 454 });
+    await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'approve' });
+    await paidOrder(id);
+    const balances = await treasurerClient.get('/api/seller-balances');
+    const owed = balances.body.items.find((b: { sellerId: string }) => b.sellerId === payee.id).balanceMinor as number;
+    expect(owed).toBeGreaterThan(250);
+
+    // India keeps UTC+05:30 all year (IANA time zone database), so the local time is the UTC time plus 5 h 30 min.
+    const guild = (await Guild.findByPk(1))!;
+    const settings = guild.settings;
+    await guild.update({ settings: { ...settings, timeZone: 'Asia/Kolkata' } });
+    try {
+      const tooMuch = await treasurerClient.send('post', '/api/payouts', { sellerId: payee.id, amountMinor: owed + 1, method: 'cash' });
+      expect(tooMuch.status).toBe(422);
+      expect(await queuedMail(payee.email, 'The guild paid you')).toHaveLength(0);
+
+      const paid = await treasurerClient.send('post', '/api/payouts', { sellerId: payee.id, amountMinor: owed - 250, method: 'bank_transfer', reference: 'FPG <0042>' });
+      expect(paid.status).toBe(201);
+      const payout = (await Payout.findByPk(paid.body.payout.id))!;
+      expect(payout.amountMinor).toBe(owed - 250);
+
+      const mail = await waitForMail({ to: payee.email, subjectIncludes: `The guild paid you ${dollars(owed - 250)}` });
+      const local = new Date(payout.createdAt.getTime() + 330 * 60_000);
+      const months = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+      const hour = local.getUTCHours() % 12 || 12;
+      const when = `${months[local.getUTCMonth()]} ${local.getUTCDate()}, ${local.getUTCFullYear()} at ${hour}:${String(local.getUTCMinutes()).padStart(2, '0')} ${local.getUTCHours() < 12 ? 'AM' : 'PM'} GMT+5:30`;
+      const text = oneLine(mail.text);
+      expect(text).toContain(`a payout of ${dollars(owed - 250)} to you by bank transfer on`);
+      expect(text).toContain(when);
+      expect(text).toContain('Reference: FPG <0042>.');
+      expect(text).toContain('still owes you $2.50 for your sales');
+      expect(text).toContain(`${serviceEnv().appUrl}/orders?as=seller`);
+      expect(mail.html).toContain('FPG &lt;0042&gt;');
+      expect(mail.html).not.toContain('<0042>');
+      // Money e-mail: always sent, so it names no e-mail choice to untick.
+      expect(mail.text).not.toContain('E-mails you receive');
+      expect((await queuedMail(payee.email, 'The guild paid you'))[0]!.kind).toBeNull();
+
+      expect((await treasurerClient.send('post', '/api/payouts', { sellerId: payee.id, amountMinor: 250, method: 'cash' })).status).toBe(201);
+      const last = await waitForMail({ to: payee.email, subjectIncludes: 'The guild paid you $2.50' });
+      expect(oneLine(last.text)).toContain('to you in cash on');
+      expect(oneLine(last.text)).toContain('paid you everything your sales earned so far');
+    } finally {
+      await guild.update({ settings });
+    }
+  });
+});
+
+describe('wish e-mails', () => {
+  it('sends a member one e-mail naming every wish a newly approved bundle matches, with the profile link at the end', async () => {
+    const wisher = await createMember({ name: 'Wren Tolley' });
+    const wisherClient = await signedInClient(api.runtime.app, wisher);
+    for (const wish of [
+      { name: 'Any strips', filters: { cut: 'strips' } },
+      { name: 'Cool colours', filters: { family: 'cool' } },
+      { name: 'Flannel only', filters: { fibre: 'flannel' } },
+    ]) {
+      expect((await wisherClient.send('post', '/api/wishes', wish)).status).toBe(201);
+    }
+    // Member-written text stays escaped in the HTML body.
+    const id = await listAndSubmit(sellerClient, { title: 'Strips <b>and</b> more', cutKinds: ['strips'], colourFamily: 'cool', fibre: 'quilting_cotton' });
+    expect((await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'approve' })).status).toBe(200);
+
+    const [notified] = await api.runtime.ctx.sequelize.query(
+      `SELECT w.name FROM wish_notifications n JOIN wishes w ON w.id = n.wish_id WHERE n.bundle_id = $1 AND w.member_id = $2 ORDER BY w.name`,
+      { bind: [id, wisher.id] },
+    );
+    expect((notified as { name: string }[]).map((r) => r.name)).toEqual(['Any strips', 'Cool colours']);
+    const queued = await queuedMail(wisher.email, 'A bundle for');
+    expect(queued).toEqual([{ subject: 'A bundle for your wishes "Any strips" and "Cool colours": Strips <b>and</b> more', kind: 'wishes' }]);
+
+    const mail = await waitForMail({ to: wisher.email, subjectIncludes: 'A bundle for your wishes' });
+    expect(mail.text).toContain('A bundle that matches 2 of your wishes just went on the shelf');
+    expect(oneLine(mail.text)).toContain('- Any strips - Cool colours');
+    expect(mail.text).not.toContain('Flannel only');
+    expect(mail.html).toContain('Strips &lt;b&gt;and&lt;/b&gt; more');
+    expect(mail.html).not.toContain('<b>and</b>');
+
+    const profile = `${serviceEnv().appUrl}/profile`;
+    expect(mail.text.trimEnd().endsWith(profile)).toBe(true);
+    expect(oneLine(mail.text)).toContain('“A new bundle matches one of my wishes” is ticked under “E-mails you receive” on your profile');
+    expect(mail.html).toContain(`<a href="${profile}"`);
+    expect(mail.html.indexOf(`href="${profile}"`)).toBeGreaterThan(mail.html.indexOf('Have a look'));
+  });
+
+  it('puts the profile link under the librarian’s e-mails too', async () => {
+    const id = await listAndSubmit(sellerClient, { title: 'Returned for a footer' });
+    await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'return', notes: 'Please add a photo of the <selvage>.' });
+    const mail = await waitForMail({ to: seller.email, subjectIncludes: 'A note from the librarian about Returned for a footer' });
+    expect(mail.text.trimEnd().endsWith(`${serviceEnv().appUrl}/profile`)).toBe(true);
+    expect(oneLine(mail.text)).toContain('“The librarian approved or returned my listing” is ticked');
+    expect(mail.html).toContain('&lt;selvage&gt;');
+  });
+});
+
+// Last in the file: the clock moves months ahead and every bundle still on the shelf comes off.
+describe('a bundle’s time on the shelf ending', () => {
+  const DAY = 24 * 60 * 60 * 1000;
+  const setClock = (at: number) => api.clock.advance(at - api.clock.now().getTime());
+
+  it('warns the seller once a week before, then says how long it was there and that relisting means review again', async () => {
+    const owner = await createMember({ name: 'Bryony Askew' });
+    // Neither e-mail is one a member can turn off: no choice on the profile is about the shelf.
+    await owner.update({ emailPreferences: { review: false, wishes: false } });
+    const ownerClient = await signedInClient(api.runtime.app, owner);
+    const id = await listAndSubmit(ownerClient, { title: 'Shelf-worn fat quarters' });
+    await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'approve' });
+    const shelved = (await Bundle.findByPk(id))!;
+    const expiresAt = shelved.expiresAt!.getTime();
+    const onShelfAt = shelved.onShelfAt!.getTime();
+    const warnedFor = async () => {
+      const [rows] = await api.runtime.ctx.sequelize.query(`SELECT expiry_warned_for FROM bundles WHERE id = $1`, { bind: [id] });
+      return (rows as { expiry_warned_for: Date | null }[])[0]!.expiry_warned_for;
+    };
+
+    try {
+      // A day before the warning is due: nothing yet.
+      setClock(expiresAt - (SHELF_WARNING_DAYS + 1) * DAY);
+      await warnBundlesLeavingShelf(api.runtime.ctx);
+      expect(await warnedFor()).toBeNull();
+
+      // Within the week: two processes running the job at once warn once between them.
+      setClock(expiresAt - (SHELF_WARNING_DAYS - 1) * DAY);
+      await Promise.all([warnBundlesLeavingShelf(api.runtime.ctx), warnBundlesLeavingShelf(api.runtime.ctx)]);
+      await warnBundlesLeavingShelf(api.runtime.ctx);
+      expect((await warnedFor())!.getTime()).toBe(expiresAt);
+      expect(await queuedMail(owner.email, 'Coming off the shelf soon')).toEqual([{ subject: 'Coming off the shelf soon: Shelf-worn fat quarters', kind: null }]);
+      const daysSoFar = Math.floor((expiresAt - (SHELF_WARNING_DAYS - 1) * DAY - onShelfAt) / DAY);
+      const warning = oneLine((await waitForMail({ to: owner.email, subjectIncludes: 'Coming off the shelf soon' })).text);
+      expect(warning).toContain(`has been on the guild's shelf for ${daysSoFar} days`);
+      expect(warning).toContain('goes through the librarian’s review again');
+      expect(warning).toContain(`${serviceEnv().appUrl}/bundles/${id}`);
+      expect(warning).not.toContain('E-mails you receive');
+
+      // An hour past its end: off the shelf, and the e-mail gives the time it was there, not the guild's setting.
+      setClock(expiresAt + 60 * 60 * 1000);
+      await expireBundles(api.runtime.ctx);
+      expect((await Bundle.findByPk(id))!.state).toBe('expired');
+      const daysOn = Math.floor((expiresAt + 60 * 60 * 1000 - onShelfAt) / DAY);
+      expect(await queuedMail(owner.email, 'Off the shelf')).toEqual([{ subject: `Off the shelf after ${daysOn} days: Shelf-worn fat quarters`, kind: null }]);
+      const expired = oneLine((await waitForMail({ to: owner.email, subjectIncludes: 'Off the shelf after' })).text);
+      expect(expired).toContain(`was on the guild's shelf for ${daysOn} days, since`);
+      expect(expired).toContain('A relisted bundle goes through the librarian’s review again before it goes back on the shelf');
+      expect(expired).toContain(`${serviceEnv().appUrl}/bundles/${id}`);
+
+      // Relisted and approved again: a new time on the shelf, so a new warning when it nears its new end.
+      expect((await ownerClient.send('post', `/api/bundles/${id}/submit`)).status).toBe(200);
+      await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'approve' });
+      const nextEnd = (await Bundle.findByPk(id))!.expiresAt!.getTime();
+      expect(nextEnd).toBeGreaterThan(expiresAt);
+      setClock(nextEnd - (SHELF_WARNING_DAYS - 1) * DAY);
+      await warnBundlesLeavingShelf(api.runtime.ctx);
+      expect((await warnedFor())!.getTime()).toBe(nextEnd);
+      expect(await queuedMail(owner.email, 'Coming off the shelf soon')).toHaveLength(2);
+    } finally {
+      api.clock.reset();
+    }
   });
 });

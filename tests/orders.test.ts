@@ -1,12 +1,12 @@
 import Stripe from 'stripe';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { Bundle, LedgerEntry, Meeting, Order, type Member } from '../apps/api/src/db/models/index.ts';
-import { cancelUnpaid, releaseOverdueHolds } from '../apps/api/src/modules/orders/orders.service.ts';
+import { cancelUnpaid, releaseOverdueHolds, remindUnposted, runLateRefund } from '../apps/api/src/modules/orders/orders.service.ts';
 import { LATE_REFUND_QUEUE } from '../apps/api/src/jobs/queue.ts';
 import { processingCostEntries } from '@scrap-relay/shared';
 import { appWith, Client, countRows, createMember, listenOnApiPort, signedInClient, startTestApi, type TestApi } from './support/api.ts';
 import { completeListing, listAndSubmit } from './support/bundles.ts';
-import { clearMail, waitForMail } from './support/services.ts';
+import { clearMail, listMail, waitForMail } from './support/services.ts';
 import { payCheckout, refundedAmount, resendEvent, sessionIdFromUrl, stripeEvents, stripeSession } from './support/stripe-fake.ts';
 
 let api: TestApi;
@@ -299,6 +299,73 @@ describe('when payment does not happen', () => {
     expect((await Order.findByPk(placed.body.order.id))!.state).toBe('cancelled');
     expect(await Bundle.findByPk(bundleId)).toMatchObject({ state: 'on_shelf', quantityAvailable: 1 });
     expect((await stripeSession(sessionIdFromUrl(placed.body.checkoutUrl))).status).toBe('expired');
+    // The buyer is told; the seller never heard of the order, so is not.
+    const mail = await waitForMail({ to: buyer.email, subjectIncludes: 'was cancelled' });
+    expect(mail.text).toContain('Nothing was charged.');
+    expect((await listMail()).some((m) => m.to.includes(seller.email.toLowerCase()) && m.subject.includes('was cancelled'))).toBe(false);
+  });
+
+  it('confirms an order paid in time whose payment event never arrived, when the hold runs out, instead of cancelling it', async () => {
+    const bundleId = await shelved({ priceMinor: 2400 });
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    const paid = await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl), undefined, { withholdEvents: true });
+    expect(paid.body).toMatchObject({ status: 'complete', payment_status: 'paid' });
+    expect((await Order.findByPk(placed.body.order.id))!.state).toBe('awaiting_payment');
+
+    api.clock.advance(31 * 60_000);
+    try {
+      await releaseOverdueHolds(api.runtime.ctx);
+    } finally {
+      api.clock.reset();
+    }
+    const order = (await Order.findByPk(placed.body.order.id))!;
+    expect(order).toMatchObject({ state: 'confirmed', stripePaymentIntentId: expect.stringMatching(/^pi_/) });
+    expect(await Bundle.findByPk(bundleId)).toMatchObject({ state: 'rehomed', quantityAvailable: 0 });
+    expect(await ledgerTotal(`WHERE order_id = '${order.id}' AND account = 'seller:${seller.id}'`)).toBe(order.sellerCreditMinor);
+    const sold = await waitForMail({ to: seller.email, subjectIncludes: `Rehomed: order ${order.reference}` });
+    expect(sold.text).toContain(`Your share is $${(order.sellerCreditMinor / 100).toFixed(2)}, postage included`);
+    expect(sold.text).toContain(`Write ${order.reference} on the parcel`);
+  });
+
+  it('keeps a hold it cannot check with the payment service, and releases it on a later run', async () => {
+    const bundleId = await shelved();
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    const unreachable = new Stripe(api.config.stripe.secretKey, { host: '127.0.0.1', port: 9, protocol: 'http', maxNetworkRetries: 0, timeout: 2000 });
+    api.clock.advance(31 * 60_000);
+    try {
+      expect(await releaseOverdueHolds({ ...api.runtime.ctx, stripe: unreachable })).toBe(0);
+      expect((await Order.findByPk(placed.body.order.id))!.state).toBe('awaiting_payment');
+      expect(await releaseOverdueHolds(api.runtime.ctx)).toBeGreaterThanOrEqual(1);
+    } finally {
+      api.clock.reset();
+    }
+    expect((await Order.findByPk(placed.body.order.id))!.state).toBe('cancelled');
+  });
+});
+
+describe('reminding the seller to post', () => {
+  it('reminds the seller of a paid order not marked posted after five days, once, however many runs there are', async () => {
+    const waiting = await paidByPost(await shelved({ title: 'Waiting to be posted' }));
+    const posted = await paidByPost(await shelved({ title: 'Posted in time' }));
+    expect((await sellerClient.send('post', `/api/orders/${posted.id}/posted`, {})).status).toBe(200);
+
+    api.clock.advance(4 * 24 * 60 * 60_000);
+    try {
+      await remindUnposted(api.runtime.ctx);
+      expect((await Order.findByPk(waiting.id))!.postReminderSentAt).toBeNull();
+      api.clock.advance(24 * 60 * 60_000 + 60_000);
+      await Promise.all([remindUnposted(api.runtime.ctx), remindUnposted(api.runtime.ctx)]);
+    } finally {
+      api.clock.reset();
+    }
+    expect((await Order.findByPk(waiting.id))!.postReminderSentAt).not.toBeNull();
+    expect((await Order.findByPk(posted.id))!.postReminderSentAt).toBeNull();
+    const reminder = await waitForMail({ to: seller.email, subjectIncludes: `order ${waiting.reference} is waiting to be posted` });
+    expect(reminder.text).toContain('Pearl Dunmore paid for order');
+    expect(reminder.text).toContain('cancel the order: the buyer is refunded');
+    const subjects = (await listMail()).map((m) => m.subject);
+    expect(subjects.filter((subject) => subject.includes(waiting.reference) && subject.startsWith('Reminder'))).toHaveLength(1);
+    expect(subjects.some((subject) => subject.includes(posted.reference) && subject.startsWith('Reminder'))).toBe(false);
   });
 });
 
@@ -346,6 +413,50 @@ describe('cancelling, refunds and the treasurer', () => {
     expect(entries).toEqual(expect.arrayContaining(processingCostEntries(order.processingCostMinor)));
     expect(entries).toHaveLength(2);
     expect(await Bundle.findByPk(bundleId)).toMatchObject({ state: 'on_shelf', quantityAvailable: 1 });
+    const told = await waitForMail({ to: buyer.email, subjectIncludes: 'is being refunded' });
+    expect(told.text).toContain('came in after the order had already been cancelled');
+  });
+
+  it('tells the treasurers when the last try to refund a late payment fails, and refunds it once the service answers', async () => {
+    const bundleId = await shelved();
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    const orderId: string = placed.body.order.id;
+    const sessionId = sessionIdFromUrl(placed.body.checkoutUrl);
+    expect(await cancelUnpaid(api.runtime.ctx, orderId, 'The hold ran out.')).toBe(true);
+    await payCheckout(sessionId, undefined, { withholdEvents: true });
+    await Order.update({ stripePaymentIntentId: (await stripeSession(sessionId)).payment_intent }, { where: { id: orderId } });
+
+    const unreachable = new Stripe(api.config.stripe.secretKey, { host: '127.0.0.1', port: 9, protocol: 'http', maxNetworkRetries: 0, timeout: 2000 });
+    const job = { data: { orderId }, retryCount: 3, retryLimit: 12 };
+    await expect(runLateRefund({ ...api.runtime.ctx, stripe: unreachable }, job)).rejects.toThrow();
+    await expect(runLateRefund({ ...api.runtime.ctx, stripe: unreachable }, { ...job, retryCount: 12 })).rejects.toThrow();
+    const told = await waitForMail({ to: treasurer.email, subjectIncludes: 'needs you' });
+    expect(told.text).toContain('refund it in the card payment service’s own dashboard');
+    expect((await listMail()).filter((m) => m.subject.includes('needs you') && m.to.includes(treasurer.email.toLowerCase()))).toHaveLength(1);
+
+    await runLateRefund(api.runtime.ctx, { ...job, retryCount: 0 });
+    const order = (await Order.findByPk(orderId))!;
+    expect(order.refundedAt).not.toBeNull();
+    expect(await refundedAmount(order.stripePaymentIntentId!)).toBe(order.chargeMinor);
+  });
+
+  it('takes a charge already refunded in full elsewhere as refunded, and answers 409 with the reason for any other refusal', async () => {
+    const bundleId = await shelved();
+    const order = await paidByPost(bundleId);
+    // Refunded on the payment service's own side (as from its dashboard), under another key.
+    await api.runtime.ctx.stripe.refunds.create({ payment_intent: order.stripePaymentIntentId! });
+    const cancelled = await sellerClient.send('post', `/api/orders/${order.id}/cancel`, { reason: 'Refunded by hand' });
+    expect(cancelled.status).toBe(200);
+    expect(await refundedAmount(order.stripePaymentIntentId!)).toBe(order.chargeMinor);
+    expect(await ledgerTotal(`WHERE order_id = '${order.id}' AND account = 'seller:${seller.id}'`)).toBe(0);
+
+    const other = await paidByPost(await shelved());
+    // A partial refund on the service's side: the rest cannot be refunded in full, and the order stays as it was.
+    await api.runtime.ctx.stripe.refunds.create({ payment_intent: other.stripePaymentIntentId!, amount: 100 });
+    const refused = await treasurerClient.send('post', `/api/orders/${other.id}/refund`);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toMatch(/refused the refund/);
+    expect(await Order.findByPk(other.id)).toMatchObject({ state: 'confirmed', refundedAt: null });
   });
 
   it('cancels a paid order before posting: refunded through the stand-in, ledger reversed, bundle back on the shelf', async () => {
@@ -359,7 +470,9 @@ describe('cancelling, refunds and the treasurer', () => {
     // The processor keeps its fee on a refund (from memory; a guild setting to revisit), so only that pair stands.
     expect(await ledgerTotal(`WHERE order_id = '${order.id}' AND kind <> 'processing_cost'`)).toBe(0);
     expect(await ledgerTotal(`WHERE order_id = '${order.id}' AND account = 'seller:${seller.id}'`)).toBe(0);
-    await waitForMail({ to: buyer.email, subjectIncludes: 'was cancelled' });
+    // Each side reads what it means for them.
+    expect((await waitForMail({ to: buyer.email, subjectIncludes: 'was cancelled' })).text).toMatch(/Your payment of \$[\d.]+ is being refunded to your card/);
+    expect((await waitForMail({ to: seller.email, subjectIncludes: 'was cancelled' })).text).toContain('Please do not post it.');
   });
 
   it('cancels or posts an order asked for both at once, never refunding one that was posted', async () => {
@@ -409,6 +522,7 @@ describe('cancelling, refunds and the treasurer', () => {
     const refunded = await treasurerClient.send('post', `/api/orders/${orderId}/refund`);
     expect(refunded.body.order).toMatchObject({ state: 'refunded' });
     await waitForMail({ to: buyer.email, subjectIncludes: 'Refund for order' });
+    expect((await waitForMail({ to: seller.email, subjectIncludes: 'was refunded' })).text).toContain('is taken off what the guild owes you');
     const afterRefund = await treasurerClient.get('/api/orders?as=treasurer&problems=open');
     expect(afterRefund.body.items.map((o: { id: string }) => o.id)).not.toContain(orderId);
 

@@ -1,9 +1,9 @@
 import { Op } from 'sequelize';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { Bundle, DEFAULT_GUILD_SETTINGS, Guild, Meeting, Order, StarterClaim, WaitlistEntry, type Member } from '../apps/api/src/db/models/index.ts';
-import { lapseOffers } from '../apps/api/src/modules/starter/starter.service.ts';
+import { Bundle, DEFAULT_GUILD_SETTINGS, Guild, Meeting, Order, StarterClaim, WaitlistEntry, WaitlistOffer, type Member } from '../apps/api/src/db/models/index.ts';
+import { lapseOffers, offerToNextInLine, placeUnplacedClaims, remindOpenOffers } from '../apps/api/src/modules/starter/starter.service.ts';
 import { sendMeetingReminders } from '../apps/api/src/modules/handovers/handovers.service.ts';
-import { formatWhen } from '../apps/api/src/emails/format.ts';
+import { formatWhen, meetingLabel } from '../apps/api/src/emails/format.ts';
 import { createMember, signedInClient, startTestApi, type Client, type TestApi } from './support/api.ts';
 import { listAndSubmit } from './support/bundles.ts';
 import { clearMail, listMail, waitForMail } from './support/services.ts';
@@ -145,6 +145,12 @@ describe('the waiting list', () => {
     } finally {
       api.clock.reset();
     }
+    // Ben is told that not answering took him off the list, and how to join again.
+    const lapsedMail = await waitForMail({ to: ben.email, subjectIncludes: 'offer has ended' });
+    expect(lapsedMail.text).toContain('Starter bag of batik');
+    expect(lapsedMail.text).toContain('you have left the starter-bundle waiting list');
+    expect(lapsedMail.text).toContain('Join the list again from the starter page');
+    expect(lapsedMail.text).toContain(`${api.config.appUrl}/starter`);
     const toCal = await waitForMail({ to: cal.email, subjectIncludes: 'starter bundle is waiting' });
     const calOffer = toCal.text.match(/\/starter\/offers\/([0-9a-f-]{36})/)![1]!;
     const accepted = await clients[2]!.send('post', `/api/waitlist/offers/${calOffer}/accept`, { meetingId: meeting.id });
@@ -188,6 +194,11 @@ describe('the waiting list', () => {
     expect((await librarianClient.send('delete', `/api/waitlist/${entry.id}`, {})).status).toBe(400);
     expect((await librarianClient.send('delete', `/api/waitlist/${entry.id}`, { reason: 'Moved away from the guild' })).status).toBe(204);
     expect((await WaitlistEntry.findByPk(entry.id))!.removedReason).toBe('Moved away from the guild');
+    const removedMail = await waitForMail({ to: two.email, subjectIncludes: 'no longer on the starter-bundle waiting list' });
+    expect(removedMail.text).toContain('The librarian has taken you off the starter-bundle waiting list');
+    expect(removedMail.text).toContain('Reason: Moved away from the guild');
+    // Leaving of one's own accord needs no e-mail.
+    expect((await listMail()).some((m) => m.to.includes(one.email))).toBe(false);
     expect((await c2.send('delete', `/api/waitlist/${entry.id}`, { reason: 'not allowed' })).status).toBe(404);
   });
 });
@@ -277,5 +288,171 @@ describe('posting a starter bundle where the guild allows it', () => {
     } finally {
       await Guild.update({ settings: DEFAULT_GUILD_SETTINGS }, { where: { id: 1 } });
     }
+  });
+});
+
+/** E-mail jobs queued for one address whose subject contains `subject`, read from the job queue's table. */
+async function queuedMail(to: string, subject: string): Promise<number> {
+  const [rows] = await api.runtime.ctx.sequelize.query(`SELECT count(*)::int AS n FROM pgboss.job WHERE name = 'email-send' AND data->>'to' = $1 AND data->>'subject' LIKE $2`, {
+    bind: [to, `%${subject}%`],
+  });
+  return (rows as { n: number }[])[0]!.n;
+}
+
+/** Takes every starter bundle off the shelf, puts the members on the waiting list in this order, then brings the given bundles back without offering them. */
+async function queueUpWith(bundleIds: string[], members: Member[]) {
+  await Bundle.update({ state: 'withdrawn' }, { where: { offer: 'starter', state: ['on_shelf', 'held'] } });
+  for (const m of members) expect((await (await signedInClient(api.runtime.app, m)).send('post', '/api/waitlist', {})).status).toBe(201);
+  if (bundleIds.length) await Bundle.update({ state: 'on_shelf' }, { where: { id: bundleIds } });
+}
+
+/** The zone the guild's e-mails give times in. */
+const guildZone = async () => (await Guild.findByPk(1))!.settings.timeZone ?? 'UTC';
+
+describe('waiting-list offers under concurrency', () => {
+  it('two bundles offered at the same moment go to the first two people in line, not past the list', async () => {
+    const one = await donated({ title: 'Starter pair, first' });
+    const two = await donated({ title: 'Starter pair, second' });
+    const [ann, bob, cyd] = [await newQuilter('Ann First'), await newQuilter('Bob Second'), await newQuilter('Cyd Third')];
+    await queueUpWith([one, two], [ann, bob, cyd]);
+
+    // The first offer's transaction is still open (it holds Ann's place) when the second one runs and commits.
+    const { sequelize } = api.runtime.ctx;
+    const first = await sequelize.transaction();
+    const second = await sequelize.transaction();
+    try {
+      const toFirst = await offerToNextInLine(api.runtime.ctx, one, first);
+      const toSecond = await offerToNextInLine(api.runtime.ctx, two, second);
+      await second.commit();
+      await first.commit();
+      expect(toFirst).not.toBeNull();
+      expect(toSecond).not.toBeNull();
+    } catch (err) {
+      await Promise.allSettled([first.rollback(), second.rollback()]);
+      throw err;
+    }
+    const offers = await WaitlistOffer.findAll({ where: { bundleId: [one, two], status: 'open' } });
+    const entryOf = async (bundleId: string) => (await WaitlistEntry.findByPk(offers.find((o) => o.bundleId === bundleId)!.entryId))!.memberId;
+    expect(await entryOf(one)).toBe(ann.id);
+    expect(await entryOf(two)).toBe(bob.id);
+    expect((await Bundle.findAll({ where: { id: [one, two] } })).map((b) => b.state)).toEqual(['held', 'held']);
+    expect((await WaitlistEntry.findOne({ where: { memberId: cyd.id } }))!.status).toBe('waiting');
+    expect((await waitForMail({ to: bob.email, subjectIncludes: 'starter bundle is waiting' })).text).toContain('Starter pair, second');
+    for (const offer of offers) await WaitlistOffer.update({ status: 'withdrawn' }, { where: { id: offer.id } });
+  });
+});
+
+describe('telling members about their place on the waiting list', () => {
+  it('sends the offer even to a member who turned starter e-mails off, with the deadline and what not answering means', async () => {
+    const id = await donated({ title: 'Starter bag for a quiet inbox' });
+    const quiet = await newQuilter('Quinn Quiet');
+    await quiet.update({ emailPreferences: { starter: false } });
+    await queueUpWith([], [quiet]);
+    await Bundle.update({ state: 'on_shelf' }, { where: { id } });
+    await api.runtime.ctx.sequelize.transaction((t) => offerToNextInLine(api.runtime.ctx, id, t));
+    const offer = (await WaitlistOffer.findOne({ where: { bundleId: id, status: 'open' } }))!;
+    const mail = await waitForMail({ to: quiet.email, subjectIncludes: 'starter bundle is waiting' });
+    expect(mail.text).toContain(formatWhen(offer.expiresAt, await guildZone()));
+    expect(mail.text).toContain('you leave the waiting list');
+    expect(mail.text).toContain('join the list again');
+    await WaitlistOffer.update({ status: 'withdrawn' }, { where: { id: offer.id } });
+  });
+
+  it('reminds once when half the time to answer has gone, even with two runs at once', async () => {
+    const id = await donated({ title: 'Starter bag to be reminded of' });
+    const slow = await newQuilter('Sol Slow');
+    await queueUpWith([id], [slow]);
+    await api.runtime.ctx.sequelize.transaction((t) => offerToNextInLine(api.runtime.ctx, id, t));
+    const offer = (await WaitlistOffer.findOne({ where: { bundleId: id, status: 'open' } }))!;
+    // Before half the time to answer has gone, nothing goes.
+    await remindOpenOffers(api.runtime.ctx);
+    expect(await queuedMail(slow.email, 'Still held for you')).toBe(0);
+    api.clock.advance((offer.expiresAt.getTime() - offer.offeredAt.getTime()) / 2 + 3600 * 1000);
+    try {
+      await Promise.all([remindOpenOffers(api.runtime.ctx), remindOpenOffers(api.runtime.ctx)]);
+      await remindOpenOffers(api.runtime.ctx);
+    } finally {
+      api.clock.reset();
+    }
+    expect(await queuedMail(slow.email, 'Still held for you')).toBe(1);
+    const [rows] = await api.runtime.ctx.sequelize.query(`SELECT reminder_sent_at FROM waitlist_offers WHERE id = $1`, { bind: [offer.id] });
+    expect((rows as { reminder_sent_at: Date | null }[])[0]!.reminder_sent_at).not.toBeNull();
+    const mail = await waitForMail({ to: slow.email, subjectIncludes: 'Still held for you' });
+    expect(mail.text).toContain('Starter bag to be reminded of');
+    expect(mail.text).toContain(formatWhen(offer.expiresAt, await guildZone()));
+    expect(mail.text).toContain('you leave the waiting list');
+    await WaitlistOffer.update({ status: 'withdrawn' }, { where: { id: offer.id } });
+  });
+
+  it('tells a member taken off the list because they are no longer a new quilter, and offers the bundle to the next', async () => {
+    const id = await donated({ title: 'Starter bag past the window' });
+    const [late, next] = [await newQuilter('Lou Late'), await newQuilter('Nia Next')];
+    await queueUpWith([], [late, next]);
+    // Lou has been with the guild past the newcomer window (guild default 12 months) by the time a bundle is free.
+    await late.update({ joinedAt: new Date('2015-01-01T00:00:00Z') });
+    await Bundle.update({ state: 'on_shelf' }, { where: { id } });
+    await api.runtime.ctx.sequelize.transaction((t) => offerToNextInLine(api.runtime.ctx, id, t));
+    const entry = (await WaitlistEntry.findOne({ where: { memberId: late.id } }))!;
+    expect(entry.status).toBe('removed');
+    expect(entry.removedReason).toContain('first 12 months');
+    const mail = await waitForMail({ to: late.email, subjectIncludes: 'no longer on the starter-bundle waiting list' });
+    expect(mail.text).toContain('You have been taken off the starter-bundle waiting list');
+    expect(mail.text).toContain('first 12 months');
+    await waitForMail({ to: next.email, subjectIncludes: 'starter bundle is waiting' });
+    await WaitlistOffer.update({ status: 'withdrawn' }, { where: { bundleId: id, status: 'open' } });
+  });
+});
+
+describe('a starter claim made while no meeting is set', () => {
+  it('goes to the meeting the librarian sets next, both people are told, and it is on that handover sheet', async () => {
+    const id = await donated({ title: 'Starter bag waiting for a meeting' });
+    const nia = await newQuilter('Nia Nomeeting');
+    const client = await signedInClient(api.runtime.app, nia);
+    // No meeting to come: the guild's coming meetings are set aside for this test and put back after it.
+    const coming = await Meeting.findAll({ where: { startsAt: { [Op.gt]: new Date() } } });
+    await Meeting.update({ startsAt: new Date('2000-01-01T18:00:00Z') }, { where: { id: coming.map((m) => m.id) } });
+    let meetingId = '';
+    try {
+      const claim = await client.send('post', `/api/starter-bundles/${id}/claims`, {});
+      expect(claim.status).toBe(201);
+      expect(claim.body.claim.meetingId).toBeNull();
+      const claimedMail = await waitForMail({ to: nia.email, subjectIncludes: 'Your starter bundle' });
+      expect(claimedMail.text).toContain('No guild meeting is set yet');
+      expect(claimedMail.text).toContain('we will e-mail you the date and place');
+      expect(claimedMail.text).not.toContain('The librarian will tell you');
+
+      const startsAt = new Date(Date.now() + 12 * DAY);
+      const created = await librarianClient.send('post', '/api/meetings', { startsAt: startsAt.toISOString(), place: 'Millbrook Hall, garden room' });
+      expect(created.status).toBe(201);
+      meetingId = created.body.meeting.id;
+      expect((await StarterClaim.findByPk(claim.body.claim.id))!.meetingId).toBe(meetingId);
+      const label = meetingLabel({ startsAt, place: 'Millbrook Hall, garden room' }, await guildZone());
+      const toNia = await waitForMail({ to: nia.email, subjectIncludes: 'Starter bundle handover' });
+      expect(toNia.text).toContain(`Collect your starter bundle "Starter bag waiting for a meeting" at the meeting: ${label}.`);
+      const toDonor = await waitForMail({ to: donor.email, subjectIncludes: 'Starter bundle handover' });
+      expect(toDonor.text).toContain('Please bring it.');
+      expect(toDonor.text).toContain(label);
+      const sheet = await librarianClient.get(`/api/meetings/${meetingId}/handovers`);
+      expect(sheet.body.items.find((h: { id: string }) => h.id === claim.body.claim.id)).toMatchObject({ kind: 'starter', collector: { name: 'Nia Nomeeting' }, giver: { name: 'Dora Pike' } });
+      expect((await client.get('/api/starter-bundles')).body.status.claims[0].meeting).toMatchObject({ id: meetingId, place: 'Millbrook Hall, garden room' });
+    } finally {
+      for (const m of coming) await Meeting.update({ startsAt: m.startsAt }, { where: { id: m.id } });
+    }
+  });
+
+  it('the scheduled run places a claim that missed the meeting being created, once, however many processes run it', async () => {
+    const id = await donated({ title: 'Starter bag that slipped through' });
+    const sid = await newQuilter('Sid Slipped');
+    const claim = await (await signedInClient(api.runtime.app, sid)).send('post', `/api/starter-bundles/${id}/claims`, {});
+    expect(claim.status).toBe(201);
+    // As if the claim committed just as a meeting was being created, and saw none.
+    await StarterClaim.update({ meetingId: null }, { where: { id: claim.body.claim.id } });
+    const placed = await Promise.all([placeUnplacedClaims(api.runtime.ctx), placeUnplacedClaims(api.runtime.ctx)]);
+    expect(placed[0]! + placed[1]!).toBeLessThanOrEqual(1);
+    const next = (await Meeting.findOne({ where: { startsAt: { [Op.gt]: new Date() } }, order: [['startsAt', 'ASC']] }))!;
+    expect((await StarterClaim.findByPk(claim.body.claim.id))!.meetingId).toBe(next.id);
+    expect(await placeUnplacedClaims(api.runtime.ctx)).toBe(0);
+    expect(await queuedMail(sid.email, 'Starter bundle handover')).toBe(1);
+    expect((await waitForMail({ to: sid.email, subjectIncludes: 'Starter bundle handover' })).text).toContain(next.place);
   });
 });

@@ -12,8 +12,8 @@ async function control<T>(method: 'GET' | 'POST', path: string, body?: unknown):
 
 export const sessionIdFromUrl = (url: string) => url.split('/').pop()!;
 
-export const payCheckout = (sessionId: string, card = '4242 4242 4242 4242') =>
-  control<{ status: string; payment_status: string; error?: { code: string } }>('POST', `/checkout/sessions/${sessionId}/pay`, { card });
+export const payCheckout = (sessionId: string, card = '4242 4242 4242 4242', options: { withholdEvents?: boolean } = {}) =>
+  control<{ status: string; payment_status: string; error?: { code: string } }>('POST', `/checkout/sessions/${sessionId}/pay`, { card, ...options });
 
 export interface FakeEvent {
   id: string;

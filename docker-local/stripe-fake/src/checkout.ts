@@ -233,6 +233,8 @@ export interface CardInput {
   number: string;
   expMonth: number;
   expYear: number;
+  /** Tests only (the control endpoint): log the payment's events without sending them, as if their delivery had failed for good. */
+  withholdEvents?: boolean;
 }
 
 export type PaymentOutcome =
@@ -317,8 +319,9 @@ export async function paySession(ctx: FakeContext, id: string, card: CardInput):
   session.url = null;
 
   const events = eventContext(record, SYSTEM_REQUEST);
-  await ctx.webhooks.emit('checkout.session.completed', session, events);
-  void ctx.webhooks.emit('payment_intent.succeeded', paymentIntent, events);
+  const withhold = card.withholdEvents === true;
+  await ctx.webhooks.emit('checkout.session.completed', session, events, { withhold });
+  void ctx.webhooks.emit('payment_intent.succeeded', paymentIntent, events, { withhold });
   return { kind: 'paid', record };
 }
 

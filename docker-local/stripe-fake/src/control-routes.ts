@@ -58,13 +58,13 @@ export function controlRouter(ctx: FakeContext, onReset: () => void): Router {
 
   router.post('/checkout/sessions/:id/pay', async (req, res) => {
     const body: unknown = req.body;
-    const card = typeof body === 'object' && body !== null ? (body as { card?: unknown }).card : undefined;
+    const { card, withholdEvents } = typeof body === 'object' && body !== null ? (body as { card?: unknown; withholdEvents?: unknown }) : {};
     if (typeof card !== 'string' || card.trim() === '') {
       throw invalidRequest('Send a JSON body { "card": "4242 4242 4242 4242" }.', 'parameter_missing', 'card');
     }
     // The expiry only decorates the charge here; a date safely in the future.
     const expYear = new Date(ctx.clock() * 1000).getUTCFullYear() + 3;
-    const outcome = await paySession(ctx, findSession(ctx, req.params.id, 'id').session.id, { number: card, expMonth: 12, expYear });
+    const outcome = await paySession(ctx, findSession(ctx, req.params.id, 'id').session.id, { number: card, expMonth: 12, expYear, withholdEvents: withholdEvents === true });
     switch (outcome.kind) {
       case 'paid':
         res.json(outcome.record.session);

@@ -170,7 +170,8 @@ export interface DeliveryAttempt {
   resend: boolean;
 }
 
-export type DeliveryState = 'pending' | 'delivered' | 'failed' | 'no_endpoint';
+/** `withheld`: a test asked for the event to be logged but not sent, as if every delivery had been lost. */
+export type DeliveryState = 'pending' | 'delivered' | 'failed' | 'no_endpoint' | 'withheld';
 
 export interface EventLogEntry {
   event: StripeEvent;

@@ -47,7 +47,7 @@ export class WebhookDispatcher {
    * promise settles after that attempt (bounded by timeoutMs); retries run
    * later in the background, so a payer's redirect is never held up by them.
    */
-  async emit(type: EventType, object: StripeObject, context: RequestContext): Promise<EventLogEntry> {
+  async emit(type: EventType, object: StripeObject, context: RequestContext, options: { withhold?: boolean } = {}): Promise<EventLogEntry> {
     const event: StripeEvent = {
       id: newId('evt'),
       object: 'event',
@@ -60,9 +60,9 @@ export class WebhookDispatcher {
       request: { id: context.requestId, idempotency_key: context.idempotencyKey },
       type,
     };
-    const entry: EventLogEntry = { event, state: this.options.url ? 'pending' : 'no_endpoint', attempts: [] };
+    const entry: EventLogEntry = { event, state: options.withhold ? 'withheld' : this.options.url ? 'pending' : 'no_endpoint', attempts: [] };
     this.store.events.set(event.id, entry);
-    if (this.options.url && !this.closed) await this.attempt(entry, false);
+    if (this.options.url && !this.closed && !options.withhold) await this.attempt(entry, false);
     return entry;
   }
 

@@ -14,17 +14,27 @@ const button = (link: string, label: string) =>
   html`<p><a href="${link}" style="display:inline-block;padding:12px 20px;background:#23234a;color:#ffffff;border-radius:6px;text-decoration:none">${label}</a></p>`;
 const addressLines = (a: PostalAddress) => [a.name, a.line1, a.line2, `${a.town} ${a.region}`.trim(), a.postalCode, a.country].filter(Boolean);
 
-export function orderSoldToSeller(p: Base & { buyerName: string; address: PostalAddress | null; meeting: string | null; amount: string }): RenderedEmail {
+/**
+ * `paid` is what the buyer paid (null for a gift); `share` what the seller is owed from it, the price less the
+ * guild's fee plus the postage, which the treasurer pays out (null when nothing is owed).
+ */
+export function orderSoldToSeller(
+  p: Base & { buyerName: string; address: PostalAddress | null; meeting: string | null; paid: string | null; share: string | null; postageIncluded: boolean },
+): RenderedEmail {
   const where = p.address
     ? `Please post it to:\n${addressLines(p.address).join('\n')}`
     : `Please bring it to the meeting: ${p.meeting ?? ''}`;
+  const money = p.paid
+    ? `${p.buyerName} paid ${p.paid}.${p.share ? ` Your share is ${p.share}${p.postageIncluded ? ', postage included' : ''}; the guild's treasurer pays it out.` : ''}`
+    : 'It is a gift: nothing was paid.';
+  const label = `Write ${p.reference} on the parcel or bag, so it can be matched to the order.`;
   return layout({
     guildName: p.guildName,
     subject: `Rehomed: order ${p.reference} from ${p.buyerName}`,
-    text: `Hello ${p.name},\n\n${p.buyerName} took:\n${p.titles.map((t) => `- ${t}`).join('\n')}\n\nPaid: ${p.amount}.\n\n${where}\n\nPacking slip and order: ${p.link}\n\nKeep the address to yourself and use it only for this parcel.`,
-    bodyHtml: html`<p>Hello ${p.name},</p><p><strong>${p.buyerName}</strong> took:</p>${list(p.titles)}<p>Paid: ${p.amount}.</p>
+    text: `Hello ${p.name},\n\n${p.buyerName} took:\n${p.titles.map((t) => `- ${t}`).join('\n')}\n\n${money}\n\n${where}\n\n${label}\n\nPacking slip and order: ${p.link}\n\nKeep the address to yourself and use it only for this parcel.`,
+    bodyHtml: html`<p>Hello ${p.name},</p><p><strong>${p.buyerName}</strong> took:</p>${list(p.titles)}<p>${money}</p>
 ${p.address ? html`<p>Please post it to:</p><p style="white-space:pre-line;padding:12px 16px;background:#f6f1e7">${addressLines(p.address).join('\n')}</p>` : html`<p>Please bring it to the meeting: <strong>${p.meeting ?? ''}</strong></p>`}
-${button(p.link, 'Open the order and packing slip')}<p style="font-size:15px">Keep the address to yourself and use it only for this parcel.</p>`,
+<p>${label}</p>${button(p.link, 'Open the order and packing slip')}<p style="font-size:15px">Keep the address to yourself and use it only for this parcel.</p>`,
   });
 }
 
@@ -38,30 +48,54 @@ export function orderConfirmedToBuyer(p: Base & { amount: string; meeting: strin
   });
 }
 
-export function orderPostedToBuyer(p: Base & { trackingNumber: string | null }): RenderedEmail {
+export function orderPostedToBuyer(p: Base & { trackingNumber: string | null; choicesLink: string }): RenderedEmail {
   return layout({
     guildName: p.guildName,
+    choice: { kind: 'posting', link: p.choicesLink },
     subject: `Order ${p.reference} is in the post`,
     text: `Hello ${p.name},\n\nThe seller posted your order ${p.reference}.${p.trackingNumber ? ` Tracking number: ${p.trackingNumber}.` : ''}\nWhen it arrives, mark it received: ${p.link}`,
     bodyHtml: html`<p>Hello ${p.name},</p><p>The seller posted your order <strong>${p.reference}</strong>.${p.trackingNumber ? html` Tracking number: <strong>${p.trackingNumber}</strong>.` : ''}</p><p>When it arrives, please mark it received.</p>${button(p.link, 'Mark it received')}`,
   });
 }
 
-export function orderReceivedToSeller(p: Base): RenderedEmail {
+/** `afterDays`: nobody marked it, and it was taken as received that many days after posting. */
+export function orderReceivedToSeller(p: Base & { afterDays: number | null; choicesLink: string }): RenderedEmail {
+  const how = p.afterDays
+    ? `Order ${p.reference} was posted ${p.afterDays} days ago and the buyer has not reported a problem, so it now counts as received.`
+    : `The buyer marked order ${p.reference} as received.`;
   return layout({
     guildName: p.guildName,
+    choice: { kind: 'posting', link: p.choicesLink },
     subject: `Order ${p.reference} arrived`,
-    text: `Hello ${p.name},\n\nThe buyer marked order ${p.reference} as received. Thank you for passing your scraps on.\n${p.link}`,
-    bodyHtml: html`<p>Hello ${p.name},</p><p>The buyer marked order <strong>${p.reference}</strong> as received. Thank you for passing your scraps on.</p>${button(p.link, 'See the order')}`,
+    text: `Hello ${p.name},\n\n${how} Thank you for passing your scraps on.\n${p.link}`,
+    bodyHtml: html`<p>Hello ${p.name},</p><p>${how} Thank you for passing your scraps on.</p>${button(p.link, 'See the order')}`,
   });
 }
 
-export function orderCancelled(p: Base & { refunded: string | null; reason: string | null }): RenderedEmail {
+export function orderTakenAsReceivedToBuyer(p: Base & { afterDays: number }): RenderedEmail {
+  const what = `Order ${p.reference} was posted ${p.afterDays} days ago, so it now counts as received.`;
+  const ask = 'If it has not arrived, or something is wrong with it, report a problem on the order and the guild’s treasurer will look into it.';
+  return layout({
+    guildName: p.guildName,
+    subject: `Order ${p.reference} now counts as received`,
+    text: `Hello ${p.name},\n\n${what}\n\n${ask}\n${p.link}`,
+    bodyHtml: html`<p>Hello ${p.name},</p><p>${what}</p><p>${ask}</p>${button(p.link, 'See the order')}`,
+  });
+}
+
+/** Each side is told what the cancellation means for them: the buyer's money, the seller's bundles. */
+export function orderCancelled(p: Base & { side: 'buyer' | 'seller'; refunded: string | null; reason: string | null }): RenderedEmail {
+  const after =
+    p.side === 'buyer'
+      ? p.refunded
+        ? `Your payment of ${p.refunded} is being refunded to your card; card refunds can take a few days to show.`
+        : 'Nothing was charged.'
+      : `${p.refunded ? `The buyer's payment of ${p.refunded} is being refunded, so nothing is owed to you for it. ` : ''}Please do not post it. The bundles are back on the shelf, unless you had withdrawn them.`;
   return layout({
     guildName: p.guildName,
     subject: `Order ${p.reference} was cancelled`,
-    text: `Hello ${p.name},\n\nOrder ${p.reference} was cancelled.${p.reason ? ` Reason: ${p.reason}` : ''}${p.refunded ? `\nThe payment of ${p.refunded} is being refunded to the card.` : ''}\n${p.link}`,
-    bodyHtml: html`<p>Hello ${p.name},</p><p>Order <strong>${p.reference}</strong> was cancelled.${p.reason ? html` Reason: ${p.reason}` : ''}</p>${p.refunded ? html`<p>The payment of ${p.refunded} is being refunded to the card.</p>` : ''}${button(p.link, 'See the order')}`,
+    text: `Hello ${p.name},\n\nOrder ${p.reference} was cancelled:\n${p.titles.map((t) => `- ${t}`).join('\n')}\n${p.reason ? `\nReason: ${p.reason}\n` : ''}\n${after}\n${p.link}`,
+    bodyHtml: html`<p>Hello ${p.name},</p><p>Order <strong>${p.reference}</strong> was cancelled:</p>${list(p.titles)}${p.reason ? html`<p>Reason: ${p.reason}</p>` : ''}<p>${after}</p>${button(p.link, 'See the order')}`,
   });
 }
 
@@ -74,6 +108,36 @@ export function orderRefunded(p: Base & { refunded: string }): RenderedEmail {
   });
 }
 
+/**
+ * `share`: this order's amount the guild owed the seller, now taken back (null for a gift); `owing`: what the
+ * seller owes the guild after it, when earlier payouts had already paid it out (null when nothing is owed).
+ */
+export function orderRefundedToSeller(p: Base & { refunded: string; share: string | null; owing: string | null }): RenderedEmail {
+  const money = [
+    p.share ? `Your share of ${p.share} for it is taken off what the guild owes you.` : '',
+    p.owing ? `It had already been paid out to you, so you now owe the guild ${p.owing}; the treasurer will be in touch.` : '',
+  ]
+    .filter(Boolean)
+    .join(' ');
+  return layout({
+    guildName: p.guildName,
+    subject: `Order ${p.reference} was refunded`,
+    text: `Hello ${p.name},\n\nThe guild's treasurer refunded the buyer's ${p.refunded} for order ${p.reference}.\n${money ? `${money}\n` : ''}${p.link}`,
+    bodyHtml: html`<p>Hello ${p.name},</p><p>The guild’s treasurer refunded the buyer’s <strong>${p.refunded}</strong> for order <strong>${p.reference}</strong>.</p>${money ? html`<p>${money}</p>` : ''}${button(p.link, 'See the order')}`,
+  });
+}
+
+/** A payment that arrived after its order had been cancelled is refunded in full. */
+export function latePaymentRefunding(p: Base & { paid: string }): RenderedEmail {
+  const what = `Your payment of ${p.paid} for order ${p.reference} came in after the order had already been cancelled (the bundles were held only for a limited time). It is being refunded to your card in full; card refunds can take a few days to show.`;
+  return layout({
+    guildName: p.guildName,
+    subject: `Your payment for order ${p.reference} is being refunded`,
+    text: `Hello ${p.name},\n\n${what}\n${p.link}`,
+    bodyHtml: html`<p>Hello ${p.name},</p><p>${what}</p>${button(p.link, 'See the order')}`,
+  });
+}
+
 export function problemReported(p: Base & { message: string }): RenderedEmail {
   return layout({
     guildName: p.guildName,
@@ -81,5 +145,29 @@ export function problemReported(p: Base & { message: string }): RenderedEmail {
     text: `Hello ${p.name},\n\nThe buyer of order ${p.reference} reported a problem:\n\n${p.message}\n\nThe order, and a refund if one is due: ${p.link}`,
     bodyHtml: html`<p>Hello ${p.name},</p><p>The buyer of order <strong>${p.reference}</strong> reported a problem:</p>
 <blockquote style="margin:0 0 16px;padding:12px 16px;border-left:4px solid #8a2b2b;background:#f6f1e7;white-space:pre-wrap">${p.message}</blockquote>${button(p.link, 'Open the order')}`,
+  });
+}
+
+/** To treasurers: the automatic refund of a late payment failed on every try. */
+export function lateRefundFailed(p: Base & { paid: string }): RenderedEmail {
+  const what = `A payment of ${p.paid} for order ${p.reference} came in after the order had been cancelled. Scrap Relay tried to refund it for several hours, and the card payment service refused or did not answer every time, so the buyer has not been refunded yet.`;
+  const ask = 'Please refund it in the card payment service’s own dashboard, and let the buyer know.';
+  return layout({
+    guildName: p.guildName,
+    subject: `A refund for order ${p.reference} needs you`,
+    text: `Hello ${p.name},\n\n${what}\n\n${ask}\n${p.link}`,
+    bodyHtml: html`<p>Hello ${p.name},</p><p>${what}</p><p>${ask}</p>${button(p.link, 'Open the order')}`,
+  });
+}
+
+export function postReminderToSeller(p: Base & { buyerName: string; days: number }): RenderedEmail {
+  const what = `${p.buyerName} paid for order ${p.reference} ${p.days} days ago, and it is not marked posted yet.`;
+  const ask =
+    'If it is in the post, mark it posted so the buyer knows. If you cannot send it after all, cancel the order: the buyer is refunded and the bundles go back on the shelf.';
+  return layout({
+    guildName: p.guildName,
+    subject: `Reminder: order ${p.reference} is waiting to be posted`,
+    text: `Hello ${p.name},\n\n${what}\n${p.titles.map((t) => `- ${t}`).join('\n')}\n\n${ask}\n${p.link}`,
+    bodyHtml: html`<p>Hello ${p.name},</p><p>${what}</p>${list(p.titles)}<p>${ask}</p>${button(p.link, 'Open the order and packing slip')}`,
   });
 }

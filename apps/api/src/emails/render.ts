@@ -1,3 +1,5 @@
+import { EMAIL_KIND_LABELS, type OptionalEmailKind } from '@scrap-relay/shared';
+
 /** Escapes member-written text for HTML e-mail bodies. */
 export function escapeHtml(value: unknown): string {
   return String(value)
@@ -35,18 +37,35 @@ export interface RenderedEmail {
   html: string;
 }
 
-/** Wraps a message in the plain, readable layout every Scrap Relay e-mail shares. */
-export function layout(opts: { guildName: string; subject: string; bodyHtml: SafeHtml; text: string }): RenderedEmail {
+/** The web app's profile page (`paths.app.profile` in apps/web/src/config/paths.ts), where members choose which e-mails they get. */
+export const emailChoicesUrl = (appUrl: string) => `${appUrl}/profile`;
+
+/** For an e-mail a member may turn off: which kind it is, and the profile page where it is turned off. */
+export interface EmailChoice {
+  kind: OptionalEmailKind;
+  link: string;
+}
+
+/**
+ * Wraps a message in the plain, readable layout every Scrap Relay e-mail shares. An e-mail a member may turn off
+ * ends with the choice that sends it and a link to the profile page where they change it.
+ */
+export function layout(opts: { guildName: string; subject: string; bodyHtml: SafeHtml; text: string; choice?: EmailChoice }): RenderedEmail {
+  const choice = opts.choice ? { label: EMAIL_KIND_LABELS[opts.choice.kind], link: opts.choice.link } : null;
   const body = html`<!doctype html>
 <html lang="en"><body style="margin:0;padding:24px;background:#f6f1e7;font-family:'Source Sans 3',Arial,sans-serif;font-size:17px;line-height:1.5;color:#23234a">
 <div style="max-width:560px;margin:0 auto;background:#ffffff;border-radius:8px;padding:24px">
 <p style="margin:0 0 16px;font-weight:700;color:#8a2b2b">Scrap Relay · ${opts.guildName}</p>
 ${opts.bodyHtml}
 <p style="margin:24px 0 0;font-size:14px;color:#55557a">You get this because you are a member of ${opts.guildName} on Scrap Relay.</p>
+${choice ? html`<p style="margin:8px 0 0;font-size:14px;color:#55557a">This one comes because “${choice.label}” is ticked under “E-mails you receive” on your profile. To stop e-mails like it, untick that box: <a href="${choice.link}" style="color:#23234a">change my e-mail choices</a></p>` : ''}
 </div></body></html>`;
+  const footer = choice
+    ? `\nThis one comes because “${choice.label}” is ticked under “E-mails you receive” on your profile. To stop e-mails like it, untick that box:\n${choice.link}`
+    : '';
   return {
     subject: opts.subject,
-    text: `${opts.text}\n\n— Scrap Relay · ${opts.guildName}\n`,
+    text: `${opts.text}\n\n— Scrap Relay · ${opts.guildName}${footer}\n`,
     html: body.value,
   };
 }

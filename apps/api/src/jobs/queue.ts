@@ -9,8 +9,9 @@ export const EMAIL_QUEUE = 'email-send';
 export const LATE_REFUND_QUEUE = 'payments-refund-late';
 
 /**
- * Retries back off from 5 s up to about 40 minutes in all: a mail server or card service that is down
- * delays the mail or the refund, never loses it.
+ * Twelve retries, each waiting twice as long as the one before (pg-boss 10: 5–10 s, then 10–20 s, … 2.8–5.7 h),
+ * about 6 to 11 hours in all: a mail server or card service that is down delays the mail or the refund, never
+ * loses it.
  */
 const RETRY = { retryLimit: 12, retryDelay: 5, retryBackoff: true } as const;
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
+  allowsFulfilment,
   BUNDLE_STATES,
   BUNDLE_TRANSITIONS,
   CUT_KINDS,
@@ -76,5 +77,17 @@ describe('order states (design choice)', () => {
       expect(canOrderTransition('cancelled', to)).toBe(false);
       expect(canOrderTransition('refunded', to)).toBe(false);
     }
+  });
+});
+
+describe('how offers change hands (design choice)', () => {
+  it('posts sales, postage-only gifts and starter bundles; meets for meeting gifts and willing sales', () => {
+    expect(allowsFulfilment({ offer: 'sale', meetingHandoverOk: false }, 'post')).toBe(true);
+    expect(allowsFulfilment({ offer: 'sale', meetingHandoverOk: false }, 'meeting')).toBe(false);
+    expect(allowsFulfilment({ offer: 'sale', meetingHandoverOk: true }, 'meeting')).toBe(true);
+    expect(allowsFulfilment({ offer: 'postage_only', meetingHandoverOk: false }, 'meeting')).toBe(false);
+    expect(allowsFulfilment({ offer: 'meeting', meetingHandoverOk: false }, 'post')).toBe(false);
+    expect(allowsFulfilment({ offer: 'starter', meetingHandoverOk: false }, 'post')).toBe(true);
+    expect(allowsFulfilment({ offer: 'starter', meetingHandoverOk: false }, 'meeting')).toBe(false);
   });
 });

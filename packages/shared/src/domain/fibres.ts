@@ -141,6 +141,16 @@ export const OFFER_LABELS: Readonly<Record<Offer, string>> = {
 export const FULFILMENTS = ['post', 'meeting'] as const;
 export type Fulfilment = (typeof FULFILMENTS)[number];
 
+/**
+ * How each offer may change hands: sales, postage-only gifts and starter bundles the guild posts go by
+ * post; meeting gifts, and sales that allow it, at a meeting (starter claims for a meeting are made on
+ * the starter page). The API enforces it at checkout; the web app lays out the basket by it.
+ */
+export function allowsFulfilment(bundle: { offer: Offer | null; meetingHandoverOk: boolean }, fulfilment: Fulfilment): boolean {
+  if (fulfilment === 'post') return bundle.offer === 'sale' || bundle.offer === 'postage_only' || bundle.offer === 'starter';
+  return bundle.offer === 'meeting' || (bundle.offer === 'sale' && bundle.meetingHandoverOk);
+}
+
 export const BUNDLE_STATES = [
   'draft',
   'in_review',

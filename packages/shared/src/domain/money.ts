@@ -205,3 +205,26 @@ export function accountBalances(entries: readonly LedgerEntry[]): Map<LedgerAcco
   for (const e of entries) balances.set(e.account, (balances.get(e.account) ?? 0) + e.amountMinor);
   return balances;
 }
+
+/**
+ * The smallest card payment the payment service takes, in minor units, per currency (upper-case code). From
+ * memory of Stripe's "Minimum and maximum charge amounts" table (docs.stripe.com/currencies); a currency not
+ * listed has no minimum here. An order under it can never be paid, so it is refused before anything is held.
+ */
+const MINIMUM_CARD_CHARGE_MINOR: Readonly<Record<string, number>> = {
+  USD: 50,
+  EUR: 50,
+  GBP: 30,
+  CAD: 50,
+  AUD: 50,
+  NZD: 50,
+  CHF: 50,
+  JPY: 50,
+  SEK: 300,
+  NOK: 300,
+  DKK: 250,
+};
+
+export function minimumCardChargeMinor(currency: string): number {
+  return MINIMUM_CARD_CHARGE_MINOR[currency.toUpperCase()] ?? 0;
+}

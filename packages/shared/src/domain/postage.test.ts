@@ -201,8 +201,18 @@ describe('quotePostage (hand-worked invented table)', () => {
     expect(result.ok).toBe(false);
     if (result.ok) return;
     expect(result.error).toMatchObject({ code: 'too_heavy', ref: 'Batting roll', grams: 8601, maxContentGrams: 8600 });
-    expect(result.error.message).toMatch(/meeting/);
+    expect(result.error.message).toMatch(/meeting where the bundle offers it/);
     expect(quotePostage({ table: TABLE, items: [{ ref: 'Just fits', grams: 8600 }], postalCode: 'K0A 1A0' }).ok).toBe(true);
+  });
+
+  it('suggests a meeting only for a bundle that may change hands at one (design choice)', () => {
+    const refused = (meetingHandover: boolean) => {
+      const result = quotePostage({ table: TABLE, items: [{ ref: 'Batting roll', grams: 8601, meetingHandover }], postalCode: 'K0A 1A0' });
+      return result.ok ? '' : result.error.message;
+    };
+    expect(refused(true)).toMatch(/Choose handover at a meeting instead\.$/);
+    expect(refused(false)).toMatch(/goes by post only: ask the seller/);
+    expect(refused(false)).not.toMatch(/meeting/);
   });
 
   it('reports no_rate when no band of the zone covers the billable weight', () => {

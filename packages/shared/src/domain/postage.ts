@@ -7,7 +7,7 @@
  * 2. Units (one per bundle copy) are packed heaviest first, first-fit, into parcels whose
  *    contents may not exceed the largest package's capacity (maxGrams − tareGrams of the
  *    package that holds the most). A unit heavier than that cannot be posted: error
- *    `too_heavy`, suggesting meeting handover. Packing looks at weight only; the table
+ *    `too_heavy`, suggesting meeting handover where the bundle allows it. Packing looks at weight only; the table
  *    knows no bundle sizes.
  * 3. Each parcel takes the package with the lowest price among those that hold it
  *    (contents + tare ≤ maxGrams): the flat price if the package has one, otherwise the
@@ -71,6 +71,11 @@ export interface PostageItem {
   grams: number;
   /** Identical units of this item; 1 by default. */
   quantity?: number;
+  /**
+   * Whether the bundle may also change hands at a guild meeting (`allowsFulfilment`). It decides what a
+   * refusal suggests instead: a meeting handover, or asking the seller. Unknown when left out.
+   */
+  meetingHandover?: boolean;
 }
 
 export interface PostageQuoteInput {
@@ -205,6 +210,7 @@ const volumeOf = (p: PackagingPreset): number => p.innerMm[0] * p.innerMm[1] * p
 interface Unit {
   ref: string;
   grams: number;
+  meetingHandover: boolean | undefined;
 }
 
 function expandUnits(items: readonly PostageItem[]): Unit[] {
@@ -214,9 +220,16 @@ function expandUnits(items: readonly PostageItem[]): Unit[] {
     if (!Number.isInteger(item.grams) || item.grams <= 0 || !Number.isInteger(quantity) || quantity < 1) {
       throw new RangeError(`Bad postage item ${JSON.stringify(item)}`);
     }
-    for (let i = 0; i < quantity; i++) units.push({ ref: item.ref, grams: item.grams });
+    for (let i = 0; i < quantity; i++) units.push({ ref: item.ref, grams: item.grams, meetingHandover: item.meetingHandover });
   }
   return units;
+}
+
+/** What a refused quote suggests instead, from whether the bundles it refused may change hands at a meeting. */
+function otherWay(units: readonly Unit[]): string {
+  if (units.every((u) => u.meetingHandover === true)) return 'Choose handover at a meeting instead.';
+  if (units.every((u) => u.meetingHandover === false)) return 'It goes by post only: ask the seller whether it can be split or passed on another way.';
+  return 'Choose handover at a meeting where the bundle offers it, or ask the seller.';
 }
 
 /** Heaviest first, first fit; the sort is stable, so equal weights keep the order given. */
@@ -261,7 +274,7 @@ export function quotePostage(input: PostageQuoteInput): PostageResult {
   const covered = table.countries ?? [];
   const country = input.country?.trim().toUpperCase();
   if (country !== undefined && covered.length > 0 && !covered.includes(country)) {
-    return fail('country_not_covered', `The guild's postage table has rates for ${covered.join(', ')} only, not ${country}. Choose a meeting handover, or ask the seller.`);
+    return fail('country_not_covered', `The guild's postage table has rates for ${covered.join(', ')} only, not ${country}. ${otherWay(units)}`);
   }
 
   const matched = matchZone(table.zones, input.postalCode);
@@ -278,7 +291,7 @@ export function quotePostage(input: PostageQuoteInput): PostageResult {
       ok: false,
       error: {
         code: 'too_heavy',
-        message: `“${heaviest.ref}” weighs ${weight(heaviest.grams)}; the largest package (${largest.name}) holds ${weight(maxContentGrams)}. Choose handover at a meeting instead.`,
+        message: `“${heaviest.ref}” weighs ${weight(heaviest.grams)}; the largest package (${largest.name}) holds ${weight(maxContentGrams)}. ${otherWay([heaviest])}`,
         ref: heaviest.ref,
         grams: heaviest.grams,
         maxContentGrams,
@@ -318,7 +331,7 @@ export function quotePostage(input: PostageQuoteInput): PostageResult {
     explanation.push(`  → ${chosen.preset.name}, ${money(chosen.priceMinor)}.`);
     parcels.push({
       number,
-      units: parcelUnits.map((u) => ({ ...u })),
+      units: parcelUnits.map((u) => ({ ref: u.ref, grams: u.grams })),
       packageCode: chosen.preset.code,
       packageName: chosen.preset.name,
       contentGrams,

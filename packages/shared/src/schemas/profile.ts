@@ -10,7 +10,7 @@ export type OptionalEmailKind = (typeof OPTIONAL_EMAIL_KINDS)[number];
 export const EMAIL_KIND_LABELS: Record<OptionalEmailKind, string> = {
   review: 'The librarian approved or returned my listing',
   wishes: 'A new bundle matches one of my wishes',
-  starter: 'Starter bundle offers from the waiting list',
+  starter: 'A reminder before a starter-bundle offer runs out',
   meetings: 'Reminders before a meeting where I hand over or collect',
   posting: 'My parcel was posted or arrived',
 };

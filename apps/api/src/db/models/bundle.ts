@@ -30,6 +30,8 @@ export class Bundle extends Model<InferAttributes<Bundle>, InferCreationAttribut
   declare reviewedAt: CreationOptional<Date | null>;
   declare onShelfAt: CreationOptional<Date | null>;
   declare expiresAt: CreationOptional<Date | null>;
+  /** The end date the seller was last warned about (the expiry job); a relisted bundle is warned again. */
+  declare expiryWarnedFor: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -65,6 +67,7 @@ export class Bundle extends Model<InferAttributes<Bundle>, InferCreationAttribut
         reviewedAt: { type: DataTypes.DATE, allowNull: true },
         onShelfAt: { type: DataTypes.DATE, allowNull: true },
         expiresAt: { type: DataTypes.DATE, allowNull: true },
+        expiryWarnedFor: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

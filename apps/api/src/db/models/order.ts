@@ -28,6 +28,7 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
   declare holdExpiresAt: Date | null;
   declare paidAt: CreationOptional<Date | null>;
   declare postedAt: CreationOptional<Date | null>;
+  declare postReminderSentAt: CreationOptional<Date | null>;
   declare trackingNumber: CreationOptional<string | null>;
   declare receivedAt: CreationOptional<Date | null>;
   declare handedOverAt: CreationOptional<Date | null>;
@@ -71,6 +72,7 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
         holdExpiresAt: date(),
         paidAt: date(),
         postedAt: date(),
+        postReminderSentAt: date(),
         trackingNumber: { type: DataTypes.TEXT, allowNull: true },
         receivedAt: date(),
         handedOverAt: date(),

@@ -37,6 +37,8 @@ export class WaitlistOffer extends Model<InferAttributes<WaitlistOffer>, InferCr
   declare offeredAt: Date;
   declare expiresAt: Date;
   declare answeredAt: CreationOptional<Date | null>;
+  /** When the halfway reminder went (`remindOpenOffers`), set in the statement that picks the offer. */
+  declare reminderSentAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -50,6 +52,7 @@ export class WaitlistOffer extends Model<InferAttributes<WaitlistOffer>, InferCr
         offeredAt: { type: DataTypes.DATE, allowNull: false },
         expiresAt: { type: DataTypes.DATE, allowNull: false },
         answeredAt: { type: DataTypes.DATE, allowNull: true },
+        reminderSentAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -4,7 +4,9 @@ import {
   bundleCompleteSchema,
   bundleDraftSchema,
   CUT_SIZE_KIND,
+  formatMoney,
   MAX_PHOTOS_PER_BUNDLE,
+  minimumCardChargeMinor,
   toHex,
   type BundleDraftInput,
 } from '@scrap-relay/shared';
@@ -205,6 +207,10 @@ export async function submitForReview(ctx: AppContext, seller: Member, id: strin
     const photoCount = await BundlePhoto.count({ where: { bundleId: id }, transaction });
     if (photoCount === 0) fields.photos = 'Add at least one photo.';
     if (bundle.quantityAvailable === 0) fields.quantity = 'Every pack of this listing is sold or held; raise the quantity if you have more.';
+    const minimum = minimumCardChargeMinor(bundle.currency);
+    if (bundle.offer === 'sale' && bundle.priceMinor !== null && bundle.priceMinor < minimum) {
+      fields.priceMinor = `Prices start at ${formatMoney(minimum, bundle.currency)}, the least a card payment can be; or offer it free.`;
+    }
     if (Object.keys(fields).length > 0) {
       throw new AppError(422, 'unprocessable', `The listing is not complete yet: ${Object.keys(fields).join(', ')}.`, fields);
     }

@@ -147,7 +147,8 @@ export async function moveOpenHandovers(ctx: AppContext, actor: Actor, fromMeeti
       const member = await Member.findByPk(memberId, { transaction });
       if (!member) continue;
       const mail = handoverMoved({ guildName: guild.name, name: member.name, titles, meeting: meetingLabel(to, guildTimeZone(guild)), link: ctx.config.appUrl });
-      await ctx.queue.enqueueEmail({ to: member.email, kind: 'meetings', ...mail }, transaction);
+      // Always sent, like a change to the meeting itself: it says when to come instead.
+      await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
     }
     return orders.length + claims.length;
   });

@@ -13,7 +13,9 @@ import { Member, Payout, type Order } from '../../db/models/index.ts';
 import { notFound, unprocessable } from '../../errors/index.ts';
 import { authorize, can, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
-import { loadGuild } from '../guild/guild.service.ts';
+import { payoutRecorded } from '../../emails/ledger.ts';
+import { formatWhen } from '../../emails/format.ts';
+import { guildTimeZone, loadGuild } from '../guild/guild.service.ts';
 import { writeLedger } from '../orders/ledger-writer.ts';
 
 const ACCOUNT_LABELS: Record<string, string> = {
@@ -142,6 +144,21 @@ export async function recordPayout(ctx: AppContext, actor: Actor, input: PayoutI
       { transaction },
     );
     await writeLedger(payoutEntries({ sellerId: seller.id, amountMinor: input.amountMinor }), { payoutId: payout.id, currency: guild.currency, at: ctx.now() }, transaction);
+    // Money e-mail: always sent, and queued with the payout so it goes only if the payout is recorded.
+    // A closed account has no address left to write to.
+    if (seller.closedAt) return payout;
+    const owedNow = balance - input.amountMinor;
+    const mail = payoutRecorded({
+      guildName: guild.name,
+      name: seller.name,
+      amount: formatMoney(input.amountMinor, guild.currency),
+      method: input.method,
+      reference: input.reference,
+      recordedAt: formatWhen(payout.createdAt, guildTimeZone(guild)),
+      owedNow: owedNow > 0 ? formatMoney(owedNow, guild.currency) : null,
+      link: `${ctx.config.appUrl}/orders?as=seller`,
+    });
+    await ctx.queue.enqueueEmail({ to: seller.email, ...mail }, transaction);
     return payout;
   });
 }

@@ -5,12 +5,12 @@ import { meetingSchema, meetingUpdateSchema } from '@scrap-relay/shared';
 import { Meeting } from '../../db/models/index.ts';
 import { requireMember } from '../../middleware/authenticate.ts';
 import { parseInput } from '../../middleware/validate.ts';
-import { notFound } from '../../errors/index.ts';
 import { authorize } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { actorOf } from '../members/members.presenter.ts';
 import { routeId } from '../bundles/bundles.routes.ts';
 import { presentMeeting } from '../orders/orders.presenter.ts';
+import { createMeeting, updateMeeting } from './meetings.service.ts';
 
 const listSchema = z.strictObject({ when: z.enum(['upcoming', 'all'], { error: 'Use when=upcoming or when=all.' }).default('upcoming') });
 
@@ -29,11 +29,10 @@ export function meetingsRoutes(ctx: AppContext): Router {
   });
 
   router.post('/meetings', async (req, res) => {
-    const member = requireMember(req);
-    const actor = actorOf(member);
+    const actor = actorOf(requireMember(req));
     authorize(actor, 'meeting.manage');
     const input = parseInput(meetingSchema, req.body);
-    const meeting = await Meeting.create({ startsAt: new Date(input.startsAt), place: input.place, notes: input.notes, createdBy: member.id });
+    const meeting = await createMeeting(ctx, actor, input);
     res.status(201).json({ meeting: presentMeeting(meeting, actor) });
   });
 
@@ -41,10 +40,7 @@ export function meetingsRoutes(ctx: AppContext): Router {
     const actor = actorOf(requireMember(req));
     authorize(actor, 'meeting.manage');
     const input = parseInput(meetingUpdateSchema, req.body);
-    const meeting = await Meeting.findByPk(routeId(req.params.id, 'That meeting'));
-    if (!meeting) throw notFound('That meeting');
-    const { startsAt, ...rest } = input;
-    await meeting.update({ ...rest, ...(startsAt && { startsAt: new Date(startsAt) }) });
+    const meeting = await updateMeeting(ctx, actor, routeId(req.params.id, 'That meeting'), input);
     res.json({ meeting: presentMeeting(meeting, actor) });
   });
 

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { Transaction } from 'sequelize';
-import { isBalanced, type LedgerEntry as DomainEntry } from '@scrap-relay/shared';
+import { isBalanced, sellerAccount, type LedgerEntry as DomainEntry } from '@scrap-relay/shared';
 import { LedgerEntry } from '../../db/models/index.ts';
 
 /** Writes one balanced transaction of ledger entries; an unbalanced set is a bug, so it throws before writing. */
@@ -26,4 +26,10 @@ export async function writeLedger(
     })),
     { transaction },
   );
+}
+
+/** What the guild owes a seller now, in minor units: credits less refunds and payouts (below zero, the seller owes the guild). */
+export async function sellerBalance(sellerId: string, transaction: Transaction): Promise<number> {
+  const total: unknown = await LedgerEntry.sum('amountMinor', { where: { account: sellerAccount(sellerId) }, transaction });
+  return Number(total ?? 0);
 }

@@ -1,7 +1,10 @@
+import Stripe from 'stripe';
 import { Op, QueryTypes, UniqueConstraintError, type CreationAttributes, type Transaction } from 'sequelize';
 import {
+  allowsFulfilment,
   formatMoney,
   ledgerEntriesForPaidOrder,
+  minimumCardChargeMinor,
   orderMoney,
   processingCostEntries,
   reversalEntries,
@@ -12,20 +15,27 @@ import { Bundle, LedgerEntry, Meeting, Member, Order, OrderItem, OrderProblem, S
 import { eligibilityOf, ineligible, leaveWaitlistWithClaim, offerToNextInLine } from '../starter/starter.service.ts';
 import { badRequest, conflict, forbidden, notFound, serviceUnavailable, unprocessable } from '../../errors/index.ts';
 import {
+  lateRefundFailed,
+  latePaymentRefunding,
   orderCancelled,
   orderConfirmedToBuyer,
   orderPostedToBuyer,
   orderReceivedToSeller,
   orderRefunded,
+  orderRefundedToSeller,
   orderSoldToSeller,
+  orderTakenAsReceivedToBuyer,
+  postReminderToSeller,
   problemReported,
 } from '../../emails/orders.ts';
+import { emailChoicesUrl, type RenderedEmail } from '../../emails/render.ts';
+import { isUnreachable } from '../../integrations/payments.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { guildTimeZone, loadGuild } from '../guild/guild.service.ts';
 import { meetingLabel } from '../../emails/format.ts';
 import { quoteOrThrow } from '../postage/postage.service.ts';
-import { writeLedger } from './ledger-writer.ts';
+import { sellerBalance, writeLedger } from './ledger-writer.ts';
 import { LATE_REFUND_QUEUE } from '../../jobs/queue.ts';
 import { newOrderReference } from './order-reference.ts';
 
@@ -34,6 +44,8 @@ const DAY_MS = 24 * 60 * MINUTE_MS;
 /** Stripe will not expire a Checkout Session sooner than 30 minutes after creating it. */
 const MIN_CHECKOUT_LIFETIME_MS = 31 * MINUTE_MS;
 export const AUTO_RECEIVED_AFTER_DAYS = 21;
+/** A paid order still not posted this long after payment reminds its seller, once. */
+export const POST_REMINDER_AFTER_DAYS = 5;
 
 export const ORDER_INCLUDE = [
   { association: 'items' },
@@ -76,12 +88,6 @@ export async function listOrders(actor: Actor, as: 'buyer' | 'seller'): Promise<
   });
 }
 
-/** Which fulfilments an offer allows: posting for sales, postage-only gifts and starter claims; meetings for meeting gifts and sales that allow it. */
-function allowsFulfilment(bundle: Bundle, fulfilment: 'post' | 'meeting'): boolean {
-  if (fulfilment === 'post') return bundle.offer === 'sale' || bundle.offer === 'postage_only' || bundle.offer === 'starter';
-  return bundle.offer === 'meeting' || (bundle.offer === 'sale' && bundle.meetingHandoverOk);
-}
-
 async function emailConfirmation(ctx: AppContext, guild: Guild, order: Order, transaction: Transaction) {
   const [items, buyer, seller, meeting] = await Promise.all([
     OrderItem.findAll({ where: { orderId: order.id }, transaction }),
@@ -93,10 +99,20 @@ async function emailConfirmation(ctx: AppContext, guild: Guild, order: Order, tr
   const amount = order.chargeMinor > 0 ? formatMoney(order.chargeMinor, order.currency) : '';
   const link = `${ctx.config.appUrl}/orders/${order.id}`;
   const when = meeting ? meetingLabel(meeting, guildTimeZone(guild)) : null;
-  await ctx.queue.enqueueEmail(
-    { to: seller!.email, ...orderSoldToSeller({ guildName: guild.name, name: seller!.name, reference: order.reference, titles, link, buyerName: buyer!.name, address: order.address, meeting: when, amount: amount || 'nothing (a gift)' }) },
-    transaction,
-  );
+  const sold = orderSoldToSeller({
+    guildName: guild.name,
+    name: seller!.name,
+    reference: order.reference,
+    titles,
+    link,
+    buyerName: buyer!.name,
+    address: order.address,
+    meeting: when,
+    paid: amount || null,
+    share: order.sellerCreditMinor > 0 ? formatMoney(order.sellerCreditMinor, order.currency) : null,
+    postageIncluded: order.postageMinor > 0,
+  });
+  await ctx.queue.enqueueEmail({ to: seller!.email, ...sold }, transaction);
   await ctx.queue.enqueueEmail(
     { to: buyer!.email, ...orderConfirmedToBuyer({ guildName: guild.name, name: buyer!.name, reference: order.reference, titles, link, amount, meeting: when }) },
     transaction,
@@ -208,7 +224,7 @@ export async function placeOrder(ctx: AppContext, buyer: Member, input: OrderCre
 
     const quote =
       input.fulfilment === 'post'
-        ? quoteOrThrow(guild, lines.map((l) => ({ ref: l.bundle.title, grams: l.bundle.weightGrams!, quantity: l.quantity })), input.address!, 'address', buyer.units ?? guild.defaultUnits)
+        ? quoteOrThrow(guild, lines.map((l) => ({ ref: l.bundle.title, grams: l.bundle.weightGrams!, quantity: l.quantity, meetingHandover: allowsFulfilment(l.bundle, 'meeting') })), input.address!, 'address', buyer.units ?? guild.defaultUnits)
         : null;
     const money = orderMoney({
       lines: lines.map((l) => ({ priceMinor: l.bundle.offer === 'sale' ? l.bundle.priceMinor! : 0, quantity: l.quantity })),
@@ -217,6 +233,13 @@ export async function placeOrder(ctx: AppContext, buyer: Member, input: OrderCre
       processing: { percentBasisPoints: guild.settings.processingPercentBasisPoints, fixedMinor: guild.settings.processingFixedMinor },
     });
     const needsPayment = money.chargeMinor > 0;
+    const minimum = minimumCardChargeMinor(guild.currency);
+    if (needsPayment && money.chargeMinor < minimum) {
+      const least = formatMoney(minimum, guild.currency);
+      throw unprocessable(`Card payments start at ${least}, and this order comes to ${formatMoney(money.chargeMinor, guild.currency)}.`, {
+        items: `Add another bundle from this seller to reach ${least}.`,
+      });
+    }
 
     for (const { bundle, quantity } of lines) {
       await bundle.update({ quantityAvailable: bundle.quantityAvailable - quantity }, { transaction });
@@ -306,18 +329,27 @@ async function openCheckout(ctx: AppContext, order: Order) {
     await order.update({ stripeSessionId: session.id, checkoutUrl: session.url });
   } catch (err) {
     ctx.logger.warn({ err, orderId: order.id }, 'could not open a checkout session; releasing the hold');
-    await cancelUnpaid(ctx, order.id, 'The payment service could not be reached.');
+    await cancelUnpaid(ctx, order.id, 'The payment service could not be reached.', { tellBuyer: false });
     throw serviceUnavailable('The card payment service is not answering just now, so nothing was taken or held. Please try again in a few minutes.');
   }
 }
 
-/** Cancels an order still awaiting payment and puts its units back; does nothing if it has moved on. */
-export async function cancelUnpaid(ctx: AppContext, orderId: string, reason: string): Promise<boolean> {
+/**
+ * Cancels an order still awaiting payment and puts its units back; does nothing if it has moved on. With
+ * `tellBuyer`, the buyer is e-mailed why (a hold that ran out); without, they are already reading the answer.
+ */
+export async function cancelUnpaid(ctx: AppContext, orderId: string, reason: string, { tellBuyer = true } = {}): Promise<boolean> {
+  const guild = tellBuyer ? await loadGuild() : null;
   return ctx.sequelize.transaction(async (transaction) => {
     const order = await findOrder(orderId, transaction, true);
     if (order.state !== 'awaiting_payment') return false;
     await order.update({ state: 'cancelled', cancelledAt: ctx.now(), cancelReason: reason, holdExpiresAt: null }, { transaction });
     await releaseUnits(ctx, order, transaction);
+    if (guild) {
+      await notifyParties(ctx, order, ['buyer'], transaction, (side, name, link, titles) =>
+        orderCancelled({ guildName: guild.name, name, side, reference: order.reference, titles, link, refunded: null, reason }),
+      );
+    }
     return true;
   });
 }
@@ -331,6 +363,17 @@ export async function confirmPayment(ctx: AppContext, sessionId: string, payment
       await order.update({ stripePaymentIntentId: paymentIntentId, cancelReason: `${order.cancelReason ?? ''} Paid after the hold ended; refunded.`.trim() }, { transaction });
       // Queued with this event's record, so a card service that is down delays the refund, never loses it.
       await ctx.queue.enqueue(LATE_REFUND_QUEUE, { orderId: order.id }, transaction);
+      const [guild, buyer] = await Promise.all([loadGuild(), Member.findByPk(order.buyerId, { transaction })]);
+      const titles = (await OrderItem.findAll({ where: { orderId: order.id }, transaction })).map((i) => i.title);
+      const mail = latePaymentRefunding({
+        guildName: guild.name,
+        name: buyer!.name,
+        reference: order.reference,
+        titles,
+        link: `${ctx.config.appUrl}/orders/${order.id}`,
+        paid: formatMoney(order.chargeMinor, order.currency),
+      });
+      await ctx.queue.enqueueEmail({ to: buyer!.email, ...mail }, transaction);
       return;
     }
     return;
@@ -352,15 +395,33 @@ export async function confirmPayment(ctx: AppContext, sessionId: string, payment
   await emailConfirmation(ctx, guild, order, transaction);
 }
 
-/** Refunds a payment in full through the payment service; the idempotency key makes a retry safe. */
+/**
+ * Refunds an order's charge in full through the payment service; the idempotency key makes a retry safe. A charge
+ * already refunded in full elsewhere (the service's own dashboard, or a retry after the service forgot the key)
+ * counts as refunded. A service that cannot be reached is a 503 to try again; a refusal is a 409 with its reason.
+ */
 async function refundPayment(ctx: AppContext, order: Order) {
-  if (!order.stripePaymentIntentId) throw new Error(`order ${order.id} has no payment to refund`);
+  const paymentIntent = order.stripePaymentIntentId;
+  if (!paymentIntent) throw new Error(`order ${order.id} has no payment to refund`);
   try {
-    await ctx.stripe.refunds.create({ payment_intent: order.stripePaymentIntentId, metadata: { orderId: order.id } }, { idempotencyKey: `refund-${order.id}` });
+    await ctx.stripe.refunds.create({ payment_intent: paymentIntent, amount: order.chargeMinor, metadata: { orderId: order.id } }, { idempotencyKey: `refund-${order.id}` });
   } catch (err) {
     ctx.logger.warn({ err, orderId: order.id }, 'refund failed');
-    throw serviceUnavailable('The card payment service is not answering just now, so nothing was changed. Please try again in a few minutes.');
+    if (isUnreachable(err)) {
+      throw serviceUnavailable('The card payment service is not answering just now, so nothing was changed. Please try again in a few minutes.');
+    }
+    if (err instanceof Stripe.errors.StripeError && err.code === 'charge_already_refunded' && (await refundedSoFar(ctx, paymentIntent)) >= order.chargeMinor) return;
+    const reason = err instanceof Stripe.errors.StripeError ? err.message : 'no reason given';
+    throw conflict(`The card payment service refused the refund, so nothing was changed: ${reason}`, { order: 'Not refunded.' });
   }
+}
+
+async function refundedSoFar(ctx: AppContext, paymentIntent: string): Promise<number> {
+  let total = 0;
+  for await (const refund of ctx.stripe.refunds.list({ payment_intent: paymentIntent, limit: 100 })) {
+    if (refund.status !== 'failed' && refund.status !== 'canceled') total += refund.amount;
+  }
+  return total;
 }
 
 /**
@@ -381,6 +442,38 @@ export async function refundLatePayment(ctx: AppContext, orderId: string) {
   });
 }
 
+/**
+ * The job of LATE_REFUND_QUEUE. When its last retry fails too, every treasurer is told, so a buyer charged for a
+ * cancelled order is never left waiting for a refund nobody is trying any more.
+ */
+export async function runLateRefund(ctx: AppContext, job: { data: { orderId: string }; retryCount: number; retryLimit: number }) {
+  try {
+    await refundLatePayment(ctx, job.data.orderId);
+  } catch (err) {
+    if (job.retryCount >= job.retryLimit) await tellTreasurersRefundFailed(ctx, job.data.orderId);
+    throw err;
+  }
+}
+
+async function tellTreasurersRefundFailed(ctx: AppContext, orderId: string) {
+  const guild = await loadGuild();
+  await ctx.sequelize.transaction(async (transaction) => {
+    const order = await findOrder(orderId, transaction);
+    const treasurers = await Member.findAll({ where: { active: true, roles: { [Op.contains]: ['treasurer' as const] } }, transaction });
+    for (const treasurer of treasurers) {
+      const mail = lateRefundFailed({
+        guildName: guild.name,
+        name: treasurer.name,
+        reference: order.reference,
+        titles: [],
+        link: `${ctx.config.appUrl}/orders/${order.id}`,
+        paid: formatMoney(order.chargeMinor, order.currency),
+      });
+      await ctx.queue.enqueueEmail({ to: treasurer.email, ...mail }, transaction);
+    }
+  });
+}
+
 async function reverseLedger(ctx: AppContext, order: Order, transaction: Transaction) {
   const original = await LedgerEntry.findAll({ where: { orderId: order.id, kind: { [Op.ne]: 'refund' } }, transaction });
   const reversals = reversalEntries(
@@ -389,15 +482,22 @@ async function reverseLedger(ctx: AppContext, order: Order, transaction: Transac
   await writeLedger(reversals, { orderId: order.id, currency: order.currency, at: ctx.now() }, transaction);
 }
 
-async function notifyBoth(ctx: AppContext, order: Order, transaction: Transaction, render: (name: string, link: string, titles: string[]) => { subject: string; text: string; html: string }) {
-  const [buyer, seller, items] = await Promise.all([
-    Member.findByPk(order.buyerId, { transaction }),
-    Member.findByPk(order.sellerId, { transaction }),
-    OrderItem.findAll({ where: { orderId: order.id }, transaction }),
-  ]);
-  const titles = items.map((i) => i.title);
+type Side = 'buyer' | 'seller';
+
+async function notifyParties(
+  ctx: AppContext,
+  order: Order,
+  sides: readonly Side[],
+  transaction: Transaction,
+  render: (side: Side, name: string, link: string, titles: string[]) => RenderedEmail | Promise<RenderedEmail>,
+) {
+  const items = await OrderItem.findAll({ where: { orderId: order.id }, transaction });
+  const titles = items.map((i) => (i.quantity > 1 ? `${i.title} × ${i.quantity}` : i.title));
   const link = `${ctx.config.appUrl}/orders/${order.id}`;
-  for (const person of [buyer!, seller!]) await ctx.queue.enqueueEmail({ to: person.email, ...render(person.name, link, titles) }, transaction);
+  for (const side of sides) {
+    const person = (await Member.findByPk(side === 'buyer' ? order.buyerId : order.sellerId, { transaction }))!;
+    await ctx.queue.enqueueEmail({ to: person.email, ...(await render(side, person.name, link, titles)) }, transaction);
+  }
 }
 
 /**
@@ -422,8 +522,9 @@ export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string
     if (paid) await reverseLedger(ctx, order, transaction);
     await releaseUnits(ctx, order, transaction);
     const refunded = paid ? formatMoney(order.chargeMinor, order.currency) : null;
-    await notifyBoth(ctx, order, transaction, (name, link, titles) =>
-      orderCancelled({ guildName: guild.name, name, reference: order.reference, titles, link, refunded, reason: reason ?? null }),
+    // The seller hears of an order only once it is confirmed, so only then of its cancellation.
+    await notifyParties(ctx, order, unpaid ? ['buyer'] : ['buyer', 'seller'], transaction, (side, name, link, titles) =>
+      orderCancelled({ guildName: guild.name, name, side, reference: order.reference, titles, link, refunded, reason: reason ?? null }),
     );
     return { order, closePaymentPage: unpaid ? order.stripeSessionId : null };
   });
@@ -450,17 +551,14 @@ export async function refundOrder(ctx: AppContext, actor: Actor, orderId: string
     await reverseLedger(ctx, order, transaction);
     if (!wasPosted) await releaseUnits(ctx, order, transaction);
     await OrderProblem.update({ resolvedAt: ctx.now() }, { where: { orderId, resolvedAt: null }, transaction });
-    const buyer = (await Member.findByPk(order.buyerId, { transaction }))!;
-    const items = await OrderItem.findAll({ where: { orderId }, transaction });
-    const mail = orderRefunded({
-      guildName: guild.name,
-      name: buyer.name,
-      reference: order.reference,
-      titles: items.map((i) => i.title),
-      link: `${ctx.config.appUrl}/orders/${order.id}`,
-      refunded: formatMoney(order.chargeMinor, order.currency),
+    const refunded = formatMoney(order.chargeMinor, order.currency);
+    const money = (minor: number) => (minor > 0 ? formatMoney(minor, order.currency) : null);
+    await notifyParties(ctx, order, ['buyer', 'seller'], transaction, async (side, name, link, titles) => {
+      const base = { guildName: guild.name, name, reference: order.reference, titles, link, refunded };
+      if (side === 'buyer') return orderRefunded(base);
+      const balance = await sellerBalance(order.sellerId, transaction);
+      return orderRefundedToSeller({ ...base, share: money(order.sellerCreditMinor), owing: money(-balance) });
     });
-    await ctx.queue.enqueueEmail({ to: buyer.email, ...mail }, transaction);
     return order;
   });
 }
@@ -480,24 +578,29 @@ export async function markPosted(ctx: AppContext, actor: Actor, orderId: string,
       titles: items.map((i) => i.title),
       link: `${ctx.config.appUrl}/orders/${order.id}`,
       trackingNumber: order.trackingNumber,
+      choicesLink: emailChoicesUrl(ctx.config.appUrl),
     });
     await ctx.queue.enqueueEmail({ to: buyer.email, kind: 'posting', ...mail }, transaction);
     return order;
   });
 }
 
-async function markReceivedInTransaction(ctx: AppContext, order: Order, guild: Guild, transaction: Transaction) {
+/** `automatic`: nobody marked it; it is taken as received AUTO_RECEIVED_AFTER_DAYS after posting, and the buyer is told too. */
+async function markReceivedInTransaction(ctx: AppContext, order: Order, guild: Guild, transaction: Transaction, automatic = false) {
   await order.update({ state: 'received', receivedAt: ctx.now() }, { transaction });
-  const seller = (await Member.findByPk(order.sellerId, { transaction }))!;
+  const afterDays = automatic ? AUTO_RECEIVED_AFTER_DAYS : null;
+  const sides: Side[] = automatic ? ['seller', 'buyer'] : ['seller'];
   const items = await OrderItem.findAll({ where: { orderId: order.id }, transaction });
-  const mail = orderReceivedToSeller({
-    guildName: guild.name,
-    name: seller.name,
-    reference: order.reference,
-    titles: items.map((i) => i.title),
-    link: `${ctx.config.appUrl}/orders/${order.id}`,
-  });
-  await ctx.queue.enqueueEmail({ to: seller.email, kind: 'posting', ...mail }, transaction);
+  for (const side of sides) {
+    const person = (await Member.findByPk(side === 'buyer' ? order.buyerId : order.sellerId, { transaction }))!;
+    const base = { guildName: guild.name, name: person.name, reference: order.reference, titles: items.map((i) => i.title), link: `${ctx.config.appUrl}/orders/${order.id}` };
+    // The buyer's is always sent: it is their last word on reporting a problem.
+    const mail =
+      side === 'seller'
+        ? { kind: 'posting' as const, ...orderReceivedToSeller({ ...base, afterDays, choicesLink: emailChoicesUrl(ctx.config.appUrl) }) }
+        : orderTakenAsReceivedToBuyer({ ...base, afterDays: AUTO_RECEIVED_AFTER_DAYS });
+    await ctx.queue.enqueueEmail({ to: person.email, ...mail }, transaction);
+  }
 }
 
 export async function markReceived(ctx: AppContext, actor: Actor, orderId: string): Promise<Order> {
@@ -525,33 +628,113 @@ export async function reportProblem(ctx: AppContext, actor: Actor, orderId: stri
   });
 }
 
-/** Scheduled: holds past the guild's limit are cancelled (the session expired first, so a late payment cannot land). */
+type HoldOutcome = 'released' | 'confirmed' | 'kept';
+
+/**
+ * Scheduled: holds past the guild's limit end. The job asks the payment service about each one before
+ * cancelling it: a page paid in time confirms its order here, so a payment whose event never arrived is
+ * not left waiting; a service that cannot be asked leaves the hold for the next run; an open page is
+ * closed first, so no payment can land after the cancellation. One order failing does not stop the rest.
+ */
 export async function releaseOverdueHolds(ctx: AppContext): Promise<number> {
-  const overdue = await Order.findAll({ where: { state: 'awaiting_payment', holdExpiresAt: { [Op.lte]: ctx.now() } }, limit: 200 });
+  const overdue = await Order.findAll({
+    where: { state: 'awaiting_payment', holdExpiresAt: { [Op.lte]: ctx.now() } },
+    order: [['holdExpiresAt', 'ASC']],
+    limit: 200,
+  });
   let released = 0;
   for (const order of overdue) {
-    if (order.stripeSessionId) {
-      const session = await ctx.stripe.checkout.sessions.retrieve(order.stripeSessionId).catch(() => null);
-      if (session?.status === 'complete') continue; // the completed event confirms it
-      if (session?.status === 'open') await ctx.stripe.checkout.sessions.expire(order.stripeSessionId).catch(() => undefined);
+    try {
+      if ((await endHold(ctx, order)) === 'released') released++;
+    } catch (err) {
+      ctx.logger.warn({ err, orderId: order.id }, 'could not end an overdue hold; trying again on the next run');
     }
-    // Expiring the session may already have cancelled the order through its webhook; either way it is released.
-    await cancelUnpaid(ctx, order.id, 'Payment was not completed in time.');
-    released++;
   }
   return released;
+}
+
+async function endHold(ctx: AppContext, order: Order): Promise<HoldOutcome> {
+  if (order.stripeSessionId) {
+    const sessionId = order.stripeSessionId;
+    const ask = () => ctx.stripe.checkout.sessions.retrieve(sessionId);
+    let session = await ask();
+    if (session.status === 'open') {
+      // Paid in the moment between asking and closing: closing fails, and the next question says so.
+      session = await ctx.stripe.checkout.sessions.expire(sessionId).catch(ask);
+    }
+    if (session.status === 'complete') {
+      if (session.payment_status !== 'paid') return 'kept';
+      await ctx.sequelize.transaction((transaction) => confirmPayment(ctx, session.id, paymentIntentIdOf(session), transaction));
+      return 'confirmed';
+    }
+    if (session.status !== 'expired') return 'kept';
+  }
+  // Closing the page may already have cancelled the order through its webhook; either way it is released.
+  return (await cancelUnpaid(ctx, order.id, 'Payment was not completed in time.')) ? 'released' : 'kept';
+}
+
+/** The payment a completed checkout page made, as its id. */
+export function paymentIntentIdOf(session: Stripe.Checkout.Session): string | null {
+  return typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
+}
+
+/** Scheduled: the seller of a paid order to be posted and not yet marked posted after a few days is reminded once. */
+export async function remindUnposted(ctx: AppContext): Promise<number> {
+  const guild = await loadGuild();
+  const cutoff = new Date(ctx.now().getTime() - POST_REMINDER_AFTER_DAYS * DAY_MS);
+  const due = await Order.findAll({
+    where: { state: 'confirmed', fulfilment: 'post', postReminderSentAt: null, paidAt: { [Op.lte]: cutoff } },
+    order: [['paidAt', 'ASC']],
+    limit: 200,
+  });
+  let reminded = 0;
+  for (const candidate of due) {
+    try {
+      await ctx.sequelize.transaction(async (transaction) => {
+        const order = await findOrder(candidate.id, transaction, true);
+        if (order.state !== 'confirmed' || order.postReminderSentAt) return;
+        await order.update({ postReminderSentAt: ctx.now() }, { transaction });
+        const [seller, buyer, items] = await Promise.all([
+          Member.findByPk(order.sellerId, { transaction }),
+          Member.findByPk(order.buyerId, { transaction }),
+          OrderItem.findAll({ where: { orderId: order.id }, transaction }),
+        ]);
+        const mail = postReminderToSeller({
+          guildName: guild.name,
+          name: seller!.name,
+          reference: order.reference,
+          titles: items.map((i) => i.title),
+          link: `${ctx.config.appUrl}/orders/${order.id}`,
+          buyerName: buyer!.name,
+          days: POST_REMINDER_AFTER_DAYS,
+        });
+        await ctx.queue.enqueueEmail({ to: seller!.email, ...mail }, transaction);
+        reminded++;
+      });
+    } catch (err) {
+      ctx.logger.warn({ err, orderId: candidate.id }, 'could not remind a seller to post; trying again on the next run');
+    }
+  }
+  return reminded;
 }
 
 /** Scheduled: posted orders nobody marked are taken as received after 21 days. */
 export async function autoReceive(ctx: AppContext): Promise<number> {
   const guild = await loadGuild();
   const cutoff = new Date(ctx.now().getTime() - AUTO_RECEIVED_AFTER_DAYS * DAY_MS);
-  const due = await Order.findAll({ where: { state: 'posted', postedAt: { [Op.lte]: cutoff } }, limit: 500 });
+  const due = await Order.findAll({ where: { state: 'posted', postedAt: { [Op.lte]: cutoff } }, order: [['postedAt', 'ASC']], limit: 500 });
+  let received = 0;
   for (const stale of due) {
-    await ctx.sequelize.transaction(async (transaction) => {
-      const order = await findOrder(stale.id, transaction, true);
-      if (order.state === 'posted') await markReceivedInTransaction(ctx, order, guild, transaction);
-    });
+    try {
+      await ctx.sequelize.transaction(async (transaction) => {
+        const order = await findOrder(stale.id, transaction, true);
+        if (order.state !== 'posted') return;
+        await markReceivedInTransaction(ctx, order, guild, transaction, true);
+        received++;
+      });
+    } catch (err) {
+      ctx.logger.warn({ err, orderId: stale.id }, 'could not take a posted order as received; trying again on the next run');
+    }
   }
-  return due.length;
+  return received;
 }

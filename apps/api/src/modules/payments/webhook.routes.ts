@@ -3,7 +3,7 @@ import type Stripe from 'stripe';
 import { QueryTypes } from 'sequelize';
 import { badRequest } from '../../errors/index.ts';
 import type { AppContext } from '../../context.ts';
-import { cancelUnpaid, confirmPayment } from '../orders/orders.service.ts';
+import { cancelUnpaid, confirmPayment, paymentIntentIdOf } from '../orders/orders.service.ts';
 
 /**
  * The payment service's events. The signature is checked on the raw body; each event id is
@@ -29,13 +29,12 @@ export function webhookRoutes(ctx: AppContext): Router {
       if (event.type === 'checkout.session.completed') {
         const session = event.data.object;
         if (session.payment_status !== 'paid') return;
-        const paymentIntent = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
         // A payment for an order already cancelled queues its refund in this transaction.
-        await confirmPayment(ctx, session.id, paymentIntent, transaction);
+        await confirmPayment(ctx, session.id, paymentIntentIdOf(session), transaction);
       } else if (event.type === 'checkout.session.expired') {
-        const sessionId = event.data.object.id;
         const orderId = event.data.object.metadata?.orderId;
-        if (orderId) followUp = async () => void (await cancelUnpaid(ctx, orderId, `Payment session ${sessionId} expired.`));
+        // Members read the reason on the order; the session's id stays in the log and the event record.
+        if (orderId) followUp = async () => void (await cancelUnpaid(ctx, orderId, 'The payment page closed before a payment was made.'));
       }
     });
     if (followUp) await followUp();

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { postageQuoteRequestSchema, postageTableSchema, type PostageQuoteView } from '@scrap-relay/shared';
+import { allowsFulfilment, postageQuoteRequestSchema, postageTableSchema, type PostageQuoteView } from '@scrap-relay/shared';
 import { Bundle } from '../../db/models/index.ts';
 import { requireMember } from '../../middleware/authenticate.ts';
 import { parseInput } from '../../middleware/validate.ts';
@@ -33,7 +33,7 @@ export function postageRoutes(): Router {
     const items = input.items.map((item, index) => {
       const bundle = byId.get(item.bundleId);
       if (!bundle || !can(actor, 'bundle.view', bundle) || !bundle.weightGrams) throw notFound(`Bundle ${index + 1}`);
-      return { ref: bundle.title, grams: bundle.weightGrams, quantity: item.quantity };
+      return { ref: bundle.title, grams: bundle.weightGrams, quantity: item.quantity, meetingHandover: allowsFulfilment(bundle, 'meeting') };
     });
     const guild = await loadGuild();
     const quote = quoteOrThrow(guild, items, input.destination, 'destination', member.units ?? guild.defaultUnits);

@@ -2,11 +2,12 @@ import { QueryTypes } from 'sequelize';
 import type { ReviewDecisionInput } from '@scrap-relay/shared';
 import { Bundle, BundleReview, Member } from '../../db/models/index.ts';
 import { bundleApproved, starterBundleApproved, bundleReturned, wishMatched } from '../../emails/bundles.ts';
+import { emailChoicesUrl } from '../../emails/render.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { loadGuild } from '../guild/guild.service.ts';
 import { findBundle } from '../bundles/bundles.service.ts';
-import { WISH_MATCH_SQL } from '../wishes/wishes.service.ts';
+import { WISH_MATCH_SQL, type WishMatch } from '../wishes/wishes.service.ts';
 import { offerToNextInLine } from '../starter/starter.service.ts';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
@@ -24,8 +25,8 @@ export async function reviewQueue(actor: Actor): Promise<Bundle[]> {
 }
 
 /**
- * Approve → on the shelf until the guild's limit, the seller is told, and every matching
- * wish (not the seller's own) gets one e-mail; return → back to the seller with the notes.
+ * Approve → on the shelf until the guild's limit, the seller is told, and every member with
+ * matching wishes (not the seller) gets one e-mail naming them; return → back to the seller with the notes.
  * Everything, e-mails included, is queued in the one transaction.
  */
 export async function decide(ctx: AppContext, librarian: Actor, bundleId: string, input: ReviewDecisionInput): Promise<Bundle> {
@@ -36,11 +37,12 @@ export async function decide(ctx: AppContext, librarian: Actor, bundleId: string
     const seller = (await Member.findByPk(bundle.sellerId, { transaction }))!;
     const now = ctx.now();
     const link = `${ctx.config.appUrl}/bundles/${bundle.id}`;
+    const choicesLink = emailChoicesUrl(ctx.config.appUrl);
     await BundleReview.create({ bundleId, reviewerId: librarian.id, decision: input.decision, notes: input.notes ?? null }, { transaction });
 
     if (input.decision === 'return') {
       await bundle.update({ state: 'returned', reviewNotes: input.notes ?? '', reviewedAt: now }, { transaction });
-      const mail = bundleReturned({ guildName: guild.name, name: seller.name, title: bundle.title, link: `${ctx.config.appUrl}/my-bundles/${bundle.id}/edit`, notes: input.notes ?? '' });
+      const mail = bundleReturned({ guildName: guild.name, name: seller.name, title: bundle.title, link: `${ctx.config.appUrl}/my-bundles/${bundle.id}/edit`, notes: input.notes ?? '', choicesLink });
       await ctx.queue.enqueueEmail({ to: seller.email, kind: 'review', ...mail }, transaction);
       return bundle;
     }
@@ -56,18 +58,14 @@ export async function decide(ctx: AppContext, librarian: Actor, bundleId: string
       { transaction },
     );
     const approved = bundle.offer === 'starter' ? starterBundleApproved : bundleApproved;
-    await ctx.queue.enqueueEmail({ to: seller.email, kind: 'review', ...approved({ guildName: guild.name, name: seller.name, title: bundle.title, link }) }, transaction);
+    await ctx.queue.enqueueEmail({ to: seller.email, kind: 'review', ...approved({ guildName: guild.name, name: seller.name, title: bundle.title, link, choicesLink }) }, transaction);
 
     // A starter bundle goes first to whoever has waited longest.
     if (bundle.offer === 'starter') await offerToNextInLine(ctx, bundle.id, transaction);
 
-    const matches = await ctx.sequelize.query<{ wish_name: string; member_name: string; member_email: string }>(WISH_MATCH_SQL, {
-      bind: [bundle.id],
-      transaction,
-      type: QueryTypes.SELECT,
-    });
+    const matches = await ctx.sequelize.query<WishMatch>(WISH_MATCH_SQL, { bind: [bundle.id], transaction, type: QueryTypes.SELECT });
     for (const match of matches) {
-      const mail = wishMatched({ guildName: guild.name, name: match.member_name, title: bundle.title, link, wishName: match.wish_name });
+      const mail = wishMatched({ guildName: guild.name, name: match.member_name, title: bundle.title, link, wishNames: match.wish_names, choicesLink });
       await ctx.queue.enqueueEmail({ to: match.member_email, kind: 'wishes', ...mail }, transaction);
     }
     return bundle;

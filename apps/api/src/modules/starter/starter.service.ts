@@ -2,7 +2,7 @@ import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { isNewQuilter, offerExpiresAtFrom, starterEligibility, type StarterEligibility, type StarterStatus, type WaitlistRow } from '@scrap-relay/shared';
 import { Bundle, Meeting, Member, StarterClaim, WaitlistEntry, WaitlistOffer, type Guild } from '../../db/models/index.ts';
 import { AppError, badRequest, conflict, notFound } from '../../errors/index.ts';
-import { starterClaimed, starterOffered } from '../../emails/starter.ts';
+import { starterClaimed, starterMeetingSet, starterOfferLapsed, starterOffered, starterOfferReminder, starterWaitlistRemoved } from '../../emails/starter.ts';
 import { formatWhen, meetingLabel } from '../../emails/format.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
@@ -27,6 +27,14 @@ export async function eligibilityOf(member: Member, guild: Guild, now: Date, tra
   });
 }
 
+/** Why a member on the waiting list may no longer have a starter bundle, in words for them. */
+function ineligibleReason(e: Exclude<StarterEligibility, { eligible: true }>, guild: Guild): string {
+  if (e.reason === 'not_new_quilter') {
+    return `Starter bundles are for new quilters: members in their first ${guild.settings.newcomerWindowMonths} months with the guild, or flagged as new by the librarian.`;
+  }
+  return `You have had your starter bundle for now; you may claim another from ${e.nextEligibleAt.toISOString().slice(0, 10)}.`;
+}
+
 export function ineligible(e: Exclude<StarterEligibility, { eligible: true }>): AppError {
   if (e.reason === 'not_new_quilter') {
     return new AppError(403, 'forbidden', 'Starter bundles are for new quilters. Ask the librarian if you think you should be on the list.');
@@ -46,13 +54,17 @@ export async function availableStarterBundles(): Promise<Bundle[]> {
   });
 }
 
-async function nextMeeting(now: Date, transaction?: Transaction) {
-  return Meeting.findOne({ where: { startsAt: { [Op.gt]: now } }, order: [['startsAt', 'ASC']], transaction });
+/**
+ * The meeting row is share-locked: a change of its date or place (which tells everyone with a
+ * handover there) waits for this claim to commit, or this claim reads the changed meeting.
+ */
+async function nextMeeting(now: Date, transaction: Transaction) {
+  return Meeting.findOne({ where: { startsAt: { [Op.gt]: now } }, order: [['startsAt', 'ASC']], transaction, lock: transaction.LOCK.SHARE });
 }
 
 async function chosenMeeting(meetingId: string | undefined, now: Date, transaction: Transaction) {
   if (!meetingId) return nextMeeting(now, transaction);
-  const meeting = await Meeting.findByPk(meetingId, { transaction });
+  const meeting = await Meeting.findByPk(meetingId, { transaction, lock: transaction.LOCK.SHARE });
   if (!meeting || meeting.startsAt <= now) throw badRequest('Choose a meeting that is still to come.', { meetingId: 'Not a coming meeting.' });
   return meeting;
 }
@@ -131,17 +143,21 @@ export async function offerToNextInLine(ctx: AppContext, bundleId: string, trans
   const openOffer = await WaitlistOffer.findOne({ where: { bundleId, status: 'open' }, transaction });
   if (openOffer) return openOffer;
   const now = ctx.now();
-  const queue = await WaitlistEntry.findAll({
-    where: { status: 'waiting' },
-    order: [
-      ['joinedAt', 'ASC'],
-      ['id', 'ASC'],
-    ],
-    transaction,
-    lock: transaction.LOCK.UPDATE,
-    skipLocked: true,
-  });
-  for (const entry of queue) {
+  const timeZone = guildTimeZone(guild);
+  // One entry at a time, the first not locked by another offer: two bundles offered at once go to
+  // the first two people in line, and the entries behind them stay free for the next offer.
+  for (;;) {
+    const entry = await WaitlistEntry.findOne({
+      where: { status: 'waiting' },
+      order: [
+        ['joinedAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+      skipLocked: true,
+    });
+    if (!entry) break;
     const member = await Member.findByPk(entry.memberId, { transaction });
     if (!member || !member.active) {
       await entry.update({ status: 'removed', removedReason: 'Account closed or switched off.' }, { transaction });
@@ -149,7 +165,10 @@ export async function offerToNextInLine(ctx: AppContext, bundleId: string, trans
     }
     const eligibility = await eligibilityOf(member, guild, now, transaction);
     if (!eligibility.eligible) {
-      await entry.update({ status: 'removed', removedReason: 'No longer eligible for a starter bundle.' }, { transaction });
+      const reason = ineligibleReason(eligibility, guild);
+      await entry.update({ status: 'removed', removedReason: reason }, { transaction });
+      const mail = starterWaitlistRemoved({ guildName: guild.name, name: member.name, reason, link: `${ctx.config.appUrl}/starter`, byLibrarian: false });
+      await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
       continue;
     }
     const offer = await WaitlistOffer.create(
@@ -163,9 +182,10 @@ export async function offerToNextInLine(ctx: AppContext, bundleId: string, trans
       name: member.name,
       title: bundle.title,
       link: `${ctx.config.appUrl}/starter/offers/${offer.id}`,
-      deadline: formatWhen(offer.expiresAt, guildTimeZone(guild)),
+      deadline: formatWhen(offer.expiresAt, timeZone),
     });
-    await ctx.queue.enqueueEmail({ to: member.email, kind: 'starter', ...mail }, transaction);
+    // Not an optional kind: the bundle is held for them, and not answering takes them off the list.
+    await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
     return offer;
   }
   if (bundle.state === 'held') await bundle.update({ state: 'on_shelf' }, { transaction });
@@ -209,19 +229,101 @@ export async function declineOffer(ctx: AppContext, memberId: string, offerId: s
   });
 }
 
-/** Scheduled: offers past their deadline lapse and pass to the next person in line. */
+/** Scheduled: offers past their deadline lapse and pass to the next person in line; the member is told they left the list. */
 export async function lapseOffers(ctx: AppContext): Promise<number> {
+  const guild = await loadGuild();
   const due = await WaitlistOffer.findAll({ where: { status: 'open', expiresAt: { [Op.lte]: ctx.now() } }, limit: 200 });
   for (const stale of due) {
     await ctx.sequelize.transaction(async (transaction) => {
       const offer = (await WaitlistOffer.findByPk(stale.id, { transaction, lock: transaction.LOCK.UPDATE }))!;
       if (offer.status !== 'open') return;
       await offer.update({ status: 'lapsed', answeredAt: ctx.now() }, { transaction });
-      await WaitlistEntry.update({ status: 'lapsed' }, { where: { id: offer.entryId }, transaction });
+      const entry = (await WaitlistEntry.findByPk(offer.entryId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+      const wasWaiting = entry.status === 'offered';
+      await entry.update({ status: 'lapsed' }, { transaction });
+      const member = await Member.findByPk(entry.memberId, { transaction });
+      const bundle = await Bundle.findByPk(offer.bundleId, { transaction });
+      if (wasWaiting && member?.active) {
+        const mail = starterOfferLapsed({ guildName: guild.name, name: member.name, title: bundle?.title ?? 'A starter bundle', link: `${ctx.config.appUrl}/starter` });
+        await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
+      }
       await offerToNextInLine(ctx, offer.bundleId, transaction);
     });
   }
   return due.length;
+}
+
+/**
+ * Scheduled: once half the time to answer has gone, one reminder per open offer. The reminder is
+ * recorded on the offer's row by the same UPDATE that picks it (which locks the row), so two API
+ * processes running this at once never send it twice, and a rolled-back run sends none.
+ */
+export async function remindOpenOffers(ctx: AppContext): Promise<number> {
+  const guild = await loadGuild();
+  const now = ctx.now();
+  return ctx.sequelize.transaction(async (transaction) => {
+    const due = await ctx.sequelize.query<{ id: string; expires_at: Date; title: string; name: string; email: string }>(
+      `UPDATE waitlist_offers o SET reminder_sent_at = $1, updated_at = $1
+       FROM waitlist_entries e, members m, bundles b
+       WHERE o.id IN (
+               SELECT id FROM waitlist_offers
+               WHERE status = 'open' AND reminder_sent_at IS NULL AND expires_at > $1
+                 AND offered_at + (expires_at - offered_at) / 2 <= $1
+               ORDER BY expires_at LIMIT 200)
+         AND o.status = 'open' AND o.reminder_sent_at IS NULL
+         AND e.id = o.entry_id AND m.id = e.member_id AND m.active AND b.id = o.bundle_id
+       RETURNING o.id, o.expires_at, b.title, m.name, m.email`,
+      { bind: [now], type: QueryTypes.SELECT, transaction },
+    );
+    for (const row of due) {
+      const mail = starterOfferReminder({
+        guildName: guild.name,
+        name: row.name,
+        title: row.title,
+        link: `${ctx.config.appUrl}/starter/offers/${row.id}`,
+        deadline: formatWhen(new Date(row.expires_at), guildTimeZone(guild)),
+      });
+      // The offer itself always went; this nudge is the one the member may turn off.
+      await ctx.queue.enqueueEmail({ to: row.email, kind: 'starter', ...mail }, transaction);
+    }
+    return due.length;
+  });
+}
+
+/**
+ * Claims made while no meeting was set (not posted, not handed over) go to the next coming
+ * meeting, and the new quilter and the donor are told. Called in the transaction that creates a
+ * meeting, and on a schedule for a claim that committed just as a meeting was being created.
+ * The UPDATE takes each claim's row lock and re-checks `meeting_id IS NULL`, so a claim is
+ * placed, and its e-mails queued, exactly once however many processes run this.
+ */
+export async function placeUnplacedClaims(ctx: AppContext, transaction?: Transaction): Promise<number> {
+  if (!transaction) return ctx.sequelize.transaction((t) => placeUnplacedClaims(ctx, t));
+  const meeting = await nextMeeting(ctx.now(), transaction);
+  if (!meeting) return 0;
+  const guild = await loadGuild();
+  const placed = await ctx.sequelize.query<{ bundle_id: string; member_id: string }>(
+    `UPDATE starter_claims SET meeting_id = $1, updated_at = $2
+     WHERE state = 'claimed' AND meeting_id IS NULL AND order_id IS NULL
+     RETURNING bundle_id, member_id`,
+    { bind: [meeting.id, ctx.now()], type: QueryTypes.SELECT, transaction },
+  );
+  const label = meetingLabel(meeting, guildTimeZone(guild));
+  const link = `${ctx.config.appUrl}/starter`;
+  for (const claim of placed) {
+    const collector = await Member.findByPk(claim.member_id, { transaction });
+    const bundle = await Bundle.findByPk(claim.bundle_id, { include: [{ association: 'seller' }], transaction });
+    const title = bundle?.title ?? 'Your starter bundle';
+    for (const [person, role] of [
+      [collector, 'collect'],
+      [bundle?.seller, 'bring'],
+    ] as const) {
+      if (!person?.active) continue;
+      const mail = starterMeetingSet({ guildName: guild.name, name: person.name, title, meeting: label, role, link: role === 'collect' ? link : ctx.config.appUrl });
+      await ctx.queue.enqueueEmail({ to: person.email, ...mail }, transaction);
+    }
+  }
+  return placed.length;
 }
 
 /** Leaving (by the member) or removal (by the librarian, with a reason): an open offer passes to the next person. */
@@ -233,6 +335,14 @@ export async function leaveWaitlist(ctx: AppContext, memberId: string, removal?:
     if (!entry || !['waiting', 'offered'].includes(entry.status)) throw notFound('A place on the waiting list');
     if (removal) authorize(removal.by, 'starter.manage');
     await entry.update(removal ? { status: 'removed', removedReason: removal.reason } : { status: 'left' }, { transaction });
+    if (removal) {
+      const guild = await loadGuild();
+      const member = await Member.findByPk(entry.memberId, { transaction });
+      if (member?.active) {
+        const mail = starterWaitlistRemoved({ guildName: guild.name, name: member.name, reason: removal.reason, link: `${ctx.config.appUrl}/starter`, byLibrarian: true });
+        await ctx.queue.enqueueEmail({ to: member.email, ...mail }, transaction);
+      }
+    }
     const offer = await WaitlistOffer.findOne({ where: { entryId: entry.id, status: 'open' }, transaction, lock: transaction.LOCK.UPDATE });
     if (offer) {
       await offer.update({ status: 'withdrawn', answeredAt: ctx.now() }, { transaction });

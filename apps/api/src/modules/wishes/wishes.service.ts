@@ -4,9 +4,17 @@ import { badRequest, notFound } from '../../errors/index.ts';
 
 export const MAX_WISHES_PER_MEMBER = 20;
 
+/** One member to tell about a bundle, with every wish of theirs it matches, by name. */
+export interface WishMatch {
+  member_name: string;
+  member_email: string;
+  wish_names: string[];
+}
+
 /**
  * Records a notification for every wish the bundle ($1) matches and returns the ones not
- * notified before, so each wish hears about a bundle once. Filters mirror the shelf's.
+ * notified before, one row per member, so each wish hears about a bundle once and each
+ * member gets one e-mail however many of their wishes match. Filters mirror the shelf's.
  */
 export const WISH_MATCH_SQL = `
   WITH matched AS (
@@ -29,8 +37,9 @@ export const WISH_MATCH_SQL = `
     ON CONFLICT DO NOTHING
     RETURNING wish_id
   )
-  SELECT w.name AS wish_name, m.name AS member_name, m.email AS member_email
-  FROM matched JOIN wishes w ON w.id = matched.wish_id JOIN members m ON m.id = w.member_id`;
+  SELECT m.name AS member_name, m.email AS member_email, array_agg(w.name ORDER BY w.name, w.id) AS wish_names
+  FROM matched JOIN wishes w ON w.id = matched.wish_id JOIN members m ON m.id = w.member_id
+  GROUP BY m.id, m.name, m.email`;
 
 export async function listWishes(member: Member): Promise<Wish[]> {
   return Wish.findAll({ where: { memberId: member.id }, order: [['createdAt', 'DESC']] });

@@ -1,4 +1,4 @@
-import { formatMoney, LISTING_OFFERS, OFFER_LABELS, parseMoneyToMinor } from '@scrap-relay/shared';
+import { formatMoney, LISTING_OFFERS, minimumCardChargeMinor, OFFER_LABELS, parseMoneyToMinor } from '@scrap-relay/shared';
 import { get, useFormContext, useFormState, useWatch, type FieldError as HookFieldError } from 'react-hook-form';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { FieldError } from '../../../components/ui/field.tsx';
@@ -47,7 +47,7 @@ export function OfferStep() {
           <TextField
             name="priceText"
             label={`Price for one pack (${currency})`}
-            hint="What the buyer pays for the fabric; postage is added at checkout."
+            hint={`What the buyer pays for the fabric; postage is added at checkout.${minimumCardChargeMinor(currency) > 0 ? ` At least ${formatMoney(minimumCardChargeMinor(currency), currency)}, the least a card payment can be.` : ''}`}
             inputMode="decimal"
             autoComplete="off"
             className="max-w-md"

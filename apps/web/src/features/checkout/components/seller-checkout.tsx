@@ -1,4 +1,5 @@
 import {
+  allowsFulfilment,
   formatMoney,
   orderCreateSchema,
   postalAddressSchema,
@@ -28,7 +29,6 @@ import { usePlaceOrder, type PlacedOrder } from '../api/place-order.ts';
 import { useDebouncedValue } from '../hooks/use-debounced-value.ts';
 import { addressFormValues } from '../../../utils/address-defaults.ts';
 import {
-  allowsFulfilment,
   fulfilmentPlans,
   itemsSubtotalMinor,
   orderItemsOf,

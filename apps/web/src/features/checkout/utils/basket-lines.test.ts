@@ -1,7 +1,6 @@
-import type { BundleView } from '@scrap-relay/shared';
+import { allowsFulfilment, type BundleView } from '@scrap-relay/shared';
 import { describe, expect, it } from 'vitest';
 import {
-  allowsFulfilment,
   fulfilmentPlans,
   groupBySeller,
   itemsSubtotalMinor,
@@ -78,14 +77,6 @@ describe('orders per seller and how they travel', () => {
     expect(review.lines.map((l) => l.bundleId)).toEqual(['s']);
     expect(allowsFulfilment(claimable, 'post')).toBe(true);
     expect(allowsFulfilment(claimable, 'meeting')).toBe(false);
-  });
-
-  it('follows the offer: sales and postage-only gifts post, meeting gifts and willing sales meet', () => {
-    expect(allowsFulfilment({ offer: 'sale', meetingHandoverOk: false }, 'post')).toBe(true);
-    expect(allowsFulfilment({ offer: 'sale', meetingHandoverOk: false }, 'meeting')).toBe(false);
-    expect(allowsFulfilment({ offer: 'sale', meetingHandoverOk: true }, 'meeting')).toBe(true);
-    expect(allowsFulfilment({ offer: 'postage_only', meetingHandoverOk: false }, 'meeting')).toBe(false);
-    expect(allowsFulfilment({ offer: 'meeting', meetingHandoverOk: false }, 'post')).toBe(false);
   });
 
   it('offers each way with what it would include, preferring post when everything can be posted', () => {

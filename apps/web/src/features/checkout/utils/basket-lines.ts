@@ -1,4 +1,4 @@
-import type { BundleView, Fulfilment, SellerSummary } from '@scrap-relay/shared';
+import { allowsFulfilment, type BundleView, type Fulfilment, type SellerSummary } from '@scrap-relay/shared';
 import type { BasketItem } from '../../../lib/basket-store.ts';
 
 /**
@@ -78,16 +78,6 @@ export function reviewBasket(items: readonly BasketItem[], lookups: ReadonlyMap<
     }
   }
   return review;
-}
-
-/**
- * How each offer may change hands (the API's rule): sales, postage-only gifts and starter bundles the guild
- * posts go by post; meeting gifts, and sales that allow it, at a meeting (starter claims for a meeting are
- * made on the starter page).
- */
-export function allowsFulfilment(bundle: Pick<BundleView, 'offer' | 'meetingHandoverOk'>, fulfilment: Fulfilment): boolean {
-  if (fulfilment === 'post') return bundle.offer === 'sale' || bundle.offer === 'postage_only' || bundle.offer === 'starter';
-  return bundle.offer === 'meeting' || (bundle.offer === 'sale' && bundle.meetingHandoverOk);
 }
 
 export interface SellerGroup {

@@ -28,6 +28,7 @@ export function MeetingForm({ meeting, submitLabel, onSubmit, onCancel }: Meetin
         <TextField name="place" label="Place" hint="Where members bring and collect bundles." autoComplete="off" required />
       </div>
       <NotesField />
+      {meeting ? <p className="text-thread-soft">Members who bring or collect a bundle at this meeting get an e-mail when you change its date, time or place.</p> : null}
       <div className="flex flex-wrap gap-3">
         <SubmitButton pendingLabel="Saving…">{submitLabel}</SubmitButton>
         {onCancel ? (

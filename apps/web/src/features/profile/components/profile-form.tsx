@@ -51,7 +51,7 @@ export function ProfileForm({ profile, currentUnits, onSaved }: ProfileFormProps
       </div>
       <FieldGroup
         legend="E-mails you receive"
-        description="E-mails about money (sales, payments, refunds and payouts) and about your account’s security (confirming your address, resetting your password) are always sent."
+        description="Some e-mails are always sent: about money (sales, payments, refunds and payouts), your account’s security (confirming your address, resetting your password), your own bundles coming off the shelf, starter-bundle offers held for you, and a change to a meeting where you hand over or collect."
       >
         {OPTIONAL_EMAIL_KINDS.map((kind) => (
           <CheckboxField key={kind} name={`emailPreferences.${kind}`} label={EMAIL_KIND_LABELS[kind]} />

@@ -5,14 +5,14 @@ import { useMeetings } from '../../../lib/meetings.ts';
 
 /**
  * Where the member will collect: one of the coming meetings. Left empty, the API
- * picks the next one (or, with none set, the librarian arranges it).
+ * picks the next one (or, with none set, the next one the guild sets).
  */
 export function MeetingChoice({ value, onChange, error }: { value: string; onChange: (meetingId: string) => void; error?: string | undefined }) {
   const meetings = useMeetings('upcoming');
   if (meetings.isPending) return <Loading label="Loading the coming meetings…" />;
   const items: MeetingView[] = meetings.data?.items ?? [];
   if (items.length === 0) {
-    return <p>No guild meeting is set yet. The librarian will tell you when and where to collect it.</p>;
+    return <p>No guild meeting is set yet. You can still claim it: it is held for you, and we will e-mail you the date and place as soon as the guild sets its next meeting.</p>;
   }
   return (
     <MeetingSelect

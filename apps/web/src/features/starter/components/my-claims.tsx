@@ -25,7 +25,7 @@ export function MyClaims({ claims }: { claims: StarterClaimSummary[] }) {
               <p>
                 {claim.meeting
                   ? `Collect it at the meeting on ${formatDateTime(claim.meeting.startsAt)}, ${claim.meeting.place}.`
-                  : 'The librarian will tell you when and where to collect it.'}
+                  : 'No guild meeting is set yet: it is held for you, and we will e-mail you the date and place as soon as the guild sets its next meeting.'}
               </p>
             ) : null}
           </li>

@@ -16,10 +16,12 @@ export function ProgrammeExplainer({ rules }: { rules?: StarterStatus['rules'] }
         </li>
         <li>
           <strong>A waiting list when none is free.</strong> The next starter bundle goes to whoever has waited longest. You get an e-mail and{' '}
-          {rules ? `${rules.offerHours} hours` : 'a few days'} to accept it or pass it on.
+          {rules ? `${rules.offerHours} hours` : 'a few days'} to accept it or pass it on; with no answer by then it goes to the next person and you
+          leave the list (you can join again).
         </li>
         <li>
-          <strong>Collected at a guild meeting.</strong> Choose the meeting when you claim; the librarian hands it over at the door.
+          <strong>Collected at a guild meeting.</strong> Choose the meeting when you claim; the librarian hands it over at the door. If no meeting is set
+          yet, it is held for you and we e-mail you the date and place once the guild sets one.
         </li>
       </ul>
     </Panel>

@@ -67,7 +67,7 @@ function OpenOffer({ offer, units, onAnswered }: { offer: StarterOfferSummary; u
     <>
       <Alert tone="warning" title={`Please answer by ${formatDateTime(offer.expiresAt)}`} announce={false}>
         <p>
-          {timeLeftText(offer.expiresAt) ?? 'No time'} left. If you do not answer in time, it goes to the next person waiting.
+          {timeLeftText(offer.expiresAt) ?? 'No time'} left. If you do not answer in time, it goes to the next person waiting and you leave the waiting list.
         </p>
       </Alert>
       <Panel title={offer.title}>
@@ -141,7 +141,7 @@ function AnswerResult({ answer }: { answer: Answer }) {
           <p>
             {meeting
               ? `Collect it at the meeting on ${formatDateTime(meeting.startsAt)}, ${meeting.place}.`
-              : 'The librarian will tell you when and where to collect it.'}{' '}
+              : 'No guild meeting is set yet: it is held for you until the guild sets its next meeting.'}{' '}
             We have sent you an e-mail with the details.
           </p>
         </Alert>

@@ -74,7 +74,7 @@ export function StarterProgramme({ units, runsProgramme, canGive }: StarterProgr
 
           {starter.data.status.offer ? (
             <Alert tone="warning" title={`A starter bundle is waiting for you: “${starter.data.status.offer.title}”`}>
-              <p>Please answer by {formatDateTime(starter.data.status.offer.expiresAt)}; after that it goes to the next person in line.</p>
+              <p>Please answer by {formatDateTime(starter.data.status.offer.expiresAt)}; after that it goes to the next person in line and you leave the waiting list.</p>
               <ButtonLink to={paths.app.starterOffer.getHref(starter.data.status.offer.id)}>Accept it or pass it on</ButtonLink>
             </Alert>
           ) : null}
@@ -106,7 +106,7 @@ export function StarterProgramme({ units, runsProgramme, canGive }: StarterProgr
 function ClaimedWhere({ meetingId, meetings }: { meetingId: string | null; meetings: { id: string; startsAt: string; place: string }[] }) {
   const meeting = meetings.find((m) => m.id === meetingId);
   if (meeting) return <p>Collect it at the meeting on {formatDateTime(meeting.startsAt)}, {meeting.place}. We have sent you an e-mail too.</p>;
-  return <p>The librarian will tell you when and where to collect it. We have sent you an e-mail too.</p>;
+  return <p>No guild meeting is set yet: it is held for you, and we will e-mail you the date and place as soon as the guild sets its next meeting.</p>;
 }
 
 function LibrarianLinks() {

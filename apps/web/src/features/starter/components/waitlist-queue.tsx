@@ -128,8 +128,8 @@ function RemoveDialog({ row, onClose, onRemoved }: { row: WaitlistRow; onClose: 
       onConfirm={confirm}
     >
       <p>
-        They lose their place (number {row.position}).{row.offer ? ' The bundle offered to them goes to the next person in line.' : ''} The reason is
-        kept with the guild’s records.
+        They lose their place (number {row.position}).{row.offer ? ' The bundle offered to them goes to the next person in line.' : ''} They get an
+        e-mail with the reason, and it is kept with the guild’s records.
       </p>
       <FieldShell label="Reason" hint="For example: moved away, asked to be taken off." error={reasonError ?? remove.error?.fields.reason}>
         {(control) => <Input {...control} value={reason} maxLength={300} onChange={(event) => setReason(event.target.value)} />}
