@@ -174,7 +174,12 @@ describe('meeting handover', () => {
     expect(placed.status).toBe(201);
     expect(placed.body).toMatchObject({ checkoutUrl: null, order: { state: 'confirmed', chargeMinor: 0, meeting: { place: 'Millbrook Hall' } } });
     expect((await Bundle.findByPk(bundleId))!.state).toBe('rehomed');
-    await waitForMail({ to: seller.email, subjectIncludes: 'Rehomed' });
+    const sold = await waitForMail({ to: seller.email, subjectIncludes: `Rehomed: order ${placed.body.order.reference}` });
+    // A gift handed over in person: no money, no address, no parcel.
+    expect(sold.text).toContain('It is a gift: nothing was paid.');
+    expect(sold.text).toContain('Please bring it to the meeting');
+    expect(sold.text).toContain(`Write ${placed.body.order.reference} and Pearl Dunmore's name on the bag`);
+    expect(sold.text).not.toMatch(/address|parcel|packing slip/i);
   });
 
   it('refuses a meeting in the past and a bundle that is not offered for meetings', async () => {

@@ -27,14 +27,18 @@ export function orderSoldToSeller(
   const money = p.paid
     ? `${p.buyerName} paid ${p.paid}.${p.share ? ` Your share is ${p.share}${p.postageIncluded ? ', postage included' : ''}; the guild's treasurer pays it out.` : ''}`
     : 'It is a gift: nothing was paid.';
-  const label = `Write ${p.reference} on the parcel or bag, so it can be matched to the order.`;
+  const label = p.address
+    ? `Write ${p.reference} on the parcel, so it can be matched to the order.`
+    : `Write ${p.reference} and ${p.buyerName}'s name on the bag, so it can be matched to the order at the meeting.`;
+  const linkText = p.address ? 'Open the order and packing slip' : 'Open the order';
+  const privacy = p.address ? 'Keep the address to yourself and use it only for this parcel.' : '';
   return layout({
     guildName: p.guildName,
     subject: `Rehomed: order ${p.reference} from ${p.buyerName}`,
-    text: `Hello ${p.name},\n\n${p.buyerName} took:\n${p.titles.map((t) => `- ${t}`).join('\n')}\n\n${money}\n\n${where}\n\n${label}\n\nPacking slip and order: ${p.link}\n\nKeep the address to yourself and use it only for this parcel.`,
+    text: `Hello ${p.name},\n\n${p.buyerName} took:\n${p.titles.map((t) => `- ${t}`).join('\n')}\n\n${money}\n\n${where}\n\n${label}\n\n${p.address ? 'Packing slip and order' : 'The order'}: ${p.link}${privacy ? `\n\n${privacy}` : ''}`,
     bodyHtml: html`<p>Hello ${p.name},</p><p><strong>${p.buyerName}</strong> took:</p>${list(p.titles)}<p>${money}</p>
 ${p.address ? html`<p>Please post it to:</p><p style="white-space:pre-line;padding:12px 16px;background:#f6f1e7">${addressLines(p.address).join('\n')}</p>` : html`<p>Please bring it to the meeting: <strong>${p.meeting ?? ''}</strong></p>`}
-<p>${label}</p>${button(p.link, 'Open the order and packing slip')}<p style="font-size:15px">Keep the address to yourself and use it only for this parcel.</p>`,
+<p>${label}</p>${button(p.link, linkText)}${privacy ? html`<p style="font-size:15px">${privacy}</p>` : ''}`,
   });
 }
 
@@ -112,8 +116,9 @@ export function orderRefunded(p: Base & { refunded: string }): RenderedEmail {
  * `share`: this order's amount the guild owed the seller, now taken back (null for a gift); `owing`: what the
  * seller owes the guild after it, when earlier payouts had already paid it out (null when nothing is owed).
  */
-export function orderRefundedToSeller(p: Base & { refunded: string; share: string | null; owing: string | null }): RenderedEmail {
+export function orderRefundedToSeller(p: Base & { refunded: string; share: string | null; owing: string | null; notYetPosted: boolean }): RenderedEmail {
   const money = [
+    p.notYetPosted ? 'Please do not post it; the bundles are back on the shelf, unless you had withdrawn them.' : '',
     p.share ? `Your share of ${p.share} for it is taken off what the guild owes you.` : '',
     p.owing ? `It had already been paid out to you, so you now owe the guild ${p.owing}; the treasurer will be in touch.` : '',
   ]

@@ -1,4 +1,4 @@
-import { formatMoney, formatWeight, type PostageQuoteView, type UnitSystem } from '@scrap-relay/shared';
+import { formatMoney, formatPostalWeight, type PostageQuoteView, type UnitSystem } from '@scrap-relay/shared';
 import { cn } from '../utils/cn.ts';
 
 /** The quote in a few lines, with the full working in a disclosure for anyone who wants to check it. */
@@ -14,7 +14,7 @@ export function PostageQuoteSummary({ quote, units }: { quote: PostageQuoteView;
               {parcel.packageName}
             </span>
             {' — '}
-            {formatWeight(parcel.contentGrams, units)} of fabric, billed as {formatWeight(parcel.billableGrams, units)}: {money(parcel.priceMinor)}
+            {formatPostalWeight(parcel.contentGrams, units)} of fabric, billed as {formatPostalWeight(parcel.billableGrams, units, 'up')}: {money(parcel.priceMinor)}
           </li>
         ))}
         {quote.handlingMinor > 0 ? <li>Packing and handling: {money(quote.handlingMinor)}</li> : null}

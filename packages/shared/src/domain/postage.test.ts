@@ -11,7 +11,7 @@ import {
   quotePostage,
   roundUpToWholePounds,
 } from './postage.ts';
-import { GRAMS_PER_OUNCE, formatWeight } from './units.ts';
+import { GRAMS_PER_OUNCE, formatPostalWeight } from './units.ts';
 
 const USPS_2019: DimensionalRule = { divisorCubicInchesPerPound: 166, thresholdCubicInches: 1728, roundEachDimensionUp: false };
 const PRIVATE_CARRIER: DimensionalRule = { divisorCubicInchesPerPound: 139, thresholdCubicInches: 0, roundEachDimensionUp: false };
@@ -211,7 +211,7 @@ describe('quotePostage (hand-worked invented table)', () => {
       return result.ok ? '' : result.error.message;
     };
     expect(refused(true)).toMatch(/Choose handover at a meeting instead\.$/);
-    expect(refused(false)).toMatch(/goes by post only: ask the seller/);
+    expect(refused(false)).toMatch(/goes by post only: ask the seller whether it can be sent as two smaller bundles/);
     expect(refused(false)).not.toMatch(/meeting/);
   });
 
@@ -288,7 +288,7 @@ describe('the working for a reader who uses pounds and ounces', () => {
     expect(imperial.totalMinor).toBe(metric.totalMinor);
     const billable = imperial.parcels[0]!.billableGrams;
     const text = imperial.explanation.join('\n');
-    expect(text).toContain(`billable ${billable.toLocaleString('en-US')} g (${formatWeight(billable, 'imperial')})`);
+    expect(text).toContain(`billable ${billable.toLocaleString('en-US')} g (${formatPostalWeight(billable, 'imperial', 'up')})`);
     expect(text).toContain('400 g'); // the content, still in grams, so the sums add up
     expect(metric.explanation.join('\n')).not.toContain(' oz');
   });

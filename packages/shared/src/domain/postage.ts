@@ -23,7 +23,7 @@
  * 6. Total = sum of parcel prices + handling (once per quote).
  */
 import type { UnitSystem } from '../schemas/members.ts';
-import { GRAMS_PER_POUND, formatMoney, formatWeight } from './units.ts';
+import { GRAMS_PER_POUND, formatMoney, formatPostalWeight } from './units.ts';
 
 export interface DimensionalRule {
   divisorCubicInchesPerPound: number;
@@ -203,8 +203,10 @@ export function matchZone(zones: readonly PostageZone[], postalCode: string): { 
 const decimal = (n: number): string => n.toLocaleString('en-US', { maximumFractionDigits: 2 });
 const grams = (g: number): string => `${decimal(g)} g`;
 /** Grams, with pounds and ounces beside them for a reader who uses them. */
-const gramsFor = (units: UnitSystem | undefined) => (g: number): string =>
-  units === 'imperial' ? `${grams(g)} (${formatWeight(g, 'imperial')})` : grams(g);
+const gramsFor =
+  (units: UnitSystem | undefined, round: 'up' | 'nearest' = 'nearest') =>
+  (g: number): string =>
+    units === 'imperial' ? `${grams(g)} (${formatPostalWeight(g, 'imperial', round)})` : grams(g);
 const volumeOf = (p: PackagingPreset): number => p.innerMm[0] * p.innerMm[1] * p.innerMm[2];
 
 interface Unit {
@@ -226,9 +228,13 @@ function expandUnits(items: readonly PostageItem[]): Unit[] {
 }
 
 /** What a refused quote suggests instead, from whether the bundles it refused may change hands at a meeting. */
-function otherWay(units: readonly Unit[]): string {
+function otherWay(units: readonly Unit[], why: 'too_heavy' | 'abroad'): string {
   if (units.every((u) => u.meetingHandover === true)) return 'Choose handover at a meeting instead.';
-  if (units.every((u) => u.meetingHandover === false)) return 'It goes by post only: ask the seller whether it can be split or passed on another way.';
+  if (units.every((u) => u.meetingHandover === false)) {
+    return why === 'too_heavy'
+      ? 'It goes by post only: ask the seller whether it can be sent as two smaller bundles.'
+      : 'It goes by post only: ask the seller whether it can be passed on another way.';
+  }
   return 'Choose handover at a meeting where the bundle offers it, or ask the seller.';
 }
 
@@ -269,12 +275,13 @@ export function quotePostage(input: PostageQuoteInput): PostageResult {
   const { table } = input;
   const money = (minor: number) => formatMoney(minor, input.currency ?? 'USD', input.locale ?? 'en-US');
   const weight = gramsFor(input.units);
+  const billedWeight = gramsFor(input.units, 'up');
   const units = expandUnits(input.items);
   if (units.length === 0) return fail('nothing_to_post', 'There is nothing to post.');
   const covered = table.countries ?? [];
   const country = input.country?.trim().toUpperCase();
   if (country !== undefined && covered.length > 0 && !covered.includes(country)) {
-    return fail('country_not_covered', `The guild's postage table has rates for ${covered.join(', ')} only, not ${country}. ${otherWay(units)}`);
+    return fail('country_not_covered', `The guild's postage table has rates for ${covered.join(', ')} only, not ${country}. ${otherWay(units, 'abroad')}`);
   }
 
   const matched = matchZone(table.zones, input.postalCode);
@@ -291,7 +298,7 @@ export function quotePostage(input: PostageQuoteInput): PostageResult {
       ok: false,
       error: {
         code: 'too_heavy',
-        message: `“${heaviest.ref}” weighs ${weight(heaviest.grams)}; the largest package (${largest.name}) holds ${weight(maxContentGrams)}. ${otherWay([heaviest])}`,
+        message: `“${heaviest.ref}” weighs ${weight(heaviest.grams)}; the largest package (${largest.name}) holds ${weight(maxContentGrams)}. ${otherWay([heaviest], 'too_heavy')}`,
         ref: heaviest.ref,
         grams: heaviest.grams,
         maxContentGrams,
@@ -316,7 +323,7 @@ export function quotePostage(input: PostageQuoteInput): PostageResult {
     const candidates = table.packaging
       .filter((p) => contentGrams + p.tareGrams <= p.maxGrams)
       .map((p) => priceCandidate(p, contentGrams, zoneBands, table.dimensional));
-    for (const c of candidates) explanation.push(`  ${describeCandidate(c, contentGrams, zone, table.dimensional, money, weight)}`);
+    for (const c of candidates) explanation.push(`  ${describeCandidate(c, contentGrams, zone, table.dimensional, money, weight, billedWeight)}`);
 
     const chosen = candidates
       .filter((c): c is Candidate & { priceMinor: number } => c.priceMinor !== null)
@@ -369,6 +376,7 @@ function describeCandidate(
   rule: DimensionalRule,
   money: (minor: number) => string,
   weight: (g: number) => string,
+  billedWeight: (g: number) => string,
 ): string {
   const name = c.preset.name;
   if (c.preset.flatPriceMinor !== null) return `${name}: flat price ${money(c.preset.flatPriceMinor)}.`;
@@ -380,7 +388,7 @@ function describeCandidate(
       `dimensional ${d.dimensionsIn.map(decimal).join(' × ')} in = ${decimal(d.volumeCubicInches)} in³ ÷ ${rule.divisorCubicInchesPerPound} → ${d.pounds} lb = ${grams(d.grams)}`,
     );
   }
-  parts.push(`billable ${weight(c.billableGrams)}`);
+  parts.push(`billable ${billedWeight(c.billableGrams)}`);
   const price = c.band
     ? `zone ${zone} band up to ${weight(c.band.maxGrams)}: ${money(c.band.priceMinor)}.`
     : `no band in zone ${zone} covers it.`;

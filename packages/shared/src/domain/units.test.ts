@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
+  formatPostalWeight,
   GRAMS_PER_OUNCE,
   GRAMS_PER_POUND,
   GSM_PER_OZ_PER_SQ_YD,
@@ -161,6 +162,22 @@ describe('formatting', () => {
     expect(formatWeight(1200, 'metric')).toBe('1.2 kg');
     expect(formatWeight(1250, 'metric')).toBe('1.3 kg'); // half up
     expect(formatWeight(2000, 'metric')).toBe('2 kg');
+  });
+});
+
+describe('postal weights (1 oz = 28.349523125 g exactly, 1959 international yard and pound; rounding up for billing is a design choice)', () => {
+  it('gives ounces to a tenth, rounding a billed weight up so it never reads lighter than its band', () => {
+    expect(formatPostalWeight(215, 'imperial')).toBe('7.6 oz'); // 7.584 oz
+    expect(formatPostalWeight(230, 'imperial', 'up')).toBe('8.2 oz'); // 8.113 oz
+    expect(formatPostalWeight(230, 'imperial')).toBe('8.1 oz');
+    expect(formatPostalWeight(227, 'imperial', 'up')).toBe('8.1 oz'); // 8.007 oz: just over an 8 oz band
+  });
+  it('gives pounds and ounces from a pound up, and whole grams for metric', () => {
+    expect(formatPostalWeight(454, 'imperial')).toBe('1 lb'); // 16.014 oz
+    expect(formatPostalWeight(454, 'imperial', 'up')).toBe('1 lb 0.1 oz');
+    expect(formatPostalWeight(1000, 'imperial')).toBe('2 lb 3.3 oz'); // 35.274 oz
+    expect(formatPostalWeight(1000, 'metric')).toBe('1,000 g');
+    expect(formatPostalWeight(229.4, 'metric', 'up')).toBe('230 g');
   });
 });
 

@@ -262,6 +262,23 @@ export function formatWeight(grams: number, system: UnitSystem): string {
   return rest === 0 ? `${pounds} lb` : `${pounds} lb ${rest} oz`;
 }
 
+/**
+ * A postage weight: ounces to a tenth (pounds and ounces from a pound up), or whole grams. A weight the
+ * carrier bills by is rounded `up`, so "billed as" never reads lighter than the band it falls in
+ * (230 g is 8.2 oz up, where the nearest whole ounce would say 8 oz and look like the 8 oz band).
+ */
+export function formatPostalWeight(grams: number, system: UnitSystem, round: 'up' | 'nearest' = 'nearest'): string {
+  const g = numberRatio(grams);
+  const toInteger = (r: Ratio) => (round === 'up' ? Number((r.num + r.den - 1n) / r.den) : roundRatio(r));
+  if (system === 'metric') return `${toInteger(g).toLocaleString('en-US')} g`;
+  const tenths = toInteger(times(g, ratio(10n * GRAMS_PER_UNIT.oz.den, GRAMS_PER_UNIT.oz.num)));
+  const poundTenths = OUNCES_PER_POUND * 10;
+  if (tenths < poundTenths) return `${trimDecimal(tenths, 1)} oz`;
+  const pounds = Math.floor(tenths / poundTenths);
+  const rest = tenths % poundTenths;
+  return rest === 0 ? `${pounds} lb` : `${pounds} lb ${trimDecimal(rest, 1)} oz`;
+}
+
 /* ---------- money ---------- */
 
 /** ISO 4217 minor units of the guild currencies we list; others are asked of Intl. */

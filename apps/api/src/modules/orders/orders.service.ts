@@ -411,8 +411,11 @@ async function refundPayment(ctx: AppContext, order: Order) {
       throw serviceUnavailable('The card payment service is not answering just now, so nothing was changed. Please try again in a few minutes.');
     }
     if (err instanceof Stripe.errors.StripeError && err.code === 'charge_already_refunded' && (await refundedSoFar(ctx, paymentIntent)) >= order.chargeMinor) return;
-    const reason = err instanceof Stripe.errors.StripeError ? err.message : 'no reason given';
-    throw conflict(`The card payment service refused the refund, so nothing was changed: ${reason}`, { order: 'Not refunded.' });
+    const reason = err instanceof Stripe.errors.StripeError ? err.message : 'it gave no reason';
+    throw conflict(
+      `The card payment service refused the refund, so nothing was changed here. Look the payment up in the card service's own dashboard (order ${order.reference}); it may have been refunded or disputed there already. The service said: ${reason}`,
+      { order: 'Not refunded.' },
+    );
   }
 }
 
@@ -557,7 +560,7 @@ export async function refundOrder(ctx: AppContext, actor: Actor, orderId: string
       const base = { guildName: guild.name, name, reference: order.reference, titles, link, refunded };
       if (side === 'buyer') return orderRefunded(base);
       const balance = await sellerBalance(order.sellerId, transaction);
-      return orderRefundedToSeller({ ...base, share: money(order.sellerCreditMinor), owing: money(-balance) });
+      return orderRefundedToSeller({ ...base, share: money(order.sellerCreditMinor), owing: money(-balance), notYetPosted: !wasPosted });
     });
     return order;
   });
