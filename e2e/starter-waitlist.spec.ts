@@ -146,7 +146,7 @@ test('a new quilter waits, is offered a donated starter bundle, accepts it, and 
   const bundleId = await donateStarterBundle(ruth, title);
   await lena.goto(paths.app.reviewBundle.getHref(bundleId));
   await expect(lena.getByRole('heading', { level: 1, name: `Review: ${title}` })).toBeVisible();
-  await lena.getByRole('button', { name: 'Approve: put it on the shelf' }).click();
+  await lena.getByRole('button', { name: 'Approve: offer it to new quilters' }).click();
   await expect(lena).toHaveURL((url) => url.pathname === paths.app.review.path);
 
   const offerMail = await latestMailTo(NELL.email, `A starter bundle is waiting for you: ${title}`);

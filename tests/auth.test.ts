@@ -107,6 +107,12 @@ describe('signing in and out', () => {
     expect(after).not.toEqual(before);
   });
 
+  it('tells every member the guild’s time zone and the countries it posts to, which every screen needs', async () => {
+    const session = await (await signedInClient(api.runtime.app, await createMember())).get('/api/session');
+    expect(session.body.guild).toMatchObject({ timeZone: expect.any(String), postageCountries: expect.any(Array) });
+    expect(() => new Intl.DateTimeFormat('en-US', { timeZone: session.body.guild.timeZone })).not.toThrow();
+  });
+
   it('sends the cookie httpOnly and SameSite=Lax', async () => {
     const res = await new Client(api.runtime.app).agent.get('/api/session');
     const raw = ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('sr.sid='))!;

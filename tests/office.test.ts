@@ -49,6 +49,9 @@ async function paidOrder(bundleId: string) {
   return placed.body.order.id as string;
 }
 
+/** Cents as the CSV exports write them for the test guild's USD (two decimals): 5170 → "51.70", -5 → "-0.05". */
+const csvDollars = (minor: number) => `${minor < 0 ? '-' : ''}${Math.floor(Math.abs(minor) / 100)}.${String(Math.abs(minor) % 100).padStart(2, '0')}`;
+
 const todayFigures = async (client = treasurerClient) => (await client.get(`/api/dashboard?period=custom&from=${today()}&to=${today()}`)).body.figures;
 const statement = async () => (await treasurerClient.get(`/api/reports/statement?month=${thisMonth()}`)).body.statement;
 
@@ -97,8 +100,11 @@ describe('the dashboard and the month-end statement', () => {
     const csv = (await treasurerClient.get(`/api/dashboard.csv?period=custom&from=${today()}&to=${today()}`)).text;
     const csvValue = (name: string) => csv.split('\n').find((line) => line.startsWith(`${name},`))?.split(',')[1];
     expect(Number(csvValue('weight_rehomed_grams'))).toBe(after.weightRehomedGrams);
-    expect(Number(csvValue('funds_raised_minor'))).toBe(after.money.fundsRaisedMinor);
-    expect(Number(csvValue('processing_cost_minor'))).toBe(after.money.processingCostMinor);
+    // Money as dollars and cents (the test guild's USD has two decimals), never as a count of cents a spreadsheet misreads.
+    expect(csvValue('funds_raised_in_currency_units')).toBe(csvDollars(after.money.fundsRaisedMinor));
+    expect(csvValue('processing_cost_in_currency_units')).toBe(csvDollars(after.money.processingCostMinor));
+    expect(csvValue('currency')).toBe('USD');
+    expect(csv).not.toContain('_minor');
 
     const s = await statement();
     expect(s.chargesMinor - statementBefore.chargesMinor).toBe(1930 + 2730);
@@ -124,7 +130,30 @@ describe('the dashboard and the month-end statement', () => {
     const [all] = await api.runtime.ctx.sequelize.query(`SELECT coalesce(sum(amount_minor), 0)::int AS owed FROM ledger_entries WHERE account LIKE 'seller:%'`);
     expect(s.closingBalancesTotalMinor).toBe((all as { owed: number }[])[0]!.owed);
     const csv = (await treasurerClient.get(`/api/reports/statement.csv?month=${thisMonth()}`)).text;
-    expect(csv).toContain(`charges,,${s.chargesMinor}`);
+    const lines = csv.trim().split('\n');
+    expect(lines[0]).toBe('line,seller,amount_in_currency_units,currency');
+    // 5170 cents is written 51.70: the header says the amounts are in the currency's units.
+    expect(lines).toContain(`charges,,${csvDollars(s.chargesMinor)},USD`);
+    expect(lines).toContain(`closing_balances_total,,${csvDollars(s.closingBalancesTotalMinor)},USD`);
+  });
+
+  it('exports the ledger in dollars and cents with the currency, and gives each entry the order it belongs to', async () => {
+    // A sale of 1250 plus postage: the buyers' line is minus the whole charge, the guild's fee (10 %) is 1.25.
+    const id = await shelved({ title: 'Ledger CSV sale', priceMinor: 1250, weightGrams: 454 });
+    const orderId = await paidOrder(id);
+    const order = (await Order.findByPk(orderId))!;
+
+    const json = await treasurerClient.get('/api/ledger?kind=charge');
+    const charge = json.body.items.find((e: { orderReference: string | null }) => e.orderReference === order.reference);
+    expect(charge).toMatchObject({ orderId, account: 'buyer', amountMinor: -order.chargeMinor, currency: 'USD' });
+
+    const csv = await treasurerClient.get('/api/ledger.csv');
+    const lines = csv.text.trim().split('\n');
+    expect(lines[0]).toBe('date,transaction,kind,reverses,account,amount_in_currency_units,currency,order,payout');
+    const ofOrder = lines.filter((line) => line.includes(`,${order.reference},`)).map((line) => line.split(','));
+    expect(ofOrder.find((cells) => cells[2] === 'charge')?.slice(5, 8)).toEqual([csvDollars(-order.chargeMinor), 'USD', order.reference]);
+    expect(ofOrder.find((cells) => cells[2] === 'guild_fee')?.slice(5, 7)).toEqual(['1.25', 'USD']);
+    expect(csv.text).not.toContain(`,${-order.chargeMinor},`);
   });
 
   it('shows members the figures without money, and keeps the statement to officers', async () => {
@@ -232,6 +261,25 @@ describe('the payout e-mail', () => {
 });
 
 describe('wish e-mails', () => {
+  it('refuses a second wish with the same filters, naming them and the wish that has them, and writes nothing', async () => {
+    const wisher = await createMember({ name: 'Ivo Penhale' });
+    const wisherClient = await signedInClient(api.runtime.app, wisher);
+    expect((await wisherClient.send('post', '/api/wishes', { name: 'Dark batik', filters: { fibre: 'batik', value: 'dark' } })).status).toBe(201);
+
+    // The same filters in another order and under another name are still the same wish.
+    const twin = await wisherClient.send('post', '/api/wishes', { name: 'Batik again', filters: { value: 'dark', fibre: 'batik', q: '' } });
+    expect(twin.status).toBe(409);
+    expect(twin.body.error.code).toBe('conflict');
+    expect(twin.body.error.message).toBe('You already have a wish for these filters (Batik, dark): “Dark batik”.');
+    expect(twin.body.error.fields).toEqual({ filters: 'Already saved as your wish “Dark batik”.' });
+    const [rows] = await api.runtime.ctx.sequelize.query('SELECT name FROM wishes WHERE member_id = $1', { bind: [wisher.id] });
+    expect(rows).toEqual([{ name: 'Dark batik' }]);
+
+    // One filter more is another wish; another member may wish for the very same.
+    expect((await wisherClient.send('post', '/api/wishes', { name: 'Dark batik strips', filters: { fibre: 'batik', value: 'dark', cut: 'strips' } })).status).toBe(201);
+    expect((await memberClient.send('post', '/api/wishes', { name: 'Dark batik', filters: { fibre: 'batik', value: 'dark' } })).status).toBe(201);
+  });
+
   it('sends a member one e-mail naming every wish a newly approved bundle matches, with the profile link at the end', async () => {
     const wisher = await createMember({ name: 'Wren Tolley' });
     const wisherClient = await signedInClient(api.runtime.app, wisher);

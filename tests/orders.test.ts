@@ -547,7 +547,7 @@ describe('cancelling, refunds and the treasurer', () => {
     expect(ledger.body.items.every((e: { kind: string }) => e.kind === 'payout')).toBe(true);
     const csv = await treasurerClient.get('/api/ledger.csv');
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
-    expect(csv.text.split('\n')[0]).toBe('date,transaction,kind,reverses,account,amount_minor,currency,order,payout');
+    expect(csv.text.split('\n')[0]).toBe('date,transaction,kind,reverses,account,amount_in_currency_units,currency,order,payout');
     expect((await buyerClient.get('/api/ledger')).status).toBe(403);
   });
 

@@ -1,6 +1,7 @@
 import type { MeetingView } from '@scrap-relay/shared';
 import { FieldShell, Select } from './ui/field.tsx';
 import { meetingLabel } from '../utils/meetings.ts';
+import { useGuildTimeZone } from '../utils/guild-session.ts';
 
 export interface MeetingSelectProps {
   label: string;
@@ -16,7 +17,8 @@ export interface MeetingSelectProps {
 
 /** Choose one of the guild's meetings, named by when and where (in the reader's time zone). */
 export function MeetingSelect({ label, hint, meetings, value, onChange, emptyLabel, error, disabled }: MeetingSelectProps) {
-  const options = [...(emptyLabel ? [{ value: '', label: emptyLabel }] : []), ...meetings.map((m) => ({ value: m.id, label: meetingLabel(m) }))];
+  const timeZone = useGuildTimeZone();
+  const options = [...(emptyLabel ? [{ value: '', label: emptyLabel }] : []), ...meetings.map((m) => ({ value: m.id, label: meetingLabel(m, timeZone) }))];
   return (
     <FieldShell label={label} hint={hint} error={error}>
       {(control) => <Select {...control} options={options} value={value} disabled={disabled} onChange={(event) => onChange(event.target.value)} />}

@@ -18,7 +18,14 @@ export const MEMBER_ABILITIES: UserAbilities = { ...NO_ABILITIES, listBundles: t
 
 export const ADMIN_ABILITIES: UserAbilities = { ...MEMBER_ABILITIES, manageMembers: true, manageSettings: true };
 
-export const testGuild: GuildSummary = { name: 'Larkhollow Quilting Circle', town: 'Larkhollow', currency: 'GBP', defaultUnits: 'metric' };
+export const testGuild: GuildSummary = {
+  name: 'Larkhollow Quilting Circle',
+  town: 'Larkhollow',
+  currency: 'GBP',
+  defaultUnits: 'metric',
+  timeZone: 'Europe/London',
+  postageCountries: ['GB'],
+};
 
 export function makeUser(overrides: Partial<SessionUser> = {}): SessionUser {
   return {

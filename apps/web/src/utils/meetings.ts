@@ -1,49 +1,65 @@
 import type { MeetingView } from '@scrap-relay/shared';
+import { instantOfWallTime, isCalendarWallTime, offsetMinutesAt, shortZoneName, wallTimeAt, type WallTime } from './zoned-time.ts';
 
 /**
- * Dates with times (meetings, offer deadlines, ticks at the door). The API sends
- * instants; people read and type them in their own (the browser's) time zone, so
- * every conversion here goes through that zone.
+ * Dates with times (meetings, offer deadlines, ticks at the door). The API sends instants; people read and
+ * type them in the guild's time zone (the zone its e-mails use, `useGuildTimeZone()`), whatever the device's
+ * clock says, and every time shown names its zone. Without a zone the device's is used, still named.
  */
 
-const whenFormat = new Intl.DateTimeFormat('en', {
-  weekday: 'long',
-  day: 'numeric',
-  month: 'long',
-  year: 'numeric',
-  hour: 'numeric',
-  minute: '2-digit',
-});
+const formats = new Map<string, Intl.DateTimeFormat>();
 
-const shortFormat = new Intl.DateTimeFormat('en', { weekday: 'short', day: 'numeric', month: 'short', hour: 'numeric', minute: '2-digit' });
+const OPTIONS: Record<'full' | 'dated' | 'short', Intl.DateTimeFormatOptions> = {
+  full: { dateStyle: 'full', timeStyle: 'short' },
+  dated: { day: 'numeric', month: 'long', year: 'numeric', hour: 'numeric', minute: '2-digit', timeZoneName: 'short' },
+  short: { weekday: 'short', day: 'numeric', month: 'short', hour: 'numeric', minute: '2-digit', timeZoneName: 'short' },
+};
 
-/** "Thursday, 10 December 2026 at 7:00 PM", in the reader's time zone. */
-export function formatDateTime(iso: string): string {
+function formatIn(kind: keyof typeof OPTIONS, timeZone: string | undefined): Intl.DateTimeFormat {
+  const key = `${kind}:${timeZone ?? ''}`;
+  let format = formats.get(key);
+  if (!format) {
+    format = new Intl.DateTimeFormat('en-US', { ...OPTIONS[kind], ...(timeZone ? { timeZone } : {}) });
+    formats.set(key, format);
+  }
+  return format;
+}
+
+const deviceZone = (): string => Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
+
+/** "Friday, December 11, 2026 at 7:00 PM PST" (the e-mails' wording), in the given zone. */
+export function formatDateTime(iso: string, timeZone?: string): string {
   const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : whenFormat.format(date);
+  if (Number.isNaN(date.getTime())) return iso;
+  return `${formatIn('full', timeZone).format(date)} ${shortZoneName(date, timeZone ?? deviceZone())}`;
 }
 
 /** When a meeting starts, in full (the same wording as any other date and time). */
 export const formatMeetingWhen = formatDateTime;
 
-/** "Thu 10 Dec, 7:00 PM" — for lists and menus where space is short. */
-export function formatShortDateTime(iso: string): string {
+/** "December 11, 2026 at 7:00 PM PST" — when something happened (an order's history). */
+export function formatTimestamp(iso: string, timeZone?: string): string {
   const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : shortFormat.format(date);
+  return Number.isNaN(date.getTime()) ? iso : formatIn('dated', timeZone).format(date);
+}
+
+/** "Fri, Dec 11, 7:00 PM PST" — for lists and menus where space is short. */
+export function formatShortDateTime(iso: string, timeZone?: string): string {
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? iso : formatIn('short', timeZone).format(date);
 }
 
 /** One line naming a meeting: when, then where. */
-export const meetingLabel = (meeting: Pick<MeetingView, 'startsAt' | 'place'>): string =>
-  `${formatShortDateTime(meeting.startsAt)} — ${meeting.place}`;
+export const meetingLabel = (meeting: Pick<MeetingView, 'startsAt' | 'place'>, timeZone?: string): string =>
+  `${formatShortDateTime(meeting.startsAt, timeZone)} — ${meeting.place}`;
 
 const pad = (n: number, width = 2) => String(Math.abs(n)).padStart(width, '0');
 
 /**
- * An instant as ISO 8601 with the zone's offset (2026-12-10T19:00:00+01:00), so the
- * time the member typed is still readable in what is sent. `offsetMinutes` is east of
- * UTC (as in the written offset); by default the browser's for that date (summer time included).
+ * An instant as ISO 8601 with the zone's offset (2026-12-10T19:00:00-08:00), so the time the officer typed
+ * is still readable in what is sent. `offsetMinutes` is east of UTC (as in the written offset).
  */
-export function toIsoWithOffset(date: Date, offsetMinutes = -date.getTimezoneOffset()): string {
+export function toIsoWithOffset(date: Date, offsetMinutes: number): string {
   const local = new Date(date.getTime() + offsetMinutes * 60_000);
   const sign = offsetMinutes < 0 ? '-' : '+';
   const offset = `${sign}${pad(Math.trunc(offsetMinutes / 60))}:${pad(offsetMinutes % 60)}`;
@@ -55,27 +71,38 @@ export function toIsoWithOffset(date: Date, offsetMinutes = -date.getTimezoneOff
 
 const LOCAL_INPUT = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})$/;
 
-/**
- * A datetime-local value ("2026-12-10T19:00", wall-clock time in the browser's zone)
- * as an ISO instant with that zone's offset; null when it is not a complete date and time.
- */
-export function localInputToIso(value: string): string | null {
+/** What a datetime-local input's value says ("2026-12-10T19:00"), or null when it is not a real date and time. */
+export function readLocalInput(value: string): WallTime | null {
   const match = LOCAL_INPUT.exec(value.trim());
   if (!match) return null;
-  const [, y, mo, d, h, mi] = match.map(Number) as [number, number, number, number, number, number];
-  const date = new Date(y, mo - 1, d, h, mi);
-  // new Date rolls 31 February over into March; refuse instead of guessing.
-  if (date.getFullYear() !== y || date.getMonth() !== mo - 1 || date.getDate() !== d) return null;
-  return toIsoWithOffset(date);
+  const [, year, month, day, hour, minute] = match.map(Number) as [number, number, number, number, number, number];
+  const wall = { year, month, day, hour, minute };
+  return isCalendarWallTime(wall) ? wall : null;
 }
 
-/** An ISO instant as the value a datetime-local input shows (wall-clock time in the browser's zone). */
-export function isoToLocalInput(iso: string): string {
+export type LocalInputReading = { ok: true; iso: string } | { ok: false; reason: 'incomplete' | 'skipped' };
+
+/**
+ * A datetime-local value, read as wall-clock time in `timeZone`, as an ISO instant with that zone's offset
+ * on that date (summer time included). `skipped`: the clocks go forward past that time on that day, so it
+ * never happens there.
+ */
+export function localInputToIso(value: string, timeZone: string): LocalInputReading {
+  const wall = readLocalInput(value);
+  if (!wall) return { ok: false, reason: 'incomplete' };
+  const instant = instantOfWallTime(wall, timeZone);
+  if (!instant) return { ok: false, reason: 'skipped' };
+  return { ok: true, iso: toIsoWithOffset(instant, offsetMinutesAt(instant, timeZone)) };
+}
+
+/** An ISO instant as the value a datetime-local input shows: wall-clock time in `timeZone`. */
+export function isoToLocalInput(iso: string, timeZone: string): string {
   const date = new Date(iso);
   if (Number.isNaN(date.getTime())) return '';
-  return `${date.getFullYear()}-${pad(date.getMonth() + 1)}-${pad(date.getDate())}T${pad(date.getHours())}:${pad(date.getMinutes())}`;
+  const wall = wallTimeAt(date, timeZone);
+  return `${pad(wall.year, 4)}-${pad(wall.month)}-${pad(wall.day)}T${pad(wall.hour)}:${pad(wall.minute)}`;
 }
 
-/** Whether the meeting has started (by the reader's clock): after that, the sheet is about what did not happen. */
+/** Whether the meeting has started: after that, the sheet is about what did not happen. */
 export const meetingHasStarted = (meeting: Pick<MeetingView, 'startsAt'>, now: Date = new Date()): boolean =>
   new Date(meeting.startsAt).getTime() <= now.getTime();

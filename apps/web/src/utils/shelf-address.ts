@@ -5,7 +5,7 @@ import { COLOUR_FAMILIES, COLOUR_VALUES, CUT_KINDS, CUT_SIZES, FIBRES, type Shel
  * The shelf's filters as they travel: in the shelf's address (so a search can be
  * shared and the back button works) and in a saved wish. Used by the shelf and the
  * wishes features alike, and by main.tsx's early start of the shelf (app/first-page.ts),
- * so this module stays small and free of formatting code (that is in shelf-filters.ts).
+ * so this module stays small and free of formatting code (the filters in words are the shared domain's `describeShelfFilters`).
  */
 
 export type ShelfSort = ShelfQuery['sort'];

@@ -28,6 +28,10 @@ export interface GuildSummary {
   town: string;
   currency: string;
   defaultUnits: UnitSystem;
+  /** The IANA zone the guild keeps its meetings and deadlines in (the e-mails' zone); every screen shows times in it. */
+  timeZone: string;
+  /** Two-letter codes of the countries the guild's postage table has rates for; empty when it quotes any address. */
+  postageCountries: string[];
 }
 
 export interface SessionResponse {

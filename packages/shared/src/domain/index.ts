@@ -8,3 +8,4 @@ export * from './money.ts';
 export * from './colour.ts';
 export * from './claims.ts';
 export * from './roles.ts';
+export * from './shelf-filters.ts';

@@ -1,6 +1,8 @@
 import { isNewQuilter, type GuildSummary, type MemberRow, type SessionUser } from '@scrap-relay/shared';
 import type { Guild, Member } from '../../db/models/index.ts';
 import { abilitiesFor, can, type Actor } from '../../policies/index.ts';
+import { guildTimeZone } from '../guild/guild.service.ts';
+import { postageTableOf } from '../postage/postage.service.ts';
 
 export function newQuilterStatus(member: Member, guild: Guild, now: Date): boolean {
   return isNewQuilter({
@@ -12,7 +14,15 @@ export function newQuilterStatus(member: Member, guild: Guild, now: Date): boole
 }
 
 export function presentGuildSummary(guild: Guild): GuildSummary {
-  return { name: guild.name, town: guild.town, currency: guild.currency, defaultUnits: guild.defaultUnits };
+  return {
+    name: guild.name,
+    town: guild.town,
+    currency: guild.currency,
+    defaultUnits: guild.defaultUnits,
+    // Every member's screens need these (meeting times, the country of an address), not only the admins who may read the settings.
+    timeZone: guildTimeZone(guild),
+    postageCountries: [...(postageTableOf(guild).countries ?? [])],
+  };
 }
 
 export function presentSessionUser(member: Member, guild: Guild, now: Date): SessionUser {

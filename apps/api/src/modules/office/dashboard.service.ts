@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import type { DashboardFigures, DashboardQuery } from '@scrap-relay/shared';
 import { AppError } from '../../errors/index.ts';
 import { runNamedStatement, type NamedStatement } from '../../db/named-statement.ts';
+import { decimalAmount, IN_CURRENCY_UNITS } from '../ledger/csv.ts';
 
 /** The period as [from, to) timestamps; null ends are open. Months and years are the calendar's, in UTC. */
 export function periodBounds(q: DashboardQuery, now: Date): { from: Date | null; to: Date | null; label: string } {
@@ -154,15 +155,18 @@ export function dashboardRows(f: DashboardFigures): [string, string | number][] 
     ['bundles_expired', f.bundlesExpired],
   ];
   if (f.money) {
+    // Decimals in the currency's units (51.70, not 5170 cents), as in the ledger's CSV; the currency follows.
+    const m = f.money;
+    const money = (figure: string, minor: number): [string, string] => [`${figure}_${IN_CURRENCY_UNITS}`, decimalAmount(minor, m.currency)];
     rows.push(
-      ['funds_raised_minor', f.money.fundsRaisedMinor],
-      ['guild_fees_minor', f.money.guildFeesMinor],
-      ['processing_cost_minor', f.money.processingCostMinor],
-      ['seller_credits_minor', f.money.sellerCreditsMinor],
-      ['payouts_minor', f.money.payoutsMinor],
-      ['postage_paid_minor', f.money.postagePaidMinor],
-      ['refunds_minor', f.money.refundsMinor],
-      ['currency', f.money.currency],
+      money('funds_raised', m.fundsRaisedMinor),
+      money('guild_fees', m.guildFeesMinor),
+      money('processing_cost', m.processingCostMinor),
+      money('seller_credits', m.sellerCreditsMinor),
+      money('payouts', m.payoutsMinor),
+      money('postage_paid', m.postagePaidMinor),
+      money('refunds', m.refundsMinor),
+      ['currency', m.currency],
     );
   }
   return rows;

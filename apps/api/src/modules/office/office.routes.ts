@@ -8,6 +8,7 @@ import type { AppContext } from '../../context.ts';
 import { actorOf } from '../members/members.presenter.ts';
 import { dashboardFigures, dashboardRows, periodBounds } from './dashboard.service.ts';
 import { librarianReport, monthStatement } from './reports.service.ts';
+import { AMOUNT_COLUMN, decimalAmount } from '../ledger/csv.ts';
 
 export function officeRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -38,17 +39,19 @@ export function officeRoutes(ctx: AppContext): Router {
     authorize(actorOf(requireMember(req)), 'ledger.view');
     const { month } = parseInput(statementQuerySchema, req.query);
     const s = await monthStatement(ctx.sequelize, month);
+    const amount = (minor: number) => [decimalAmount(minor, s.currency), s.currency];
+    // Decimals in the currency's units with the currency beside them, as in the ledger's CSV.
     const rows = [
-      ['charges', '', s.chargesMinor],
-      ['guild_fees', '', s.guildFeesMinor],
-      ['refunds', '', s.refundsMinor],
-      ['processing_cost', '', s.processingCostMinor],
-      ['payouts', '', s.payoutsMinor],
-      ['seller_credits', '', s.sellerCreditsMinor],
-      ...s.closingBalances.map((b) => ['closing_balance', b.name, b.balanceMinor]),
-      ['closing_balances_total', '', s.closingBalancesTotalMinor],
+      ['charges', '', ...amount(s.chargesMinor)],
+      ['guild_fees', '', ...amount(s.guildFeesMinor)],
+      ['refunds', '', ...amount(s.refundsMinor)],
+      ['processing_cost', '', ...amount(s.processingCostMinor)],
+      ['payouts', '', ...amount(s.payoutsMinor)],
+      ['seller_credits', '', ...amount(s.sellerCreditsMinor)],
+      ...s.closingBalances.map((b) => ['closing_balance', b.name, ...amount(b.balanceMinor)]),
+      ['closing_balances_total', '', ...amount(s.closingBalancesTotalMinor)],
     ];
-    res.type('text/csv').attachment(`scrap-relay-statement-${month}.csv`).send(stringify(rows, { header: true, columns: ['line', 'seller', `amount_minor_${s.currency}`] }));
+    res.type('text/csv').attachment(`scrap-relay-statement-${month}.csv`).send(stringify(rows, { header: true, columns: ['line', 'seller', AMOUNT_COLUMN, 'currency'] }));
   });
 
   router.get('/reports/librarian', async (req, res) => {

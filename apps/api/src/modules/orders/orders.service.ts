@@ -261,6 +261,8 @@ export async function placeOrder(ctx: AppContext, buyer: Member, input: OrderCre
       postageQuote: quote,
       holdExpiresAt: needsPayment ? new Date(now.getTime() + guild.settings.holdMinutes * MINUTE_MS) : null,
       paidAt: needsPayment ? null : now,
+      // The clock the payment time was read from, so a free order's history never shows it confirmed before it was placed.
+      createdAt: now,
     });
     await OrderItem.bulkCreate(
       lines.map((l) => ({

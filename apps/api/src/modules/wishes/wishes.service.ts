@@ -1,6 +1,7 @@
-import type { WishInput } from '@scrap-relay/shared';
+import { describeShelfFilters, type ShelfFilters, type WishInput } from '@scrap-relay/shared';
 import { Wish, type Member } from '../../db/models/index.ts';
-import { badRequest, notFound } from '../../errors/index.ts';
+import { badRequest, conflict, notFound } from '../../errors/index.ts';
+import { loadGuild } from '../guild/guild.service.ts';
 
 export const MAX_WISHES_PER_MEMBER = 20;
 
@@ -45,10 +46,28 @@ export async function listWishes(member: Member): Promise<Wish[]> {
   return Wish.findAll({ where: { memberId: member.id }, order: [['createdAt', 'DESC']] });
 }
 
+type StoredFilters = Record<string, string | number>;
+
+/** The filters in a fixed order with their values as text, so two wishes asking for the same bundles compare equal. */
+function filtersKey(filters: Record<string, unknown>): string {
+  const entries = Object.entries(filters)
+    .filter(([, v]) => v !== undefined && v !== null && v !== '')
+    .map(([k, v]) => [k, String(v)] as const)
+    .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+  return JSON.stringify(entries);
+}
+
 export async function addWish(member: Member, input: WishInput): Promise<Wish> {
-  const count = await Wish.count({ where: { memberId: member.id } });
-  if (count >= MAX_WISHES_PER_MEMBER) throw badRequest(`You can keep up to ${MAX_WISHES_PER_MEMBER} wishes; delete one first.`, { name: 'Too many wishes.' });
-  const filters = Object.fromEntries(Object.entries(input.filters).filter(([, v]) => v !== undefined && v !== ''));
+  const existing = await Wish.findAll({ where: { memberId: member.id }, attributes: ['id', 'name', 'filters'] });
+  if (existing.length >= MAX_WISHES_PER_MEMBER) throw badRequest(`You can keep up to ${MAX_WISHES_PER_MEMBER} wishes; delete one first.`, { name: 'Too many wishes.' });
+  const filters = Object.fromEntries(Object.entries(input.filters).filter(([, v]) => v !== undefined && v !== '')) as StoredFilters;
+  // The same filters twice would only send the same e-mail twice over.
+  const twin = existing.find((wish) => filtersKey(wish.filters as StoredFilters) === filtersKey(filters));
+  if (twin) {
+    const guild = await loadGuild();
+    const words = describeShelfFilters(filters as ShelfFilters, { units: member.units ?? guild.defaultUnits, currency: guild.currency });
+    throw conflict(`You already have a wish for these filters (${words}): “${twin.name}”.`, { filters: `Already saved as your wish “${twin.name}”.` });
+  }
   return Wish.create({ memberId: member.id, name: input.name, filters });
 }
 

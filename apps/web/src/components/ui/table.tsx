@@ -1,4 +1,4 @@
-import { useId, useMemo, type ReactNode } from 'react';
+import { useEffect, useId, useMemo, type ReactNode } from 'react';
 import {
   columnFilteringFeature,
   createColumnHelper,
@@ -7,6 +7,7 @@ import {
   createSortedRowModel,
   filterFn_arrIncludes,
   filterFn_includesString,
+  functionalUpdate,
   globalFilteringFeature,
   metaHelper,
   rowPaginationFeature,
@@ -18,9 +19,11 @@ import {
   useTable,
   type ColumnDef,
   type ColumnFiltersState,
+  type PaginationState,
   type Row,
   type RowData,
   type SortingState,
+  type Updater,
 } from '@tanstack/react-table';
 import { cn } from '../../utils/cn.ts';
 import { Button } from './button.tsx';
@@ -66,6 +69,15 @@ export interface DataTableProps<TData extends RowData> {
   searchText?: (row: TData) => string;
   columnFilters?: ColumnFiltersState;
   initialSorting?: SortingState;
+  /**
+   * Sorting and page owned by the page (e.g. kept in the address so Back and reload keep them); without them the
+   * table keeps its own, starting from `initialSorting` and the first page. A controlled page index past the last
+   * page is brought back to the last one through `onPageIndexChange(last, true)`, which is no step for Back.
+   */
+  sorting?: SortingState;
+  onSortingChange?: (sorting: SortingState) => void;
+  pageIndex?: number;
+  onPageIndexChange?: (pageIndex: number, pastTheEnd?: boolean) => void;
   pageSize?: number;
   /** Shown instead of rows when nothing matches. */
   emptyMessage: ReactNode;
@@ -95,13 +107,25 @@ export function DataTable<TData extends RowData>({
   searchText,
   columnFilters = NO_FILTERS,
   initialSorting = NO_SORTING,
+  sorting,
+  onSortingChange,
+  pageIndex: controlledPageIndex,
+  onPageIndexChange,
   pageSize = 25,
   emptyMessage,
   noun,
 }: DataTableProps<TData>) {
   const sortMenuId = useId();
   const firstColumnId = columnIdOf(columns[0]);
-  const state = useMemo(() => ({ globalFilter, columnFilters }), [globalFilter, columnFilters]);
+  const state = useMemo(
+    () => ({
+      globalFilter,
+      columnFilters,
+      ...(sorting ? { sorting } : {}),
+      ...(controlledPageIndex !== undefined ? { pagination: { pageIndex: controlledPageIndex, pageSize } } : {}),
+    }),
+    [globalFilter, columnFilters, sorting, controlledPageIndex, pageSize],
+  );
   const table = useTable({
     features: dataTableFeatures,
     columns,
@@ -118,6 +142,15 @@ export function DataTable<TData extends RowData>({
     state,
     onGlobalFilterChange: ignoreChange,
     onColumnFiltersChange: ignoreChange,
+    ...(sorting && onSortingChange ? { onSortingChange: (updater: Updater<SortingState>) => onSortingChange(functionalUpdate(updater, sorting)) } : {}),
+    ...(controlledPageIndex !== undefined
+      ? {
+          onPaginationChange: (updater: Updater<PaginationState>) =>
+            onPageIndexChange?.(functionalUpdate(updater, { pageIndex: controlledPageIndex, pageSize }).pageIndex),
+          // The page owns the page number (it starts again at the first page when its filters change).
+          autoResetPageIndex: false,
+        }
+      : {}),
     enableSortingRemoval: false,
     initialState: { sorting: initialSorting, pagination: { pageIndex: 0, pageSize } },
   });
@@ -128,6 +161,11 @@ export function DataTable<TData extends RowData>({
   const first = total === 0 ? 0 : pageIndex * pageSize + 1;
   const last = pageIndex * pageSize + rows.length;
   const pageCount = Math.max(table.getPageCount(), 1);
+  // A page kept in the address may be past the end once rows have gone (a bundle reviewed, a filter applied).
+  const pastTheEnd = controlledPageIndex !== undefined && controlledPageIndex > pageCount - 1;
+  useEffect(() => {
+    if (pastTheEnd) onPageIndexChange?.(pageCount - 1, true);
+  }, [pastTheEnd, pageCount, onPageIndexChange]);
   const nounFor = (n: number) => (n === 1 ? noun[0] : noun[1]);
 
   const leafColumns = table.getAllLeafColumns();

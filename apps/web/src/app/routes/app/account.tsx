@@ -1,5 +1,6 @@
 import { ROLES } from '@scrap-relay/shared';
 import { Page, Panel } from '../../../components/layouts/page.tsx';
+import { PostalAddressPanel } from '../../../features/account/components/postal-address-panel.tsx';
 import { useSessionUser } from '../../../features/auth/api/get-session.ts';
 import { SignOutButton } from '../../../features/auth/components/sign-out-button.tsx';
 import { formatRoles } from '../../../utils/format.ts';
@@ -20,6 +21,7 @@ export function Component() {
           <dd>{user.units === 'metric' ? 'Centimetres, metres and grams' : 'Inches, yards and ounces'}</dd>
         </dl>
       </Panel>
+      <PostalAddressPanel />
       <Panel title="Sign out">
         <p>On a shared tablet or computer, sign out when you have finished.</p>
         <SignOutButton />

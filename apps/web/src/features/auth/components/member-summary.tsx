@@ -12,10 +12,15 @@ export function MemberSummary({ user }: { user: SessionUser }) {
       {user.emailVerified ? null : (
         <Alert tone="warning" title="Please confirm your e-mail address" announce={false}>
           <p>
-            We sent a link to <strong>{user.email}</strong>. Open it to confirm the address is yours, so the guild can reach you
+            We sent a link to <strong className="break-all">{user.email}</strong>. Open it to confirm the address is yours, so the guild can reach you
             about bundles and orders.
           </p>
-          <ResendVerificationButton email={user.email} />
+          <p>
+            <strong>Confirming it unlocks the exchange:</strong>{' '}
+            {user.newQuilter ? 'listing a bundle, buying, and claiming starter bundles as a new quilter' : 'listing a bundle and buying'}. Until then you
+            can browse the shelf.
+          </p>
+          <ResendVerificationButton email={user.email} label="Send the confirmation again" />
         </Alert>
       )}
       <Panel title="Your details">
@@ -29,9 +34,11 @@ export function MemberSummary({ user }: { user: SessionUser }) {
           </Detail>
           <Detail term="Roles">{formatRoles(user.roles, ROLES)}</Detail>
           <Detail term="New quilter">
-            {user.newQuilter
-              ? 'Yes: you may claim starter bundles from the guild’s starter programme.'
-              : 'No: starter bundles are kept for new quilters.'}
+            {!user.newQuilter
+              ? 'No: starter bundles are kept for new quilters.'
+              : user.emailVerified
+                ? 'Yes: you may claim starter bundles from the guild’s starter programme.'
+                : 'Yes: once your e-mail address is confirmed, you may claim starter bundles from the guild’s starter programme.'}
           </Detail>
         </dl>
       </Panel>

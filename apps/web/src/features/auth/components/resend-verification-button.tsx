@@ -2,12 +2,12 @@ import { Alert } from '../../../components/ui/alert.tsx';
 import { Button } from '../../../components/ui/button.tsx';
 import { useResendVerification } from '../api/resend-verification.ts';
 
-export function ResendVerificationButton({ email }: { email: string }) {
+export function ResendVerificationButton({ email, label = 'Send a new link' }: { email: string; label?: string }) {
   const resend = useResendVerification();
   return (
     <div className="space-y-3">
       <Button variant="secondary" onClick={() => resend.mutate()} isPending={resend.isPending} pendingLabel="Sending…">
-        Send a new link
+        {label}
       </Button>
       {resend.isSuccess ? (
         <Alert tone="success">

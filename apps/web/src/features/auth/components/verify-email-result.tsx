@@ -40,6 +40,19 @@ export function VerifyEmailResult({ token, signedInUser }: { token: string; sign
 
   if (verify.isError) {
     const expired = verify.error.code === 'invalid_token';
+    // The link opened again after it worked: for a signed-in member who is confirmed, nothing is wrong.
+    if (expired && signedInUser?.emailVerified) {
+      return (
+        <div className="space-y-6">
+          <Alert tone="success" title="Your e-mail address is already confirmed">
+            <p>
+              We write to <strong>{signedInUser.email}</strong> about your bundles and orders. You do not need this link any more.
+            </p>
+          </Alert>
+          <ButtonLink to={paths.app.home.getHref()}>Go to your home page</ButtonLink>
+        </div>
+      );
+    }
     return (
       <div className="space-y-6">
         <Alert tone="error" title={expired ? 'This link has been used or has expired' : verify.error.message}>

@@ -40,7 +40,7 @@ export function BundleDetails({ bundle, units, viewerId, shopperActions }: Bundl
   const isSeller = bundle.seller.id === viewerId;
   const facts: Array<[string, ReactNode]> = [
     ['Offer', offerSummary(bundle)],
-    ...(bundle.offer === 'sale' ? ([['Handover', bundle.meetingHandoverOk ? 'Posted, or collected at a guild meeting' : 'Posted']] as Array<[string, ReactNode]>) : []),
+    ...(bundle.offer === 'sale' ? ([['Handover', bundle.meetingHandoverOk ? 'By post, or collected at a guild meeting' : 'By post']] as Array<[string, ReactNode]>) : []),
     ['Weight', bundle.weightGrams ? `${formatWeight(bundle.weightGrams, units)}${bundle.quantity > 1 ? ' per pack' : ''}` : 'Not given'],
     ...(bundle.quantity > 1 ? ([['Packs', `${bundle.quantityAvailable} of ${bundle.quantity} left`]] as Array<[string, ReactNode]>) : []),
     ['State', <BundleStateLabel key="state" state={bundle.state} offer={bundle.offer} />],

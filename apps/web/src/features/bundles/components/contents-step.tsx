@@ -12,6 +12,7 @@ import {
   FIBRES,
 } from '@scrap-relay/shared';
 import { useFormContext, useFormState, useWatch, get } from 'react-hook-form';
+import { ColourSwatch } from '../../../components/colour-swatch.tsx';
 import { SafetyNotes } from '../../../components/safety-notes.tsx';
 import { Button } from '../../../components/ui/button.tsx';
 import { Checkbox, FieldError } from '../../../components/ui/field.tsx';
@@ -108,13 +109,12 @@ function ColourSuggestion() {
   };
   return (
     <div className="flex flex-wrap items-center gap-3 rounded-stitch border-2 border-seam bg-linen p-3">
-      <span aria-hidden="true" className="size-11 shrink-0 rounded-stitch border-2 border-thread" style={{ backgroundColor: suggested.hex }} />
+      <ColourSwatch hex={suggested.hex} className="size-11 rounded-stitch border-2 border-thread" />
       <p className="min-w-0 flex-1">
         Suggested from your photos:{' '}
         <strong>
           {COLOUR_VALUE_LABELS[suggested.value].toLowerCase()}, {COLOUR_FAMILY_LABELS[suggested.family].toLowerCase()}
-        </strong>{' '}
-        <span className="text-thread-soft">(average colour {suggested.hex})</span>
+        </strong>
         {taken ? <span className="block text-thread-soft">In use below; change it if your eye says otherwise.</span> : null}
       </p>
       {taken ? null : (

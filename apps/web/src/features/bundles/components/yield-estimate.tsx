@@ -1,14 +1,6 @@
-import { FIBRE_LABELS, formatLength, MM_PER_INCH, type Fibre, type UnitSystem, type YieldEstimate } from '@scrap-relay/shared';
-import { longLength } from '../utils/cut-plan-text.ts';
+import { FIBRE_LABELS, type Fibre, type UnitSystem, type YieldEstimate } from '@scrap-relay/shared';
+import { yieldFacts } from '../../../utils/yield-text.ts';
 import { pageSection, stepSection } from './section-styles.ts';
-
-const number = new Intl.NumberFormat('en');
-
-/** "about 1,240 sq in" or "about 0.8 m²". */
-function area(estimate: YieldEstimate, units: UnitSystem): string {
-  if (units === 'metric') return `${(estimate.areaCm2 / 10_000).toFixed(2)} m²`;
-  return `${number.format(estimate.areaSqIn)} sq in`;
-}
 
 export interface YieldEstimateProps {
   estimate: YieldEstimate;
@@ -25,20 +17,12 @@ export interface YieldEstimateProps {
  */
 export function YieldEstimateView({ estimate, units, fibre, headingLevel = 3 }: YieldEstimateProps) {
   const Heading = headingLevel === 2 ? 'h2' : 'h3';
-  const width = formatLength(estimate.usableWidthIn * MM_PER_INCH, units);
-  const rows: Array<[string, string]> = [
-    ['Usable fabric', `about ${area(estimate, units)}`],
-    [`Length at ${width} wide`, `about ${longLength(estimate.lengthMm, units)}`],
-    ['2½-inch strips across the width', number.format(estimate.stripEquivalents)],
-    ['5-inch squares', number.format(estimate.fiveInchSquares)],
-    ['2½-inch squares', number.format(estimate.twoAndHalfInchSquares)],
-    ['10-inch squares', number.format(estimate.tenInchSquares)],
-  ];
+  const rows = yieldFacts(estimate, units);
   return (
     <section aria-label="Yield estimate" className={headingLevel === 2 ? pageSection : stepSection}>
       <Heading className={headingLevel === 2 ? 'text-xl font-bold' : 'text-lg font-bold'}>Yield estimate</Heading>
       <dl className="grid max-w-lg grid-cols-[1fr_auto] gap-x-6 gap-y-1">
-        {rows.map(([label, value]) => (
+        {rows.map(({ label, value }) => (
           <div key={label} className="contents">
             <dt>{label}</dt>
             <dd className="text-right font-semibold tabular-nums">{value}</dd>

@@ -1,6 +1,7 @@
 import { inchesToMm, planBundle, planPiece } from '@scrap-relay/shared';
 import { describe, expect, it } from 'vitest';
-import { cutTotals, describeCuts, longLength, pieceSize } from './cut-plan-text.ts';
+import { longLength } from '../../../utils/yield-text.ts';
+import { cutTotals, describeCuts, pieceSize } from './cut-plan-text.ts';
 
 // Pieces are stored in whole millimetres, as the listing form saves them.
 const inches = (width: number, height: number, count = 1) => ({ widthMm: Math.round(inchesToMm(width)), heightMm: Math.round(inchesToMm(height)), count });

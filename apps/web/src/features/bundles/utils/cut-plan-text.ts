@@ -1,6 +1,5 @@
 import {
   formatLength,
-  MM_PER_YARD,
   STANDARD_CUT_LABELS,
   STANDARD_CUTS,
   type BundleCutPlan,
@@ -9,6 +8,7 @@ import {
   type StandardCut,
   type UnitSystem,
 } from '@scrap-relay/shared';
+import { longLength } from '../../../utils/yield-text.ts';
 
 /** Side of each standard cut in millimetres (2½ in = 63.5 mm), for the words under the pictures. */
 const CUT_SIDE_MM: Readonly<Record<StandardCut, number>> = {
@@ -35,12 +35,6 @@ export function describeCuts(result: CutResult, units: UnitSystem): string {
     return `${plural(result.count, 'strip', 'strips')} of ${side} × ${formatLength(result.stripLengthMm ?? 0, units)}`;
   }
   return `${plural(result.count, 'square', 'squares')} of ${side}`;
-}
-
-/** A long length of strips in yards or metres, to one decimal: "13.8 yd", "12.6 m". */
-export function longLength(mm: number, units: UnitSystem): string {
-  if (units === 'metric') return `${(Math.round(mm / 100) / 10).toFixed(1)} m`;
-  return `${(Math.round((mm / MM_PER_YARD) * 10) / 10).toFixed(1)} yd`;
 }
 
 export interface CutTotalLine {

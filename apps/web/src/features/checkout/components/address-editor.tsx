@@ -7,6 +7,7 @@ import { Loading } from '../../../components/ui/loading.tsx';
 import { useMyAddress } from '../../../lib/my-address.ts';
 import { useUpdateMyAddress } from '../api/update-my-address.ts';
 import { addressFormValues } from '../../../utils/address-defaults.ts';
+import { useGuildPostageCountries } from '../../../utils/guild-session.ts';
 import { AddressFields } from './address-fields.tsx';
 
 /** The member's saved postal address, used to fill in checkout by post. */
@@ -29,10 +30,11 @@ export function AddressEditor({ currency }: { currency: string }) {
 function AddressForm({ saved, currency }: { saved: PostalAddress | null; currency: string }) {
   const update = useUpdateMyAddress();
   const [savedAt, setSavedAt] = useState<number | null>(null);
+  const postageCountries = useGuildPostageCountries();
   return (
     <Form
       schema={postalAddressSchema}
-      defaultValues={addressFormValues(saved, currency)}
+      defaultValues={addressFormValues(saved, currency, postageCountries)}
       onSubmit={async (values, methods) => {
         setSavedAt(null);
         const { address } = await update.mutateAsync(values);

@@ -96,6 +96,9 @@ describe('checking out the basket', () => {
 
     const pay = await waitFor(() => buttonNamed(container, 'Pay £19.30 by card'), 3000);
     expect(container.textContent).toContain('Padded mailer');
+    const notes = container.querySelector('aside[aria-label="Before you pay"]');
+    expect(notes?.textContent).toContain('Larkhollow Quilting Circle is the merchant.');
+    expect(notes?.textContent).toContain('Your postal address goes only to the seller of a paid order');
     await click(pay);
 
     await waitFor(() => expect(container.querySelector('[role="alert"]')?.textContent).toContain('The card payment service is not answering just now.'));
@@ -130,6 +133,8 @@ describe('checking out the basket', () => {
 
     const confirm = await waitFor(() => buttonNamed(container, 'Confirm: I will collect it at the meeting'));
     expect(container.textContent).toContain('Larkhollow Chapel Hall');
+    // Nothing is paid and nothing posted: no notes about card payments, holds or addresses.
+    expect(container.querySelector('aside[aria-label="Before you pay"]')).toBeNull();
     await click(confirm);
 
     await waitFor(() => expect(router.state.location.pathname).toBe('/orders/order-77'));

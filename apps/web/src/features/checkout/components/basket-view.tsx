@@ -15,6 +15,7 @@ import { basketBundleQueryKey, getBundleQueryOptions } from '../api/get-bundle.t
 import { useMyAddress } from '../../../lib/my-address.ts';
 import type { PlacedOrder } from '../api/place-order.ts';
 import { groupBySeller, reviewBasket, type BasketRemoval, type BundleLookup } from '../utils/basket-lines.ts';
+import { basketCharges } from '../utils/charges.ts';
 import { BasketLineItem } from './basket-line-item.tsx';
 import { MerchantNotes } from './merchant-notes.tsx';
 import { SellerCheckout } from './seller-checkout.tsx';
@@ -204,7 +205,7 @@ export function BasketView({ member, guild, addedBundleId }: BasketViewProps) {
         </Panel>
       ) : null}
 
-      {items.length > 0 ? <MerchantNotes guildName={guild.name} /> : null}
+      {items.length > 0 ? <MerchantNotes guildName={guild.name} charges={basketCharges([...review.lines, ...review.waiting])} /> : null}
     </div>
   );
 }

@@ -23,6 +23,7 @@ import { CheckboxField, Form, SubmitButton } from '../../../components/ui/form.t
 import { Loading } from '../../../components/ui/loading.tsx';
 import { isApiError, type ApiError } from '../../../lib/api-client.ts';
 import { placeNestedFieldErrors } from '../../../lib/form-errors.ts';
+import { useGuildPostageCountries, useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { formatMeetingWhen } from '../../../utils/meetings.ts';
 import { usePostageQuote } from '../../../lib/postage-quotes.ts';
 import { usePlaceOrder, type PlacedOrder } from '../api/place-order.ts';
@@ -195,10 +196,11 @@ function checkoutErrorHelp(error: ApiError, canMeet: boolean): ReactNode {
 function PostCheckout(props: CheckoutFormProps & { canMeet: boolean }) {
   const { lines, savedAddress, guildCurrency, canMeet } = props;
   const submit = useSubmitOrder(props);
+  const postageCountries = useGuildPostageCountries();
   return (
     <Form
       schema={postCheckoutSchema}
-      defaultValues={{ address: addressFormValues(savedAddress, guildCurrency), saveAddress: savedAddress === null }}
+      defaultValues={{ address: addressFormValues(savedAddress, guildCurrency, postageCountries), saveAddress: savedAddress === null }}
       errorDetail={(error) => checkoutErrorHelp(error, canMeet)}
       onSubmit={async (values, methods) => {
         try {
@@ -238,7 +240,7 @@ function PostageAndPay({ lines, currency, units, canMeet, canOrder }: CheckoutFo
   const totalMinor = current ? itemsMinor + quote.data.totalMinor : null;
 
   let postage: ReactNode;
-  if (!valid) postage = <p>Enter the postal code and country to see the postage.</p>;
+  if (!valid) postage = <p>Enter the postal code to see the postage.</p>;
   else if (quote.isError) {
     postage = (
       <Alert tone="warning" title="This cannot be quoted for posting">
@@ -313,6 +315,7 @@ function MeetingCheckout(props: CheckoutFormProps) {
 function MeetingChoice({ meetings }: { meetings: readonly MeetingView[] }) {
   const { register } = useFormContext<{ meetingId: string }>();
   const { errors } = useFormState<{ meetingId: string }>({ name: 'meetingId' });
+  const timeZone = useGuildTimeZone();
   const base = useId();
   const errorId = `${base}-error`;
   const message = errors.meetingId?.message;
@@ -325,7 +328,7 @@ function MeetingChoice({ meetings }: { meetings: readonly MeetingView[] }) {
           <div key={meeting.id} className="flex items-start gap-3">
             <input id={id} type="radio" value={meeting.id} {...register('meetingId')} className="mt-1.5 size-6 shrink-0 accent-thread" />
             <label htmlFor={id} className="min-h-11 cursor-pointer py-1">
-              <span className="block font-semibold">{formatMeetingWhen(meeting.startsAt)}</span>
+              <span className="block font-semibold">{formatMeetingWhen(meeting.startsAt, timeZone)}</span>
               <span className="block text-thread-soft">{meeting.place}</span>
               {meeting.notes ? <span className="block text-thread-soft">{meeting.notes}</span> : null}
             </label>

@@ -7,6 +7,7 @@ import { formatDateTime } from '../../../utils/meetings.ts';
 import { useLibrarianReport } from '../api/get-librarian-report.ts';
 import type { LibrarianReport } from '../types.ts';
 import { PeriodPicker } from './period-picker.tsx';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 
 /** The librarian's report for a period: review decisions, the starter programme, and handovers per meeting. */
 export function LibrarianReportView({ query, onQueryChange }: { query: DashboardQuery; onQueryChange: (query: DashboardQuery) => void }) {
@@ -43,6 +44,7 @@ function Stat({ term, value }: { term: string; value: string }) {
 }
 
 function Report({ report }: { report: LibrarianReport }) {
+  const timeZone = useGuildTimeZone();
   const { review, starter, handovers } = report;
   return (
     <>
@@ -95,7 +97,7 @@ function Report({ report }: { report: LibrarianReport }) {
               {handovers.map((h) => (
                 <tr key={h.meetingId} className="border-b border-seam print:border-black">
                   <th scope="row" className="py-2 pr-4 text-left align-top">
-                    <span className="block font-semibold">{formatDateTime(h.startsAt)}</span>
+                    <span className="block font-semibold">{formatDateTime(h.startsAt, timeZone)}</span>
                     <span className="block font-normal text-thread-soft">{h.place}</span>
                   </th>
                   <td className="py-2 pr-4 text-right align-top tabular-nums">{h.done}</td>

@@ -11,6 +11,7 @@ import { useCancelHandover } from '../api/cancel-handover.ts';
 import { useMoveHandovers } from '../api/move-handovers.ts';
 import type { HandoverView } from '@scrap-relay/shared';
 import { HandoverItems, handoverName } from './handover-items.tsx';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 
 /**
  * After the meeting: what did not change hands. Move it all to another meeting
@@ -68,6 +69,7 @@ export function AfterMeeting({ meeting, open }: { meeting: MeetingView; open: Ha
 }
 
 function MoveAll({ meeting, count, onMoved }: { meeting: MeetingView; count: number; onMoved: (message: string) => void }) {
+  const timeZone = useGuildTimeZone();
   const upcoming = useMeetings('upcoming');
   const targets = (upcoming.data?.items ?? []).filter((m) => m.id !== meeting.id);
   const [chosen, setChosen] = useState('');
@@ -95,7 +97,7 @@ function MoveAll({ meeting, count, onMoved }: { meeting: MeetingView; count: num
           target &&
           move.mutate(
             { meetingId: meeting.id, data: { toMeetingId: target.id } },
-            { onSuccess: ({ moved }) => onMoved(`Moved ${moved === 1 ? '1 handover' : `${moved} handovers`} to ${meetingLabel(target)}. Both people in each were e-mailed.`) },
+            { onSuccess: ({ moved }) => onMoved(`Moved ${moved === 1 ? '1 handover' : `${moved} handovers`} to ${meetingLabel(target, timeZone)}. Both people in each were e-mailed.`) },
           )
         }
       >

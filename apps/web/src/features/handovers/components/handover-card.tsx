@@ -4,6 +4,7 @@ import { formatShortDateTime } from '../../../utils/meetings.ts';
 import { useMarkHandover } from '../api/mark-handover.ts';
 import type { HandoverView } from '@scrap-relay/shared';
 import { HandoverItems, handoverName } from './handover-items.tsx';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 
 export interface HandoverCardProps {
   handover: HandoverView;
@@ -18,6 +19,7 @@ export interface HandoverCardProps {
  * a thumb on a phone. Shows who ticked it and when.
  */
 export function HandoverCard({ handover, meetingId, viewerName, headingLevel = 'h4' }: HandoverCardProps) {
+  const timeZone = useGuildTimeZone();
   const mark = useMarkHandover(meetingId, viewerName);
   const Heading = headingLevel;
   const pendingFor = mark.isPending ? mark.variables.done : null;
@@ -40,7 +42,7 @@ export function HandoverCard({ handover, meetingId, viewerName, headingLevel = '
         {handover.done ? (
           <>
             <span aria-hidden="true">✓ </span>Handed over{handover.doneBy ? ` — ticked by ${handover.doneBy}` : ''}
-            {handover.doneAt ? ` at ${formatShortDateTime(handover.doneAt)}` : ''}
+            {handover.doneAt ? ` at ${formatShortDateTime(handover.doneAt, timeZone)}` : ''}
           </>
         ) : (
           'Not handed over yet'

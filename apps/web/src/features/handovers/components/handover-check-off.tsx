@@ -7,9 +7,11 @@ import { formatDateTime } from '../../../utils/meetings.ts';
 import { useHandoverMeetingId } from '../api/find-handover.ts';
 import { useHandoverSheet } from '../api/get-handover-sheet.ts';
 import { HandoverCard } from './handover-card.tsx';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 
 /** One handover, opened by scanning its QR code at the door: the details and a big "Handed over" button. */
 export function HandoverCheckOff({ handoverId, viewerName }: { handoverId: string; viewerName: string }) {
+  const timeZone = useGuildTimeZone();
   const found = useHandoverMeetingId(handoverId);
   const sheet = useHandoverSheet(found.data);
 
@@ -36,7 +38,7 @@ export function HandoverCheckOff({ handoverId, viewerName }: { handoverId: strin
   return (
     <div className="space-y-6">
       <p className="text-lg">
-        At the meeting on <strong>{formatDateTime(sheet.data.meeting.startsAt)}</strong>, {sheet.data.meeting.place}.
+        At the meeting on <strong>{formatDateTime(sheet.data.meeting.startsAt, timeZone)}</strong>, {sheet.data.meeting.place}.
       </p>
       <HandoverCard handover={handover} meetingId={sheet.data.meeting.id} viewerName={viewerName} headingLevel="h2" />
       <ButtonLink to={paths.app.handoverSheet.getHref(sheet.data.meeting.id)} variant="secondary">

@@ -11,6 +11,7 @@ import type { HandoverSheet } from '../types.ts';
 import { AfterMeeting } from './after-meeting.tsx';
 import { DoorChecklist } from './door-checklist.tsx';
 import { PrintSheet } from './print-sheet.tsx';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 
 /** A meeting's handover sheet: progress, the door checklist, what was missed afterwards, and the print layout. */
 export function HandoverSheetView({ meetingId, viewerName }: { meetingId: string; viewerName: string }) {
@@ -36,12 +37,13 @@ export function HandoverSheetView({ meetingId, viewerName }: { meetingId: string
 }
 
 function SheetContent({ sheet, viewerName }: { sheet: HandoverSheet; viewerName: string }) {
+  const timeZone = useGuildTimeZone();
   const progress = sheetProgress(sheet.items);
   const started = meetingHasStarted(sheet.meeting);
   return (
     <div className="space-y-8">
       <p className="text-xl print:hidden">
-        <strong>{formatMeetingWhen(sheet.meeting.startsAt)}</strong>, {sheet.meeting.place}
+        <strong>{formatMeetingWhen(sheet.meeting.startsAt, timeZone)}</strong>, {sheet.meeting.place}
         {started ? <span className="block text-lg text-thread-soft">This meeting has started.</span> : null}
       </p>
       <div className="flex flex-wrap items-center justify-between gap-4 print:hidden">
@@ -61,7 +63,7 @@ function SheetContent({ sheet, viewerName }: { sheet: HandoverSheet; viewerName:
       </div>
       {started ? <AfterMeeting meeting={sheet.meeting} open={sheet.items.filter((h) => !h.done)} /> : null}
       <DoorChecklist items={sheet.items} meetingId={sheet.meeting.id} viewerName={viewerName} />
-      <PrintSheet meeting={sheet.meeting} items={sheet.items} />
+      <PrintSheet meeting={sheet.meeting} items={sheet.items} timeZone={timeZone} />
     </div>
   );
 }

@@ -20,10 +20,11 @@ function PenTick({ done }: { done: boolean }) {
  * so each giver's page can be handed to them), each handover with its QR code and a box
  * to tick by pen; then one list by who collects. Shown only when printing.
  */
-export function PrintSheet({ meeting, items }: { meeting: MeetingView; items: HandoverView[] }) {
+/** `timeZone`: the guild's, so the printed sheet reads the meeting's time as the e-mails do. */
+export function PrintSheet({ meeting, items, timeZone }: { meeting: MeetingView; items: HandoverView[]; timeZone?: string }) {
   const byGiver = groupHandovers(items, 'giver');
   const byCollector = groupHandovers(items, 'collector');
-  const title = `${formatDateTime(meeting.startsAt)} — ${meeting.place}`;
+  const title = `${formatDateTime(meeting.startsAt, timeZone)} — ${meeting.place}`;
 
   if (items.length === 0) {
     return (

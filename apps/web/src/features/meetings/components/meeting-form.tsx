@@ -1,12 +1,13 @@
 import type { MeetingInput, MeetingView } from '@scrap-relay/shared';
+import { useMemo } from 'react';
 import { get, useFormContext, useFormState, type FieldError } from 'react-hook-form';
 import { Button } from '../../../components/ui/button.tsx';
 import { controlClass, FieldShell } from '../../../components/ui/field.tsx';
 import { Form, SubmitButton, TextField } from '../../../components/ui/form.tsx';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { isoToLocalInput } from '../../../utils/meetings.ts';
-import { meetingFormSchema, type MeetingFormValues } from '../meeting-form-schema.ts';
-
-const browserZone = (): string => Intl.DateTimeFormat().resolvedOptions().timeZone || 'your device’s time zone';
+import { describeTimeZone } from '../../../utils/zoned-time.ts';
+import { meetingFormSchemaFor, type MeetingFormValues } from '../meeting-form-schema.ts';
 
 export interface MeetingFormProps {
   /** The meeting being edited; a new one when absent. */
@@ -16,15 +17,17 @@ export interface MeetingFormProps {
   onCancel?: () => void;
 }
 
-/** Date and time (typed in the member's own time zone), place and notes for a guild meeting. */
+/** Date and time (the guild's local time, in its time zone), place and notes for a guild meeting. */
 export function MeetingForm({ meeting, submitLabel, onSubmit, onCancel }: MeetingFormProps) {
+  const timeZone = useGuildTimeZone();
+  const schema = useMemo(() => meetingFormSchemaFor(timeZone), [timeZone]);
   const defaultValues: MeetingFormValues = meeting
-    ? { startsAt: isoToLocalInput(meeting.startsAt), place: meeting.place, notes: meeting.notes }
+    ? { startsAt: isoToLocalInput(meeting.startsAt, timeZone), place: meeting.place, notes: meeting.notes }
     : { startsAt: '', place: '', notes: '' };
   return (
-    <Form schema={meetingFormSchema} defaultValues={defaultValues} onSubmit={(values) => onSubmit(values)} className="space-y-5">
+    <Form schema={schema} defaultValues={defaultValues} onSubmit={(values) => onSubmit(values)} className="space-y-5">
       <div className="grid gap-5 sm:grid-cols-2">
-        <TextField name="startsAt" label="Date and start time" hint={`In your time zone (${browserZone()}).`} type="datetime-local" required />
+        <TextField name="startsAt" label="Date and start time" hint={`In the guild’s time zone: ${describeTimeZone(timeZone)}.`} type="datetime-local" required />
         <TextField name="place" label="Place" hint="Where members bring and collect bundles." autoComplete="off" required />
       </div>
       <NotesField />

@@ -7,6 +7,7 @@ import { Loading } from '../../../components/ui/loading.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useMeetings, type MeetingsWhen } from '../../../lib/meetings.ts';
 import { cn } from '../../../utils/cn.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { formatDateTime, meetingHasStarted } from '../../../utils/meetings.ts';
 import { useCreateMeeting } from '../api/create-meeting.ts';
 import { useUpdateMeeting } from '../api/update-meeting.ts';
@@ -22,10 +23,11 @@ export function MeetingsList({ canCreate }: MeetingsListProps) {
   const [when, setWhen] = useState<MeetingsWhen>('upcoming');
   const meetings = useMeetings(when);
   const [saved, setSaved] = useState<string | null>(null);
+  const timeZone = useGuildTimeZone();
 
   return (
     <div className="space-y-6">
-      {canCreate ? <AddMeeting onAdded={(meeting) => setSaved(`Meeting added: ${formatDateTime(meeting.startsAt)}, ${meeting.place}.`)} /> : null}
+      {canCreate ? <AddMeeting onAdded={(meeting) => setSaved(`Meeting added: ${formatDateTime(meeting.startsAt, timeZone)}, ${meeting.place}.`)} /> : null}
       {saved ? <Alert tone="success" title={saved} /> : null}
 
       <div role="group" aria-label="Which meetings to show" className="flex flex-wrap gap-2">
@@ -56,7 +58,7 @@ export function MeetingsList({ canCreate }: MeetingsListProps) {
         ) : (
           <ul className="space-y-4" aria-label={when === 'upcoming' ? 'Coming meetings' : 'All meetings'}>
             {meetings.data.items.map((meeting) => (
-              <MeetingItem key={meeting.id} meeting={meeting} onSaved={setSaved} />
+              <MeetingItem key={meeting.id} meeting={meeting} timeZone={timeZone} onSaved={setSaved} />
             ))}
           </ul>
         )
@@ -90,14 +92,14 @@ function AddMeeting({ onAdded }: { onAdded: (meeting: MeetingView) => void }) {
   );
 }
 
-function MeetingItem({ meeting, onSaved }: { meeting: MeetingView; onSaved: (message: string) => void }) {
+function MeetingItem({ meeting, timeZone, onSaved }: { meeting: MeetingView; timeZone: string; onSaved: (message: string) => void }) {
   const [editing, setEditing] = useState(false);
   const update = useUpdateMeeting();
   const past = meetingHasStarted(meeting);
   return (
     <li className={cn('space-y-3 rounded-stitch border-2 bg-muslin p-4 shadow-quilt sm:p-6', past ? 'border-seam' : 'border-thread-soft')}>
       <div className="space-y-1">
-        <h2 className="text-xl font-bold">{formatDateTime(meeting.startsAt)}</h2>
+        <h2 className="text-xl font-bold">{formatDateTime(meeting.startsAt, timeZone)}</h2>
         <p className="text-lg">{meeting.place}</p>
         {past ? <p className="font-semibold text-thread-soft">This meeting has taken place.</p> : null}
         {meeting.notes ? <p className="whitespace-pre-line text-thread-soft">{meeting.notes}</p> : null}
@@ -111,14 +113,14 @@ function MeetingItem({ meeting, onSaved }: { meeting: MeetingView; onSaved: (mes
             onSubmit={async (values) => {
               const { meeting: saved } = await update.mutateAsync({ meetingId: meeting.id, data: values });
               setEditing(false);
-              onSaved(`Meeting saved: ${formatDateTime(saved.startsAt)}, ${saved.place}.`);
+              onSaved(`Meeting saved: ${formatDateTime(saved.startsAt, timeZone)}, ${saved.place}.`);
             }}
           />
         ) : (
           <div className="flex flex-wrap gap-3">
             <ButtonLink to={paths.app.handoverSheet.getHref(meeting.id)}>Handover sheet</ButtonLink>
             <Button variant="secondary" onClick={() => setEditing(true)}>
-              Edit<span className="sr-only"> the meeting on {formatDateTime(meeting.startsAt)}</span>
+              Edit<span className="sr-only"> the meeting on {formatDateTime(meeting.startsAt, timeZone)}</span>
             </Button>
           </div>
         )

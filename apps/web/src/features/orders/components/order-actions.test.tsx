@@ -2,10 +2,11 @@
 import type { OrderView, RefundEffectView } from '@scrap-relay/shared';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { MemoryRouter } from 'react-router-dom';
-import { afterEach, describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { createQueryClient } from '../../../lib/react-query.ts';
+import { jsonResponse, makeSession, makeUser } from '../../../testing/fixtures.ts';
 import { makeOrderView } from '../../../testing/orders.ts';
-import { buttonNamed, cleanup, click, render } from '../../../testing/render.tsx';
+import { buttonNamed, cleanup, click, render, waitFor } from '../../../testing/render.tsx';
 import { OrderActions } from './order-actions.tsx';
 
 afterEach(() => cleanup());
@@ -68,5 +69,62 @@ describe('the treasurer’s refund dialog', () => {
       expect(text).not.toMatch(/owe|paid out/);
       cleanup();
     }
+  });
+});
+
+describe('marking a parcel received', () => {
+  const posted = makeOrderView({
+    state: 'posted',
+    paidAt: '2026-11-02T10:05:00.000Z',
+    postedAt: '2026-11-03T09:00:00.000Z',
+    abilities: { pay: false, markPosted: false, markReceived: true, cancel: false, refund: false, reportProblem: true, viewAddress: true },
+  });
+
+  async function openActions() {
+    const calls: string[] = [];
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
+        const path = new URL(String(input), 'http://app.test').pathname;
+        if (path === '/api/session') return jsonResponse(200, makeSession(makeUser()));
+        calls.push(`${init?.method ?? 'GET'} ${path}`);
+        return jsonResponse(200, { order: { ...posted, state: 'received', receivedAt: '2026-11-06T16:00:00.000Z' } });
+      }),
+    );
+    const rendered = await render(
+      <QueryClientProvider client={createQueryClient()}>
+        <MemoryRouter>
+          <OrderActions order={posted} />
+        </MemoryRouter>
+      </QueryClientProvider>,
+    );
+    return { calls, ...rendered };
+  }
+
+  afterEach(() => vi.unstubAllGlobals());
+
+  it('asks first, and sends nothing when the buyer says not yet', async () => {
+    const { container, calls } = await openActions();
+
+    await click(buttonNamed(container, 'Mark as received'));
+    const dialog = container.querySelector('dialog');
+    expect(dialog?.open).toBe(true);
+    expect(dialog?.textContent).toContain('Has the parcel from Orla Vance arrived?');
+    expect(dialog?.textContent).toContain('Orla Vance is e-mailed that it arrived safely, and this cannot be undone.');
+
+    await click(buttonNamed(dialog!, 'Not yet'));
+    expect(dialog?.open).toBe(false);
+    expect(calls).toEqual([]);
+  });
+
+  it('marks it received once confirmed, and closes the question', async () => {
+    const { container, calls } = await openActions();
+
+    await click(buttonNamed(container, 'Mark as received'));
+    const dialog = container.querySelector('dialog')!;
+    await click(buttonNamed(dialog, 'Yes, mark it received'));
+
+    await waitFor(() => expect(calls).toEqual(['POST /api/orders/o-1/received']));
+    await waitFor(() => expect(dialog.open).toBe(false));
   });
 });

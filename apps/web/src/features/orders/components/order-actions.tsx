@@ -11,9 +11,9 @@ import { useMarkPosted } from '../api/mark-posted.ts';
 import { useMarkReceived } from '../api/mark-received.ts';
 import { useRefundOrder } from '../api/refund-order.ts';
 import { useReportProblem } from '../api/report-problem.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
+import { formatShortDateTime } from '../../../utils/meetings.ts';
 import { TextAreaField } from './text-area-field.tsx';
-
-const timeFormat = new Intl.DateTimeFormat('en', { hour: 'numeric', minute: '2-digit', day: 'numeric', month: 'long' });
 
 /** Everything the viewer may do with this order, as the API's `abilities` say; nothing is worked out here. */
 export function OrderActions({ order }: { order: OrderView }) {
@@ -39,6 +39,7 @@ export function OrderActions({ order }: { order: OrderView }) {
 }
 
 function PayAction({ order, checkoutUrl }: { order: OrderView; checkoutUrl: string }) {
+  const timeZone = useGuildTimeZone();
   return (
     <div className="space-y-2">
       {/* The payment page is the card processor's (another site), so a plain link, not a router link. */}
@@ -47,7 +48,7 @@ function PayAction({ order, checkoutUrl }: { order: OrderView; checkoutUrl: stri
       </a>
       {order.holdExpiresAt ? (
         <p className="text-thread-soft">
-          The bundles are held for you until {timeFormat.format(new Date(order.holdExpiresAt))}. After that they go back on the shelf and
+          The bundles are held for you until {formatShortDateTime(order.holdExpiresAt, timeZone)}. After that they go back on the shelf and
           this order is cancelled.
         </p>
       ) : null}
@@ -76,15 +77,36 @@ function MarkPostedAction({ order }: { order: OrderView }) {
   );
 }
 
+/** Asked before it is done: saying a parcel arrived cannot be taken back, and ends the order for the seller. */
 function MarkReceivedAction({ order }: { order: OrderView }) {
-  const received = useMarkReceived();
+  const [open, setOpen] = useState(false);
+  const received = useMarkReceived({ onSuccess: () => setOpen(false) });
+  const count = order.items.reduce((sum, item) => sum + item.quantity, 0);
   return (
     <div className="space-y-2">
-      <Button onClick={() => received.mutate(order.id)} isPending={received.isPending} pendingLabel="Saving…">
-        Mark as received
-      </Button>
+      <Button onClick={() => setOpen(true)}>Mark as received</Button>
       <p className="text-thread-soft">{order.seller.name} is told it arrived safely.</p>
-      {received.isError ? <Alert tone="error" title={received.error.message} /> : null}
+      <ConfirmDialog
+        open={open}
+        title={`Has the parcel from ${order.seller.name} arrived?`}
+        confirmLabel="Yes, mark it received"
+        cancelLabel="Not yet"
+        pendingLabel="Saving…"
+        isPending={received.isPending}
+        onCancel={() => setOpen(false)}
+        onConfirm={() => received.mutate(order.id)}
+      >
+        <p>
+          Open it first and check the {count === 1 ? 'bundle is' : `${count} bundles are`} there. {order.seller.name} is e-mailed that it arrived
+          safely, and this cannot be undone.
+        </p>
+        <p>Something missing, damaged or not as described? You can still report a problem with this order afterwards.</p>
+        {received.isError ? (
+          <p role="alert" className="font-semibold text-madder-deep">
+            {received.error.message}
+          </p>
+        ) : null}
+      </ConfirmDialog>
     </div>
   );
 }

@@ -4,15 +4,14 @@ import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths.ts';
 import { Panel } from '../../../components/layouts/page.tsx';
 import { PostageWorking } from '../../../components/postage-quote-summary.tsx';
+import { PostalAddressLines } from '../../../components/postal-address.tsx';
 import { Alert } from '../../../components/ui/alert.tsx';
-import { formatMeetingWhen } from '../../../utils/meetings.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
+import { formatMeetingWhen, formatTimestamp } from '../../../utils/meetings.ts';
 import type { PaymentWait } from '../hooks/use-order-after-payment.ts';
-import { orderNextStep, orderTimeline } from '../utils/order-story.ts';
+import { orderNextStep, orderTimeline, postingAddressLabel } from '../utils/order-story.ts';
 import { OrderActions } from './order-actions.tsx';
 import { OrderStatusBadge } from './order-status-badge.tsx';
-
-const whenFormat = new Intl.DateTimeFormat('en', { day: 'numeric', month: 'long', year: 'numeric', hour: 'numeric', minute: '2-digit' });
-const when = (iso: string) => whenFormat.format(new Date(iso));
 
 export interface OrderDetailsProps {
   order: OrderView;
@@ -25,6 +24,11 @@ export interface OrderDetailsProps {
 export function OrderDetails({ order, units, payment }: OrderDetailsProps) {
   const openProblems = order.problems.filter((problem) => !problem.resolvedAt);
   const money = (minor: number) => formatMoney(minor, order.currency);
+  // Times in the guild's zone (its meetings' and e-mails'), whatever the device's clock says.
+  const timeZone = useGuildTimeZone();
+  const when = (iso: string) => formatTimestamp(iso, timeZone);
+  // Card-payment notes only where a card is, or was, asked for something: not a free order, nor one cancelled unpaid.
+  const charged = order.chargeMinor > 0 && (order.state !== 'cancelled' || order.paidAt !== null);
   return (
     <div className="space-y-6">
       {payment ? <PaymentNotice wait={payment} order={order} /> : null}
@@ -88,11 +92,13 @@ export function OrderDetails({ order, units, payment }: OrderDetailsProps) {
         {order.viewerIs === 'seller' && order.sellerCreditMinor !== null && order.sellerCreditMinor > 0 ? (
           <p className="text-thread-soft">The treasurer pays out your balance; the postage part covers what you pay to post it.</p>
         ) : null}
-        <p className="text-thread-soft">The guild is the merchant for card payments. Fees and refunds follow the guild’s own rules and local law.</p>
+        {charged ? (
+          <p className="text-thread-soft">The guild is the merchant for card payments. Fees and refunds follow the guild’s own rules and local law.</p>
+        ) : null}
       </Panel>
 
-      <Panel title={order.fulfilment === 'post' ? 'Posting' : 'Meeting handover'}>
-        {order.fulfilment === 'post' ? <PostingDetails order={order} /> : <MeetingDetails order={order} />}
+      <Panel title={order.fulfilment === 'post' ? 'By post' : 'Meeting handover'}>
+        {order.fulfilment === 'post' ? <PostingDetails order={order} when={when} /> : <MeetingDetails order={order} timeZone={timeZone} />}
         {order.postageExplanation.length > 0 ? <PostageWorking explanation={order.postageExplanation} className="bg-linen" /> : null}
       </Panel>
 
@@ -144,11 +150,11 @@ function PaymentNotice({ wait, order }: { wait: PaymentWait; order: OrderView })
   );
 }
 
-function PostingDetails({ order }: { order: OrderView }) {
+function PostingDetails({ order, when }: { order: OrderView; when: (iso: string) => string }) {
   return (
     <div className="space-y-3">
       {order.address ? (
-        <AddressBlock label={order.viewerIs === 'buyer' ? 'Posted to you at' : 'Post to'} address={order.address} />
+        <AddressBlock label={postingAddressLabel(order)} address={order.address} />
       ) : (
         <p>
           {order.state === 'awaiting_payment'
@@ -171,11 +177,11 @@ function PostingDetails({ order }: { order: OrderView }) {
   );
 }
 
-function MeetingDetails({ order }: { order: OrderView }) {
+function MeetingDetails({ order, timeZone }: { order: OrderView; timeZone: string }) {
   if (!order.meeting) return <p>The meeting for this handover is no longer listed; ask the guild’s librarian.</p>;
   return (
     <div className="space-y-1">
-      <p className="font-semibold">{formatMeetingWhen(order.meeting.startsAt)}</p>
+      <p className="font-semibold">{formatMeetingWhen(order.meeting.startsAt, timeZone)}</p>
       <p>{order.meeting.place}</p>
       {order.meeting.notes ? <p className="text-thread-soft">{order.meeting.notes}</p> : null}
       <p className="text-thread-soft">The librarian ticks the handover off at the door, using the reference {order.reference}.</p>
@@ -187,15 +193,7 @@ export function AddressBlock({ label, address }: { label: string; address: Posta
   return (
     <div>
       <p className="font-semibold">{label}</p>
-      <address className="not-italic leading-snug">
-        {[address.name, address.line1, address.line2, [address.town, address.region].filter(Boolean).join(', '), `${address.postalCode} ${address.country}`]
-          .filter(Boolean)
-          .map((line, index) => (
-            <span key={index} className="block">
-              {line}
-            </span>
-          ))}
-      </address>
+      <PostalAddressLines address={address} />
     </div>
   );
 }

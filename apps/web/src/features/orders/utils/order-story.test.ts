@@ -1,7 +1,7 @@
 import type { OrderView } from '@scrap-relay/shared';
 import { describe, expect, it } from 'vitest';
 import { makeOrderView } from '../../../testing/orders.ts';
-import { orderNextStep, orderTimeline } from './order-story.ts';
+import { orderNextStep, orderTimeline, postingAddressLabel } from './order-story.ts';
 
 const base = makeOrderView();
 
@@ -26,6 +26,20 @@ describe('order timeline', () => {
   it('calls a free order confirmed, not paid, even when placed and confirmed in the same moment', () => {
     const at = '2026-11-02T10:00:00.000Z';
     const order: OrderView = { ...base, state: 'confirmed', fulfilment: 'meeting', chargeMinor: 0, subtotalMinor: 0, postageMinor: 0, paidAt: at, createdAt: at };
+    expect(orderTimeline(order).map((e) => e.title)).toEqual(['Order placed', 'Confirmed']);
+  });
+
+  it('puts the order first even when its free confirmation was stamped a moment before the order itself', () => {
+    const order: OrderView = {
+      ...base,
+      state: 'confirmed',
+      fulfilment: 'meeting',
+      chargeMinor: 0,
+      subtotalMinor: 0,
+      postageMinor: 0,
+      paidAt: '2026-12-02T18:24:09.118Z',
+      createdAt: '2026-12-02T18:24:09.121Z',
+    };
     expect(orderTimeline(order).map((e) => e.title)).toEqual(['Order placed', 'Confirmed']);
   });
 
@@ -86,5 +100,28 @@ describe('what happens next', () => {
   it('says whether a cancelled order was refunded', () => {
     expect(orderNextStep({ ...base, state: 'cancelled' })).toBe('Cancelled. Nothing was charged.');
     expect(orderNextStep({ ...base, state: 'cancelled', refundedAt: '2026-11-02T11:00:00.000Z' })).toMatch(/refunded in full/);
+  });
+});
+
+describe('the label over the postal address', () => {
+  const posted = (order: Partial<OrderView>) => postingAddressLabel({ ...base, ...order });
+
+  it('never says the parcel went before it did', () => {
+    expect(posted({ state: 'awaiting_payment' })).toBe('Will be posted to you at');
+    expect(posted({ state: 'confirmed', paidAt: '2026-11-02T10:05:00.000Z' })).toBe('Will be posted to you at');
+    expect(posted({ state: 'confirmed', viewerIs: 'seller' })).toBe('Post to');
+    expect(posted({ state: 'confirmed', viewerIs: 'officer' })).toBe('Will be posted to');
+  });
+
+  it('says it was posted once it was', () => {
+    expect(posted({ state: 'posted', postedAt: '2026-11-03T09:00:00.000Z' })).toBe('Posted to you at');
+    expect(posted({ state: 'received', postedAt: '2026-11-03T09:00:00.000Z', viewerIs: 'seller' })).toBe('Posted to');
+    expect(posted({ state: 'refunded', postedAt: '2026-11-03T09:00:00.000Z' })).toBe('Posted to you at');
+  });
+
+  it('says it was only ever meant to go when the order ended first', () => {
+    expect(posted({ state: 'cancelled', cancelledAt: '2026-11-02T11:00:00.000Z' })).toBe('Was to be posted to you at');
+    expect(posted({ state: 'cancelled', viewerIs: 'seller' })).toBe('Was to be posted to');
+    expect(posted({ state: 'refunded', refundedAt: '2026-11-02T11:00:00.000Z', viewerIs: 'officer' })).toBe('Was to be posted to');
   });
 });

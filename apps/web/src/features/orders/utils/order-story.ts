@@ -46,7 +46,30 @@ export function orderTimeline(order: OrderView): TimelineEvent[] {
   if (order.refundedAt) {
     events.push({ key: 'refunded', at: order.refundedAt, title: 'Refunded', detail: `${formatMoney(order.chargeMinor, order.currency)} back to the card` });
   }
-  return events.sort((a, b) => a.at.localeCompare(b.at) || rankOf(a.key) - rankOf(b.key));
+  // Oldest first, and the order is always placed first: a free order's confirmation is stamped a moment
+  // before the order row itself, so by the clock alone it would come first.
+  const [placed, ...rest] = events;
+  return [placed!, ...rest.sort((a, b) => a.at.localeCompare(b.at) || rankOf(a.key) - rankOf(b.key))];
+}
+
+/**
+ * The label over the postal address on a posted order, in the tense of where the parcel is: it has not gone
+ * while the order waits for payment or for the seller, it went once posted, and it never will once cancelled.
+ */
+export function postingAddressLabel(order: Pick<OrderView, 'state' | 'viewerIs' | 'postedAt'>): string {
+  const toYou = order.viewerIs === 'buyer';
+  if (order.postedAt) return toYou ? 'Posted to you at' : 'Posted to';
+  switch (order.state) {
+    case 'cancelled':
+    case 'refunded':
+      return toYou ? 'Was to be posted to you at' : 'Was to be posted to';
+    case 'awaiting_payment':
+    case 'confirmed':
+      if (order.viewerIs === 'seller') return order.state === 'confirmed' ? 'Post to' : 'Will be posted to';
+      return toYou ? 'Will be posted to you at' : 'Will be posted to';
+    default:
+      return toYou ? 'By post to you at' : 'By post to';
+  }
 }
 
 /**

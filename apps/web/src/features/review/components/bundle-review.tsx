@@ -6,7 +6,6 @@ import {
   FIBRE_LABELS,
   formatLength,
   formatWeight,
-  MM_PER_INCH,
   OFFER_LABELS,
   STANDARD_CUT_LABELS,
   STANDARD_CUTS,
@@ -17,10 +16,12 @@ import {
 } from '@scrap-relay/shared';
 import type { ReactNode } from 'react';
 import { Panel } from '../../../components/layouts/page.tsx';
+import { ColourSwatch, colourWords } from '../../../components/colour-swatch.tsx';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { formatOffer } from '../../../utils/bundle-text.ts';
 import { formatDate } from '../../../utils/format.ts';
 import { photoSrcSet } from '../../../utils/photo-sources.ts';
+import { formatCount, yieldFacts } from '../../../utils/yield-text.ts';
 import { formatWaitingTime } from '../utils/waiting-time.ts';
 import { Disclosures } from './disclosures.tsx';
 import { ReviewDecisionForm, type ReviewOutcome } from './review-decision-form.tsx';
@@ -75,7 +76,7 @@ function Decision({ bundle, onDecided }: { bundle: BundleView; onDecided: (outco
   }
   return (
     <Panel title="Your decision">
-      <ReviewDecisionForm bundleId={bundle.id} title={bundle.title} onDecided={onDecided} />
+      <ReviewDecisionForm bundleId={bundle.id} title={bundle.title} offer={bundle.offer} onDecided={onDecided} />
     </Panel>
   );
 }
@@ -102,8 +103,10 @@ function Photos({ title, photos }: { title: string; photos: PhotoView[] }) {
             <span className="sr-only"> (opens full size in a new tab)</span>
           </a>
           <figcaption className="flex items-center gap-2 text-thread-soft">
-            <span aria-hidden="true" className="inline-block size-5 rounded border border-selvage" style={{ backgroundColor: photo.averageHex }} />
-            Photo {index + 1} of {photos.length} · average colour {photo.averageHex}
+            Photo {index + 1} of {photos.length} ·
+            <ColourSwatch hex={photo.averageHex} of="average colour of the photo" />
+            {/* The swatch's name says the same to screen readers. */}
+            <span aria-hidden="true">average colour: {colourWords(photo.averageHex)}</span>
           </figcaption>
         </figure>
       ))}
@@ -160,7 +163,7 @@ function Contents({ bundle, units }: { bundle: BundleView; units: UnitSystem }) 
               <tr key={index} className="border-b border-seam">
                 <td className="py-1 pr-3">{formatLength(piece.widthMm, units)}</td>
                 <td className="py-1 pr-3">{formatLength(piece.heightMm, units)}</td>
-                <td className="py-1">{piece.count}</td>
+                <td className="py-1">{formatCount(piece.count)}</td>
               </tr>
             ))}
           </tbody>
@@ -170,12 +173,8 @@ function Contents({ bundle, units }: { bundle: BundleView; units: UnitSystem }) 
   );
 }
 
+/** The same figures, worded and rounded the same, as the bundle page shows members (utils/yield-text.ts). */
 function YieldPanel({ estimate, cutPlan, units }: { estimate: YieldEstimate; cutPlan: BundleView['cutPlan']; units: UnitSystem }) {
-  const area = units === 'metric' ? `${estimate.areaCm2.toLocaleString('en')} cm²` : `${estimate.areaSqIn.toLocaleString('en')} sq in`;
-  const length =
-    units === 'metric'
-      ? `${(estimate.lengthMm / 1000).toFixed(1)} m at ${formatLength(Math.round(estimate.usableWidthIn * MM_PER_INCH), 'metric')} wide`
-      : `${estimate.linearYards} yd at ${estimate.usableWidthIn} in wide`;
   return (
     <Panel title="Yield estimate">
       <p className="text-thread-soft">
@@ -183,12 +182,11 @@ function YieldPanel({ estimate, cutPlan, units }: { estimate: YieldEstimate; cut
         not a promise that every piece is big enough.
       </p>
       <Facts>
-        <Fact term="Usable area">{area}</Fact>
-        <Fact term="As yardage">{length}</Fact>
-        <Fact term="2½-inch strips">{estimate.stripEquivalents} across the width of fabric</Fact>
-        <Fact term="5-inch squares">{estimate.fiveInchSquares}</Fact>
-        <Fact term="2½-inch squares">{estimate.twoAndHalfInchSquares}</Fact>
-        <Fact term="10-inch squares">{estimate.tenInchSquares}</Fact>
+        {yieldFacts(estimate, units).map(({ label, value }) => (
+          <Fact key={label} term={label}>
+            {value}
+          </Fact>
+        ))}
       </Facts>
       {cutPlan ? (
         <>
@@ -196,7 +194,7 @@ function YieldPanel({ estimate, cutPlan, units }: { estimate: YieldEstimate; cut
           <Facts>
             {STANDARD_CUTS.map((cut) => (
               <Fact key={cut} term={STANDARD_CUT_LABELS[cut]}>
-                {cutPlan.totals[cut]}
+                {formatCount(cutPlan.totals[cut])}
               </Fact>
             ))}
           </Facts>

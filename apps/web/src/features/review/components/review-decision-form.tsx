@@ -1,4 +1,4 @@
-import { reviewDecisionSchema, type ReviewDecisionInput } from '@scrap-relay/shared';
+import { reviewDecisionSchema, type Offer, type ReviewDecisionInput } from '@scrap-relay/shared';
 import { useFormContext, useFormState } from 'react-hook-form';
 import type { z } from 'zod';
 import { Button } from '../../../components/ui/button.tsx';
@@ -9,6 +9,8 @@ import { useDecideReview } from '../api/decide-review.ts';
 export interface ReviewOutcome {
   decision: ReviewDecisionInput['decision'];
   title: string;
+  /** A starter bundle goes to the waiting list, not onto the shelf for everyone: the message after approval says so. */
+  offer?: Offer | null;
 }
 
 type DecisionFormValues = z.input<typeof reviewDecisionSchema>;
@@ -16,6 +18,7 @@ type DecisionFormValues = z.input<typeof reviewDecisionSchema>;
 export interface ReviewDecisionFormProps {
   bundleId: string;
   title: string;
+  offer?: Offer | null;
   onDecided: (outcome: ReviewOutcome) => void;
 }
 
@@ -23,7 +26,7 @@ export interface ReviewDecisionFormProps {
  * Notes and two buttons. Returning needs notes (the schema says so, and the seller
  * reads them in the e-mail); approving may carry a note the seller sees on the bundle.
  */
-export function ReviewDecisionForm({ bundleId, title, onDecided }: ReviewDecisionFormProps) {
+export function ReviewDecisionForm({ bundleId, title, offer = null, onDecided }: ReviewDecisionFormProps) {
   const decide = useDecideReview();
   return (
     <Form<DecisionFormValues, ReviewDecisionInput>
@@ -33,12 +36,12 @@ export function ReviewDecisionForm({ bundleId, title, onDecided }: ReviewDecisio
         // An empty note on approval is no note at all.
         const data = input.notes ? input : { decision: input.decision };
         await decide.mutateAsync({ bundleId, data });
-        onDecided({ decision: input.decision, title });
+        onDecided({ decision: input.decision, title, offer });
       }}
       className="space-y-4"
     >
       <NotesField />
-      <DecisionButtons />
+      <DecisionButtons offer={offer} />
     </Form>
   );
 }
@@ -58,7 +61,8 @@ function NotesField() {
   );
 }
 
-function DecisionButtons() {
+/** Starter bundles never go on the shelf: approving one offers it to the waiting list. */
+function DecisionButtons({ offer }: { offer: Offer | null }) {
   const { setValue, watch } = useFormContext<DecisionFormValues>();
   const { isSubmitting } = useFormState<DecisionFormValues>();
   const decision = watch('decision');
@@ -67,7 +71,7 @@ function DecisionButtons() {
   return (
     <div className="flex flex-col gap-3 sm:flex-row sm:flex-wrap">
       <Button type="submit" onClick={choose('approve')} disabled={isSubmitting} isPending={isSubmitting && decision === 'approve'} pendingLabel="Approving…">
-        Approve: put it on the shelf
+        {offer === 'starter' ? 'Approve: offer it to new quilters' : 'Approve: put it on the shelf'}
       </Button>
       <Button
         type="submit"

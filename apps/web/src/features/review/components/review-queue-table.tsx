@@ -1,6 +1,6 @@
 import { FIBRE_LABELS, formatWeight, OFFER_LABELS, OFFERS, type Offer, type ReviewQueueRow, type UnitSystem } from '@scrap-relay/shared';
-import { useId, useMemo, useState } from 'react';
-import { Link } from 'react-router-dom';
+import { useCallback, useId, useMemo } from 'react';
+import { Link, useLocation } from 'react-router-dom';
 import { paths } from '../../../config/paths.ts';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { Button } from '../../../components/ui/button.tsx';
@@ -10,6 +10,8 @@ import { DataTable, dataTableColumns } from '../../../components/ui/table.tsx';
 import { formatOffer } from '../../../utils/bundle-text.ts';
 import { formatDate } from '../../../utils/format.ts';
 import { useReviewQueue } from '../api/get-review-queue.ts';
+import { useQueueSearch } from '../hooks/use-queue-search.ts';
+import { QUEUE_SORT_COLUMNS } from '../utils/queue-search.ts';
 import { formatWaitingTime } from '../utils/waiting-time.ts';
 import { Disclosures } from './disclosures.tsx';
 
@@ -20,8 +22,17 @@ const offerFilterOptions = [{ value: '', label: 'Any offer' }, ...OFFERS.map((of
 /** The librarian's queue: oldest first, narrowed by offer or seller, each row opening the review page. */
 export function ReviewQueueTable({ units }: { units: UnitSystem }) {
   const queue = useReviewQueue();
-  const [offer, setOffer] = useState<Offer | ''>('');
-  const [sellerId, setSellerId] = useState('');
+  const { search, setSort, setOffer, setSellerId, setPage, fixPage } = useQueueSearch();
+  const { offer, sellerId } = search;
+  const sorting = useMemo(() => [{ id: search.sort.column, desc: search.sort.desc }], [search.sort.column, search.sort.desc]);
+  const changeSorting = useCallback(
+    (next: { id: string; desc: boolean }[]) => {
+      const column = QUEUE_SORT_COLUMNS.find((c) => c === next[0]?.id);
+      if (column) setSort(column, next[0]!.desc);
+    },
+    [setSort],
+  );
+  const changePage = useCallback((index: number, pastTheEnd?: boolean) => (pastTheEnd ? fixPage(index + 1) : setPage(index + 1)), [fixPage, setPage]);
   const offerId = useId();
   const sellerSelectId = useId();
 
@@ -93,8 +104,10 @@ export function ReviewQueueTable({ units }: { units: UnitSystem }) {
     return [
       { value: '', label: 'Any seller' },
       ...[...sellers].sort((a, b) => a[1].localeCompare(b[1])).map(([value, label]) => ({ value, label })),
+      // A seller kept in the address whose bundles have all been reviewed since.
+      ...(sellerId && !sellers.has(sellerId) ? [{ value: sellerId, label: 'A seller with nothing waiting now' }] : []),
     ];
-  }, [queue.data]);
+  }, [queue.data, sellerId]);
 
   if (queue.isPending) return <Loading label="Loading the review queue…" />;
   if (queue.isError) {
@@ -132,7 +145,10 @@ export function ReviewQueueTable({ units }: { units: UnitSystem }) {
         columns={columns}
         getRowId={(row) => row.id}
         columnFilters={columnFilters}
-        initialSorting={[{ id: 'submittedAt', desc: false }]}
+        sorting={sorting}
+        onSortingChange={changeSorting}
+        pageIndex={search.page - 1}
+        onPageIndexChange={changePage}
         pageSize={20}
         noun={['bundle', 'bundles']}
         emptyMessage={filtered ? 'No bundle in the queue matches.' : 'Nothing is waiting for review. Well done!'}
@@ -168,9 +184,11 @@ function SellerHistory({ row }: { row: ReviewQueueRow }) {
 
 /** The title opens the review page; the link is tall enough to tap. */
 function QueueTitle({ row }: { row: ReviewQueueRow }) {
+  // The queue's view goes along, so the review page's "Back to the queue" returns to this sort, filter and page.
+  const { search } = useLocation();
   return (
     <div className="md:min-w-48">
-      <Link to={paths.app.reviewBundle.getHref(row.id)} className="inline-flex min-h-11 items-center text-lg font-bold">
+      <Link to={paths.app.reviewBundle.getHref(row.id)} state={{ queueSearch: search }} className="inline-flex min-h-11 items-center text-lg font-bold">
         {row.title}
       </Link>
       <p className="text-thread-soft">{FIBRE_LABELS[row.fibre]}</p>

@@ -5,7 +5,7 @@ import { Button, ButtonLink } from '../../../components/ui/button.tsx';
 import { Select } from '../../../components/ui/field.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { cn } from '../../../utils/cn.ts';
-import { countFilters, type ShelfSort } from '../../../utils/shelf-filters.ts';
+import { countFilters, type ShelfSort } from '../../../utils/shelf-address.ts';
 import { shelfQueryFor, useShelf } from '../api/get-shelf.ts';
 import { useShelfSearch } from '../hooks/use-shelf-search.ts';
 import { BundleCard, type CardPhotoLoading } from './bundle-card.tsx';
@@ -69,10 +69,12 @@ export interface ShelfBrowserProps {
   currency: string;
   /** Something to offer beside the results for the filters in force (the wishes feature's "save as a wish"). */
   renderForFilters?: (filters: ShelfFilters) => ReactNode;
+  /** What to suggest when the filters match nothing (the wishes feature's: save them as a wish, or that they are one). */
+  renderNoMatches?: (filters: ShelfFilters) => ReactNode;
 }
 
 /** Filters (folded away on phones), sort, one page of bundle cards and the way to the next page. */
-export function ShelfBrowser({ units, currency, renderForFilters }: ShelfBrowserProps) {
+export function ShelfBrowser({ units, currency, renderForFilters, renderNoMatches }: ShelfBrowserProps) {
   const { search, setFilters, setSort, pageHref } = useShelfSearch();
   const shelf = useShelf(shelfQueryFor(search));
   const [filtersOpen, setFiltersOpen] = useState(false);
@@ -180,6 +182,7 @@ export function ShelfBrowser({ units, currency, renderForFilters }: ShelfBrowser
             units={units}
             updating={shelf.isPlaceholderData}
             filtered={chosen > 0}
+            noMatches={renderNoMatches?.(search.filters)}
             pageHref={pageHref}
             // A new page replaces the cards in place: take the reader back to the top of the list.
             onPage={() => resultsHeading.current?.focus()}
@@ -211,12 +214,13 @@ interface ResultsProps {
   units: UnitSystem;
   updating: boolean;
   filtered: boolean;
+  noMatches?: ReactNode;
   pageHref: (page: number) => string;
   onPage: () => void;
   onClear: () => void;
 }
 
-function Results({ shelf, units, updating, filtered, pageHref, onPage, onClear }: ResultsProps) {
+function Results({ shelf, units, updating, filtered, noMatches, pageHref, onPage, onClear }: ResultsProps) {
   const { items, page, pageSize, total, totalCapped } = shelf;
   const pageCount = Math.max(1, Math.ceil(total / pageSize));
   // Past the count's cap the last page is unknown: there are at least as many pages as the one shown,
@@ -229,7 +233,9 @@ function Results({ shelf, units, updating, filtered, pageHref, onPage, onClear }
       {total === 0 && !updating ? (
         filtered ? (
           <div className="space-y-3 rounded-stitch border-2 border-dashed border-seam p-6">
-            <p>Try fewer filters, or save these as a wish (the button under the filters): you will hear by e-mail when a bundle like this is approved.</p>
+            {noMatches ?? (
+              <p>Try fewer filters, or save these as a wish (the button under the filters): you will hear by e-mail when a bundle like this is approved.</p>
+            )}
             <Button variant="secondary" onClick={onClear}>
               Clear filters
             </Button>

@@ -1,7 +1,7 @@
 import type { ShelfFilters } from '@scrap-relay/shared';
 import { useCallback, useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import { readShelfSearch, shelfSearchParams, type ShelfSearch, type ShelfSort } from '../../../utils/shelf-filters.ts';
+import { readShelfSearch, shelfSearchParams, type ShelfSearch, type ShelfSort } from '../../../utils/shelf-address.ts';
 
 /**
  * The shelf's search lives in the address: each change is a new history entry,

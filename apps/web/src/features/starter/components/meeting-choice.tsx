@@ -4,8 +4,9 @@ import { Loading } from '../../../components/ui/loading.tsx';
 import { useMeetings } from '../../../lib/meetings.ts';
 
 /**
- * Where the member will collect: one of the coming meetings. Left empty, the API
- * picks the next one (or, with none set, the next one the guild sets).
+ * Where the member will collect: one of the coming meetings, the next one chosen to begin with and named by its
+ * date (not as "The next meeting" above the same meeting again). Left as it is, nothing is sent and the API picks
+ * that same next meeting.
  */
 export function MeetingChoice({ value, onChange, error }: { value: string; onChange: (meetingId: string) => void; error?: string | undefined }) {
   const meetings = useMeetings('upcoming');
@@ -17,11 +18,10 @@ export function MeetingChoice({ value, onChange, error }: { value: string; onCha
   return (
     <MeetingSelect
       label="Collect it at"
-      hint="Bundles change hands at the door of a guild meeting."
+      hint="Bundles change hands at the door of a guild meeting: the next one, unless you choose a later one."
       meetings={items}
-      value={value}
+      value={value || items[0]!.id}
       onChange={onChange}
-      emptyLabel="The next meeting"
       error={error}
     />
   );

@@ -2,6 +2,7 @@ import { Panel } from '../../../components/layouts/page.tsx';
 import { formatDateTime } from '../../../utils/meetings.ts';
 import { formatDate } from '../../../utils/format.ts';
 import type { StarterClaimSummary } from '../types.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 
 const STATE_TEXT: Record<StarterClaimSummary['state'], string> = {
   claimed: 'Waiting to be collected',
@@ -11,6 +12,7 @@ const STATE_TEXT: Record<StarterClaimSummary['state'], string> = {
 
 /** The starter bundles the member has claimed, with where to collect the ones still waiting. */
 export function MyClaims({ claims }: { claims: StarterClaimSummary[] }) {
+  const timeZone = useGuildTimeZone();
   if (claims.length === 0) return null;
   return (
     <Panel title="Your starter bundles">
@@ -24,7 +26,7 @@ export function MyClaims({ claims }: { claims: StarterClaimSummary[] }) {
             {claim.state === 'claimed' ? (
               <p>
                 {claim.meeting
-                  ? `Collect it at the meeting on ${formatDateTime(claim.meeting.startsAt)}, ${claim.meeting.place}.`
+                  ? `Collect it at the meeting on ${formatDateTime(claim.meeting.startsAt, timeZone)}, ${claim.meeting.place}.`
                   : 'No guild meeting is set yet: it is held for you, and we will e-mail you the date and place as soon as the guild sets its next meeting.'}
               </p>
             ) : null}

@@ -15,6 +15,7 @@ import { timeLeftText } from '../time-left.ts';
 import type { StarterOfferSummary } from '../types.ts';
 import { BundleContents, BundlePhoto } from './bundle-contents.tsx';
 import { MeetingChoice } from './meeting-choice.tsx';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 
 type Answer = { kind: 'accepted'; title: string; meetingId: string | null } | { kind: 'declined'; title: string };
 
@@ -56,6 +57,7 @@ export function StarterOffer({ offerId, units }: { offerId: string; units: UnitS
 }
 
 function OpenOffer({ offer, units, onAnswered }: { offer: StarterOfferSummary; units: UnitSystem; onAnswered: (answer: Answer) => void }) {
+  const timeZone = useGuildTimeZone();
   const bundle = useBundle(offer.bundleId);
   const [meetingId, setMeetingId] = useState('');
   const [confirmDecline, setConfirmDecline] = useState(false);
@@ -65,7 +67,7 @@ function OpenOffer({ offer, units, onAnswered }: { offer: StarterOfferSummary; u
 
   return (
     <>
-      <Alert tone="warning" title={`Please answer by ${formatDateTime(offer.expiresAt)}`} announce={false}>
+      <Alert tone="warning" title={`Please answer by ${formatDateTime(offer.expiresAt, timeZone)}`} announce={false}>
         <p>
           {timeLeftText(offer.expiresAt) ?? 'No time'} left. If you do not answer in time, it goes to the next person waiting and you leave the waiting list.
         </p>
@@ -132,6 +134,7 @@ function OpenOffer({ offer, units, onAnswered }: { offer: StarterOfferSummary; u
 }
 
 function AnswerResult({ answer }: { answer: Answer }) {
+  const timeZone = useGuildTimeZone();
   const meetings = useMeetings('upcoming');
   const meeting = answer.kind === 'accepted' ? meetings.data?.items.find((m) => m.id === answer.meetingId) : undefined;
   return (
@@ -140,7 +143,7 @@ function AnswerResult({ answer }: { answer: Answer }) {
         <Alert tone="success" title={`“${answer.title}” is yours`}>
           <p>
             {meeting
-              ? `Collect it at the meeting on ${formatDateTime(meeting.startsAt)}, ${meeting.place}.`
+              ? `Collect it at the meeting on ${formatDateTime(meeting.startsAt, timeZone)}, ${meeting.place}.`
               : 'No guild meeting is set yet: it is held for you until the guild sets its next meeting.'}{' '}
             We have sent you an e-mail with the details.
           </p>

@@ -96,7 +96,9 @@ describe('claiming a starter bundle', () => {
       if (!found) throw new Error('No meeting choice yet');
       return found;
     });
-    expect([...select.options].map((o) => o.textContent)).toEqual(['The next meeting', expect.stringContaining('Larkhollow chapel room')]);
+    // The next meeting once, by its date and place, chosen to begin with (not "The next meeting" and then the same meeting again).
+    expect([...select.options].map((o) => o.textContent)).toEqual([expect.stringContaining('Larkhollow chapel room')]);
+    expect(select.value).toBe('mt-1');
     select.value = 'mt-1';
     select.dispatchEvent(new Event('change', { bubbles: true }));
     await click(buttonNamed(container, 'Claim it'));

@@ -16,6 +16,7 @@ import { MyClaims } from './my-claims.tsx';
 import { ProgrammeExplainer } from './programme-explainer.tsx';
 import { StarterBundleCard } from './starter-bundle-card.tsx';
 import { WaitlistPanel } from './waitlist-panel.tsx';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 
 type Outcome = { kind: 'claimed'; title: string; meetingId: string | null } | { kind: 'taken' };
 
@@ -29,6 +30,7 @@ export interface StarterProgrammeProps {
 
 /** The member's starter-programme page: how it works, their standing, what is free, the waiting list and their claims. */
 export function StarterProgramme({ units, runsProgramme, canGive }: StarterProgrammeProps) {
+  const timeZone = useGuildTimeZone();
   const starter = useStarterBundles();
   const meetings = useMeetings('upcoming');
   const [claiming, setClaiming] = useState<BundleView | null>(null);
@@ -74,7 +76,7 @@ export function StarterProgramme({ units, runsProgramme, canGive }: StarterProgr
 
           {starter.data.status.offer ? (
             <Alert tone="warning" title={`A starter bundle is waiting for you: “${starter.data.status.offer.title}”`}>
-              <p>Please answer by {formatDateTime(starter.data.status.offer.expiresAt)}; after that it goes to the next person in line and you leave the waiting list.</p>
+              <p>Please answer by {formatDateTime(starter.data.status.offer.expiresAt, timeZone)}; after that it goes to the next person in line and you leave the waiting list.</p>
               <ButtonLink to={paths.app.starterOffer.getHref(starter.data.status.offer.id)}>Accept it or pass it on</ButtonLink>
             </Alert>
           ) : null}
@@ -104,8 +106,9 @@ export function StarterProgramme({ units, runsProgramme, canGive }: StarterProgr
 }
 
 function ClaimedWhere({ meetingId, meetings }: { meetingId: string | null; meetings: { id: string; startsAt: string; place: string }[] }) {
+  const timeZone = useGuildTimeZone();
   const meeting = meetings.find((m) => m.id === meetingId);
-  if (meeting) return <p>Collect it at the meeting on {formatDateTime(meeting.startsAt)}, {meeting.place}. We have sent you an e-mail too.</p>;
+  if (meeting) return <p>Collect it at the meeting on {formatDateTime(meeting.startsAt, timeZone)}, {meeting.place}. We have sent you an e-mail too.</p>;
   return <p>No guild meeting is set yet: it is held for you, and we will e-mail you the date and place as soon as the guild sets its next meeting.</p>;
 }
 

@@ -11,11 +11,13 @@ import { formatDate } from '../../../utils/format.ts';
 import { useWaitlist } from '../api/get-waitlist.ts';
 import { useRemoveWaitlistEntry } from '../api/remove-waitlist-entry.ts';
 import type { WaitlistRow } from '@scrap-relay/shared';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 
 const column = dataTableColumns<WaitlistRow>();
 
 /** The librarian's queue: everyone waiting, in the order they asked, with any open offer and its deadline. */
 export function WaitlistQueue() {
+  const timeZone = useGuildTimeZone();
   const waitlist = useWaitlist();
   const [removing, setRemoving] = useState<WaitlistRow | null>(null);
   const [removed, setRemoved] = useState<string | null>(null);
@@ -43,7 +45,7 @@ export function WaitlistQueue() {
           cell: ({ row }) =>
             row.original.offer ? (
               <span>
-                “{row.original.offer.bundleTitle}”, answer due by {formatDateTime(row.original.offer.expiresAt)}
+                “{row.original.offer.bundleTitle}”, answer due by {formatDateTime(row.original.offer.expiresAt, timeZone)}
               </span>
             ) : (
               <span className="text-thread-soft">None yet</span>

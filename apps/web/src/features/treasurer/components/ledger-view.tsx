@@ -1,13 +1,15 @@
 import { formatMoney, ledgerQuerySchema, LEDGER_ENTRY_KINDS, type LedgerEntryView, type LedgerQuery } from '@scrap-relay/shared';
 import { useId, useMemo, useState } from 'react';
+import { Link } from 'react-router-dom';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { Button, buttonClass } from '../../../components/ui/button.tsx';
 import { FieldShell, Input, Select } from '../../../components/ui/field.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { DataTable, dataTableColumns } from '../../../components/ui/table.tsx';
+import { paths } from '../../../config/paths.ts';
 import { cn } from '../../../utils/cn.ts';
 import { ledgerCsvHref, useLedger } from '../api/get-ledger.ts';
-import { LEDGER_KIND_LABELS, ledgerKindText } from '../utils/labels.ts';
+import { LEDGER_KIND_LABELS, ledgerDirection, ledgerKindText } from '../utils/labels.ts';
 
 const column = dataTableColumns<LedgerEntryView>();
 const dateTime = new Intl.DateTimeFormat('en', { day: 'numeric', month: 'short', year: 'numeric', hour: 'numeric', minute: '2-digit' });
@@ -50,15 +52,16 @@ export function LedgerView({ filters, onFiltersChange }: LedgerViewProps) {
         }),
         column.accessor('accountLabel', { header: 'Account', sortFn: 'text' }),
         column.accessor('amountMinor', {
-          header: 'Amount',
+          header: 'Amount, in or out',
           sortFn: (a, b) => a.original.amountMinor - b.original.amountMinor,
-          meta: { sortLabels: ['Smallest first', 'Largest first'], cellClassName: 'md:text-right tabular-nums' },
+          meta: { sortLabels: ['Smallest first', 'Largest first'], cellClassName: 'md:text-right' },
           cell: ({ row }) => <Amount entry={row.original} />,
         }),
         column.accessor('orderReference', {
           header: 'Order',
           enableSorting: false,
-          cell: ({ getValue }) => getValue() ?? '—',
+          // The treasurer may open any order: this is the way to one to refund it or see its story.
+          cell: ({ row }) => <OrderLink entry={row.original} />,
         }),
         column.accessor('transactionId', {
           header: 'Transaction',
@@ -120,8 +123,24 @@ export function LedgerView({ filters, onFiltersChange }: LedgerViewProps) {
   );
 }
 
+/** The signed amount (the entries of a transaction add up to zero) and what the sign means for this account. */
 function Amount({ entry }: { entry: LedgerEntryView }) {
-  return <span className={entry.amountMinor < 0 ? 'text-madder-deep' : undefined}>{formatMoney(entry.amountMinor, entry.currency)}</span>;
+  return (
+    <span className="block">
+      <span className="block font-semibold tabular-nums">{formatMoney(entry.amountMinor, entry.currency)}</span>
+      <span className="block text-base text-thread-soft">{ledgerDirection(entry.account, entry.amountMinor)}</span>
+    </span>
+  );
+}
+
+function OrderLink({ entry }: { entry: LedgerEntryView }) {
+  if (!entry.orderId) return entry.orderReference ?? '—';
+  return (
+    <Link to={paths.app.order.getHref(entry.orderId)} className="inline-flex min-h-11 items-center font-semibold whitespace-nowrap">
+      <span className="sr-only">Open order </span>
+      {entry.orderReference ?? 'the order'}
+    </Link>
+  );
 }
 
 /** The sum of what the filters select: zero across whole transactions, the guild's income when only fees are shown. */

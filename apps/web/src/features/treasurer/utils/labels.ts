@@ -25,3 +25,18 @@ export function ledgerKindText(kind: string, reverses: string | null): string {
   const reversed = isLedgerKind(reverses) ? LEDGER_KIND_LABELS[reverses].toLowerCase() : reverses;
   return `${label} of a ${reversed}`;
 }
+
+/**
+ * What an entry's sign means for its account, in the treasurer's words. Each transaction's entries add up to
+ * zero, so money a buyer pays in is a minus on the buyers' account and a plus on the accounts it is shared
+ * among; a bare "−$27.90" beside "Card payment" reads as money lost, so every amount carries its direction.
+ */
+export function ledgerDirection(account: string, amountMinor: number): string {
+  const plus = amountMinor >= 0;
+  if (account === 'buyer') return plus ? 'paid back to the buyer' : 'received from the buyer';
+  if (account === 'guild') return plus ? 'to the guild' : 'from the guild';
+  if (account === 'processor') return plus ? 'kept by the card processor' : 'returned by the card processor';
+  if (account === 'payouts') return plus ? 'paid out' : 'payout undone';
+  if (account.startsWith('seller:')) return plus ? 'owed to the seller' : 'no longer owed to the seller';
+  return plus ? 'in' : 'out';
+}

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { WishInput, WishView } from '@scrap-relay/shared';
-import { api } from '../../../lib/api-client.ts';
+import { api, isApiError } from '../../../lib/api-client.ts';
 import type { MutationConfig } from '../../../lib/react-query.ts';
 import { wishesQueryKey } from './get-wishes.ts';
 
@@ -14,6 +14,11 @@ export function useCreateWish(config: MutationConfig<WishInput, { wish: WishView
     onSuccess: async (...args) => {
       await queryClient.invalidateQueries({ queryKey: wishesQueryKey });
       await config.onSuccess?.(...args);
+    },
+    onError: async (...args) => {
+      // Refused as a twin of a wish saved elsewhere (another tab, another device): show that wish here too.
+      if (isApiError(args[0]) && args[0].status === 409) await queryClient.invalidateQueries({ queryKey: wishesQueryKey });
+      await config.onError?.(...args);
     },
   });
 }

@@ -1,4 +1,4 @@
-import { wishSchema, type ShelfFilters, type UnitSystem, type WishInput } from '@scrap-relay/shared';
+import { describeShelfFilters, wishSchema, type ShelfFilters, type UnitSystem, type WishInput } from '@scrap-relay/shared';
 import { useId, useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { z } from 'zod';
@@ -6,8 +6,9 @@ import { paths } from '../../../config/paths.ts';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { Button } from '../../../components/ui/button.tsx';
 import { Form, SubmitButton, TextField } from '../../../components/ui/form.tsx';
-import { compactFilters, countFilters, describeShelfFilters } from '../../../utils/shelf-filters.ts';
+import { compactFilters, countFilters } from '../../../utils/shelf-address.ts';
 import { useCreateWish } from '../api/create-wish.ts';
+import { useSavedWish } from '../hooks/use-saved-wish.ts';
 
 const NAME_MAX = 80;
 
@@ -17,7 +18,10 @@ export interface SaveWishPanelProps {
   currency: string;
 }
 
-/** "Save these filters as a wish": asks for a name, then keeps the shelf's current filters as a standing request. */
+/**
+ * "Save these filters as a wish": asks for a name, then keeps the shelf's current filters as a standing request.
+ * Filters already saved as one of the member's wishes say so instead: a second copy would only repeat the e-mails.
+ */
 export function SaveWishPanel({ filters, units, currency }: SaveWishPanelProps) {
   const [open, setOpen] = useState(false);
   const [saved, setSaved] = useState<string | null>(null);
@@ -25,6 +29,7 @@ export function SaveWishPanel({ filters, units, currency }: SaveWishPanelProps) 
   const hintId = useId();
   const hasFilters = countFilters(filters) > 0;
   const words = describeShelfFilters(filters, { units, currency });
+  const { savedWish } = useSavedWish(filters);
 
   return (
     <section aria-label="Save as a wish" className="space-y-3 rounded-stitch border-2 border-seam bg-muslin p-4 shadow-quilt">
@@ -48,6 +53,21 @@ export function SaveWishPanel({ filters, units, currency }: SaveWishPanelProps) 
           }}
           onCancel={() => setOpen(false)}
         />
+      ) : savedWish ? (
+        <>
+          <Button variant="secondary" className="w-full" disabled aria-describedby={hintId}>
+            <span aria-hidden="true">✓ </span>Saved as a wish
+          </Button>
+          <p id={hintId} className="text-thread-soft">
+            These filters are your wish “{savedWish.name}”: you get an e-mail when a bundle that matches is approved.
+            {saved ? null : (
+              <>
+                {' '}
+                <Link to={paths.app.wishes.getHref()}>See your wishes</Link>
+              </>
+            )}
+          </p>
+        </>
       ) : (
         <>
           <Button

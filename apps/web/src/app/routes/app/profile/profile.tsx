@@ -4,6 +4,7 @@ import { Page, Panel } from '../../../../components/layouts/page.tsx';
 import { Alert } from '../../../../components/ui/alert.tsx';
 import { Button } from '../../../../components/ui/button.tsx';
 import { Loading } from '../../../../components/ui/loading.tsx';
+import { PostalAddressPanel } from '../../../../features/account/components/postal-address-panel.tsx';
 import { sessionQueryKey, useSessionUser } from '../../../../features/auth/api/get-session.ts';
 import { useProfile } from '../../../../features/profile/api/get-profile.ts';
 import { CloseAccountPanel } from '../../../../features/profile/components/close-account-panel.tsx';
@@ -23,7 +24,7 @@ export function Component() {
   const profile = useProfile();
   const queryClient = useQueryClient();
   return (
-    <Page title="Your profile" intro="How you appear to other members, which units you read, which e-mails you get — and your own data.">
+    <Page title="Your profile" intro="How you appear to other members, which units you read, which e-mails you get, where bundles are posted to you — and your own data.">
       {profile.isPending ? <Loading label="Loading your profile…" /> : null}
       {profile.isError ? (
         <Alert tone="error" title="Your profile could not be loaded">
@@ -46,6 +47,7 @@ export function Component() {
           />
         </Panel>
       ) : null}
+      <PostalAddressPanel />
       <HistoryPanel units={user.units} />
       <DataExportPanel />
       <CloseAccountPanel onClosed={() => forgetMember(queryClient)} />

@@ -1,4 +1,4 @@
-import { useNavigate, useParams } from 'react-router-dom';
+import { useLocation, useNavigate, useParams } from 'react-router-dom';
 import { paths } from '../../../../config/paths.ts';
 import { Page } from '../../../../components/layouts/page.tsx';
 import { Alert } from '../../../../components/ui/alert.tsx';
@@ -8,15 +8,19 @@ import { isApiError } from '../../../../lib/api-client.ts';
 import { useSessionUser } from '../../../../features/auth/api/get-session.ts';
 import { useBundleForReview } from '../../../../features/review/api/get-bundle-for-review.ts';
 import { BundleReview } from '../../../../features/review/components/bundle-review.tsx';
+import { queueReturnSearch } from '../../../../features/review/utils/queue-search.ts';
 import type { ReviewQueueState } from './review-queue.tsx';
 
 export function Component() {
   const { id = '' } = useParams();
   const user = useSessionUser();
   const navigate = useNavigate();
+  const location = useLocation();
   const bundle = useBundleForReview(id);
+  // The queue as the librarian left it: its sort, filters and page came along in the link's history state.
+  const queueHref = `${paths.app.review.getHref()}${queueReturnSearch(location.state)}`;
   const backToQueue = (
-    <ButtonLink to={paths.app.review.getHref()} variant="secondary">
+    <ButtonLink to={queueHref} variant="secondary">
       ← Back to the queue
     </ButtonLink>
   );
@@ -48,7 +52,7 @@ export function Component() {
       <BundleReview
         bundle={bundle.data.bundle}
         units={user.units}
-        onDecided={(decided) => void navigate(paths.app.review.getHref(), { state: { decided } satisfies ReviewQueueState })}
+        onDecided={(decided) => void navigate(queueHref, { state: { decided } satisfies ReviewQueueState })}
       />
     </Page>
   );

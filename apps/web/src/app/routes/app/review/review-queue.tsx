@@ -1,8 +1,8 @@
 import { useEffect, useState } from 'react';
 import { useLocation, useNavigate } from 'react-router-dom';
 import { Page } from '../../../../components/layouts/page.tsx';
-import { Alert } from '../../../../components/ui/alert.tsx';
 import { useSessionUser } from '../../../../features/auth/api/get-session.ts';
+import { DecisionDone } from '../../../../features/review/components/decision-done.tsx';
 import type { ReviewOutcome } from '../../../../features/review/components/review-decision-form.tsx';
 import { ReviewQueueTable } from '../../../../features/review/components/review-queue-table.tsx';
 
@@ -19,8 +19,9 @@ export function Component() {
 
   // Shown once: clear it from the history entry so a reload or the back button does not repeat it.
   useEffect(() => {
-    if ((location.state as ReviewQueueState | null)?.decided) void navigate(location.pathname, { replace: true, state: null });
-  }, [location.pathname, location.state, navigate]);
+    // Keep the address's search: it holds the queue's sort, filters and page.
+    if ((location.state as ReviewQueueState | null)?.decided) void navigate({ pathname: location.pathname, search: location.search }, { replace: true, state: null });
+  }, [location.pathname, location.search, location.state, navigate]);
 
   return (
     <Page
@@ -28,15 +29,7 @@ export function Component() {
       intro="Bundles waiting for a librarian before they go on the shelf, longest waiting first. Open one to see its photos and decide."
       width="wide"
     >
-      {decided ? (
-        <Alert tone="success" title={decided.decision === 'approve' ? `Approved “${decided.title}”` : `Returned “${decided.title}” with your notes`}>
-          <p>
-            {decided.decision === 'approve'
-              ? 'It is on the shelf now. The seller has been e-mailed, and so has every member whose wish it matches.'
-              : 'The seller has been e-mailed your notes and can edit the bundle and send it again.'}
-          </p>
-        </Alert>
-      ) : null}
+      {decided ? <DecisionDone outcome={decided} /> : null}
       <ReviewQueueTable units={user.units} />
     </Page>
   );

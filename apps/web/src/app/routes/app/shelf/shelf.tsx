@@ -4,6 +4,7 @@ import { useSession, useSessionUser } from '../../../../features/auth/api/get-se
 import { ShelfBrowser } from '../../../../features/shelf/components/shelf-browser.tsx';
 
 const SaveWishPanel = lazy(() => import('../../../../features/wishes/components/save-wish-panel.tsx').then((m) => ({ default: m.SaveWishPanel })));
+const NoMatchesWishNote = lazy(() => import('../../../../features/wishes/components/no-matches-wish-note.tsx').then((m) => ({ default: m.NoMatchesWishNote })));
 
 export function Component() {
   const user = useSessionUser();
@@ -21,6 +22,11 @@ export function Component() {
         renderForFilters={(filters) => (
           <Suspense fallback={null}>
             <SaveWishPanel filters={filters} units={user.units} currency={guild.currency} />
+          </Suspense>
+        )}
+        renderNoMatches={(filters) => (
+          <Suspense fallback={<p>Try fewer filters.</p>}>
+            <NoMatchesWishNote filters={filters} />
           </Suspense>
         )}
       />

@@ -14,7 +14,7 @@ export function Component() {
     <Page
       title="Ledger"
       width="wide"
-      intro="Every movement of money through the guild’s card account, in cents, each transaction balancing to zero. Fees and refunds follow the guild’s rules and local law."
+      intro="Every movement of money through the guild’s card account. The lines of each transaction add up to zero: what a buyer pays is a minus on the buyers’ line, shared out as pluses to the seller, the guild and the card processor. Open an order from its reference to refund it. Fees and refunds follow the guild’s rules and local law."
     >
       <LedgerView filters={filters} onFiltersChange={change} />
     </Page>

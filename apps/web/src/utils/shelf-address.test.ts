@@ -2,13 +2,12 @@ import { MAX_BUNDLE_GRAMS, MAX_PRICE_MINOR, shelfFiltersSchema, shelfQuerySchema
 import { describe, expect, it } from 'vitest';
 import {
   countFilters,
-  describeShelfFilters,
   parseShelfFilters,
   readShelfSearch,
   SHELF_FILTER_KEYS,
   SHELF_FILTER_LIMITS,
   shelfSearchParams,
-} from './shelf-filters.ts';
+} from './shelf-address.ts';
 
 describe('the shelf search in the address', () => {
   it('reads filters, sort and page from the query string', () => {
@@ -77,30 +76,5 @@ describe('reading filters without the schemas, as the API reads them', () => {
       const params = new URLSearchParams(page === null ? '' : `page=${encodeURIComponent(page)}`);
       expect(readShelfSearch(params).page, `page=${page}`).toBe(parsed.success ? parsed.data : 1);
     }
-  });
-});
-
-describe('filters in words', () => {
-  const usd = { units: 'imperial' as const, currency: 'USD' };
-
-  it('reads like a request', () => {
-    expect(describeShelfFilters({ fibre: 'batik', value: 'dark', cut: 'strips' }, usd)).toBe('Batik, dark, strips (by width)');
-    expect(describeShelfFilters({ family: 'black_white', offer: 'postage_only' }, usd)).toBe('Black and white, free — postage only');
-  });
-
-  it('keeps the capital of English paper piecing inside the sentence', () => {
-    expect(describeShelfFilters({ value: 'light', cut: 'epp_shapes' }, usd)).toBe('Light, English paper piecing shapes');
-  });
-
-  it('gives weights in the member’s units and the price in the guild’s currency', () => {
-    // 454 g is 1 lb to the nearest ounce (NIST SP 811: 1 lb = 453.59237 g).
-    expect(describeShelfFilters({ minGrams: 454, maxGrams: 907 }, usd)).toBe('1 lb to 2 lb');
-    expect(describeShelfFilters({ minGrams: 500 }, { units: 'metric', currency: 'GBP' })).toBe('At least 500 g');
-    expect(describeShelfFilters({ maxGrams: 1500, maxPriceMinor: 750 }, { units: 'metric', currency: 'GBP' })).toBe('Up to 1.5 kg, costing up to £7.50');
-    expect(describeShelfFilters({ q: 'reds' }, usd)).toBe('Matching “reds”');
-  });
-
-  it('says when nothing is chosen', () => {
-    expect(describeShelfFilters({}, usd)).toBe('Everything on the shelf');
   });
 });

@@ -1,17 +1,7 @@
-import {
-  COLOUR_FAMILY_LABELS,
-  COLOUR_VALUE_LABELS,
-  CUT_KIND_LABELS,
-  CUT_SIZE_LABELS,
-  FIBRE_LABELS,
-  formatMoney,
-  formatWeight,
-  type ShelfFilters,
-  type UnitSystem,
-} from '@scrap-relay/shared';
-
-/** Reading and writing the shelf's address lives in shelf-address.ts; this module adds the filters in words. */
-export * from './shelf-address.ts';
+import type { ShelfFilters } from '../schemas/bundles.ts';
+import type { UnitSystem } from '../schemas/members.ts';
+import { COLOUR_FAMILY_LABELS, COLOUR_VALUE_LABELS, CUT_KIND_LABELS, CUT_SIZE_LABELS, FIBRE_LABELS } from './fibres.ts';
+import { formatMoney, formatWeight } from './units.ts';
 
 type ShelfOffer = NonNullable<ShelfFilters['offer']>;
 
@@ -24,7 +14,7 @@ const OFFER_WORDS: Readonly<Record<ShelfOffer, string>> = {
 /** Labels begin with a capital for headings; inside a sentence they read in lower case, except the proper noun in "English paper piecing". */
 const inSentence = (label: string): string => (label.startsWith('English') ? label : label.charAt(0).toLowerCase() + label.slice(1));
 
-export interface DescribeOptions {
+export interface DescribeFiltersOptions {
   units: UnitSystem;
   /** Currency the price limit is in (the guild's). */
   currency: string;
@@ -34,7 +24,7 @@ export interface DescribeOptions {
  * Filters in words, e.g. "Batik, dark, strips (by width), up to $10.00".
  * Empty filters read "Everything on the shelf".
  */
-export function describeShelfFilters(filters: ShelfFilters, { units, currency }: DescribeOptions): string {
+export function describeShelfFilters(filters: ShelfFilters, { units, currency }: DescribeFiltersOptions): string {
   const parts: string[] = [];
   if (filters.fibre) parts.push(FIBRE_LABELS[filters.fibre]);
   if (filters.value) parts.push(COLOUR_VALUE_LABELS[filters.value]);

@@ -1,0 +1,20 @@
+import { currencyMinorUnits } from '@scrap-relay/shared';
+
+/**
+ * Integer minor units as a plain decimal in the currency's own units, for spreadsheets: (5170, "USD") → "51.70",
+ * (-5, "USD") → "-0.05", (1200, "JPY") → "1200" (ISO 4217 gives JPY no minor unit). Worked on the digits, never
+ * through a float, and without thousands separators or a symbol, so every spreadsheet reads it as the number it is.
+ */
+export function decimalAmount(minor: number, currency: string): string {
+  if (!Number.isInteger(minor)) throw new RangeError(`Money must be whole minor units, got ${minor}`);
+  const digits = currencyMinorUnits(currency);
+  const sign = minor < 0 ? '-' : '';
+  const whole = String(Math.abs(minor));
+  if (digits === 0) return `${sign}${whole}`;
+  const padded = whole.padStart(digits + 1, '0');
+  return `${sign}${padded.slice(0, -digits)}.${padded.slice(-digits)}`;
+}
+
+/** Ends the header name of an amount: the figures are in the currency's units (dollars, not cents). */
+export const IN_CURRENCY_UNITS = 'in_currency_units';
+export const AMOUNT_COLUMN = `amount_${IN_CURRENCY_UNITS}`;
