@@ -182,6 +182,21 @@ describe('meeting handover', () => {
     expect(sold.text).not.toMatch(/address|parcel|packing slip/i);
   });
 
+  it('refuses an order under the least card payment with a 422 naming the items, holding and writing nothing', async () => {
+    const meeting = await Meeting.create({ startsAt: new Date(Date.now() + 7 * 86_400_000), place: 'Millbrook Hall', createdBy: null });
+    const bundleId = await shelved({ priceMinor: 500, meetingHandoverOk: true });
+    // Priced before the guild's minimum was enforced at review: 25 cents can never be paid by card.
+    await Bundle.update({ priceMinor: 25 }, { where: { id: bundleId } });
+    const before = await countRows(api.runtime.ctx.sequelize, ['orders', 'order_items', 'ledger_entries']);
+    const res = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'meeting', meetingId: meeting.id });
+    expect(res.status).toBe(422);
+    // USD 0.50: Stripe's minimum charge amount (docs.stripe.com/currencies), from memory.
+    expect(res.body.error.message).toBe('Card payments start at $0.50, and this order comes to $0.25.');
+    expect(res.body.error.fields.items).toBe('Add another bundle from this seller to reach $0.50.');
+    expect(await countRows(api.runtime.ctx.sequelize, ['orders', 'order_items', 'ledger_entries'])).toEqual(before);
+    expect(await Bundle.findByPk(bundleId)).toMatchObject({ state: 'on_shelf', quantityAvailable: 1 });
+  });
+
   it('refuses a meeting in the past and a bundle that is not offered for meetings', async () => {
     const past = await Meeting.create({ startsAt: new Date(Date.now() - 86_400_000), place: 'Old hall', createdBy: null });
     const bundleId = await shelved({ offer: 'postage_only', priceMinor: null, meetingHandoverOk: false });
