@@ -6,7 +6,7 @@ import { isKnownTimeZone } from './zoned-time.ts';
 /**
  * The guild facts every screen may need (its time zone, the countries it posts to), read from the session the
  * app has already loaded. The session query belongs to the auth feature, which shared code may not import, so
- * its cache key is repeated here; a test checks that the two agree. The observer is passive (`enabled: false`):
+ * the cache key is defined here and the auth feature uses it. The observer is passive (`enabled: false`):
  * it never asks the API itself, it only follows the cached session as the auth feature reads and refreshes it.
  */
 export const SESSION_CACHE_KEY = ['session'] as const;

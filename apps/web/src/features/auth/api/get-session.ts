@@ -1,8 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { SessionResponse, SessionUser } from '@scrap-relay/shared';
 import { api } from '../../../lib/api-client.ts';
+import { SESSION_CACHE_KEY } from '../../../utils/guild-session.ts';
 
-export const sessionQueryKey = ['session'] as const;
+/** One key for the session everywhere: shared code that follows the session (guild-session.ts) defines it. */
+export const sessionQueryKey = SESSION_CACHE_KEY;
 
 export const getSession = ({ signal }: { signal?: AbortSignal } = {}): Promise<SessionResponse> => api.getSession({ signal });
 
