@@ -17,11 +17,11 @@ import { machineScratchDir } from '../scripts/lib/paths.ts';
 import { ensureDatabase } from '../scripts/lib/postgres.ts';
 import { startService } from '../scripts/lib/services.ts';
 import { apiSpec, migrate, seedDemoGuild } from '../scripts/lib/stack.ts';
+import { SHELF_ROUTE_MODULE } from '../apps/api/src/middleware/web-app.ts';
 import type { BenchContext } from './lib/context.ts';
 import { coldLoad, signedInBrowser, THROTTLING, type PageLoad } from './lib/page-load.ts';
 import { buildWebWithManifest, cssFiles, filesOf, routeModules, staticClosure, weigh, weighFiles, type WebBuild } from './lib/web-build.ts';
 
-const SHELF_ROUTE = 'src/app/routes/app/shelf/shelf.tsx';
 const HOME_ROUTE = 'src/app/routes/app/home.tsx';
 const ROUTES_PREFIX = 'src/app/routes/';
 /** Targets, printed beside the figures (kB: 1 000 bytes, as Vite prints). */
@@ -133,6 +133,11 @@ async function measureLcp(ctx: BenchContext, build: WebBuild, pathname: string):
             what: `${resource.path}${resource.transferredBytes > 0 ? `, ${kB(resource.transferredBytes).toFixed(1)} kB` : ''}`,
           })),
           ...middle.longTasks.map((task) => ({ ...task, what: `(main thread busy ${Math.round(task.endMs - task.startMs)} ms)` })),
+          ...middle.paintCandidates.map((paint) => ({
+            startMs: paint.startMs,
+            endMs: paint.startMs,
+            what: `(largest paint so far: ${paint.what}${paint.loadMs > 0 ? `, its file loaded at ${Math.round(paint.loadMs)} ms` : ''})`,
+          })),
         ];
         for (const line of lines.sort((a, b) => a.startMs - b.startMs)) {
           console.log(`    ${Math.round(line.startMs).toString().padStart(6)} → ${Math.round(line.endMs).toString().padStart(5)}  ${line.what}`);
@@ -158,9 +163,9 @@ async function measureLcp(ctx: BenchContext, build: WebBuild, pathname: string):
 
 export async function run(ctx: BenchContext): Promise<void> {
   const build = await buildWebWithManifest(ctx.ports);
-  const hasShelf = build.manifest[SHELF_ROUTE] !== undefined;
-  if (!hasShelf) console.log(`  The build has no shelf route (${SHELF_ROUTE}) yet: measuring the home page / instead.`);
-  const pages = [{ path: '/', route: HOME_ROUTE }, ...(hasShelf ? [{ path: '/shelf', route: SHELF_ROUTE }] : [])];
+  const hasShelf = build.manifest[SHELF_ROUTE_MODULE] !== undefined;
+  if (!hasShelf) console.log(`  The build has no shelf route (${SHELF_ROUTE_MODULE}) yet: measuring the home page / instead.`);
+  const pages = [{ path: '/', route: HOME_ROUTE }, ...(hasShelf ? [{ path: '/shelf', route: SHELF_ROUTE_MODULE }] : [])];
   printPageWeight(ctx, build, pages);
   await measureLcp(ctx, build, hasShelf ? '/shelf' : '/');
 }

@@ -57,16 +57,17 @@ function parseSuiteList(raw: string, option: string): Suite[] {
   return names as Suite[];
 }
 
-function selectedSuites(argv: string[]): Suite[] {
+function selectedSuites(argv: string[]): { suites: Suite[]; files: string[] } {
   const { values } = parseArgs({
     args: argv,
-    options: { only: { type: 'string' }, skip: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+    options: { only: { type: 'string' }, skip: { type: 'string' }, files: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
   });
   if (values.help) {
     console.log(
       [
-        'npm test [-- --only <suites>] [-- --skip <suites>]',
+        'npm test [-- --only <suites>] [-- --skip <suites>] [-- --files <filters>]',
         `suites: ${SUITES.join(', ')} (comma-separated; default: all)`,
+        'filters: comma-separated parts of test file paths for the vitest suites, e.g. --only integration --files web-app',
         'SR_PORT_BASE=<port> picks the port range (default 4400).',
       ].join('\n'),
     );
@@ -74,7 +75,8 @@ function selectedSuites(argv: string[]): Suite[] {
   }
   const only = values.only === undefined ? [...SUITES] : parseSuiteList(values.only, '--only');
   const skip = values.skip === undefined ? [] : parseSuiteList(values.skip, '--skip');
-  return SUITES.filter((suite) => only.includes(suite) && !skip.includes(suite));
+  const files = (values.files ?? '').split(',').map((filter) => filter.trim()).filter(Boolean);
+  return { suites: SUITES.filter((suite) => only.includes(suite) && !skip.includes(suite)), files };
 }
 
 /** Runs one suite, timing it; a suite that throws counts as one failure with the reason noted. */
@@ -127,10 +129,11 @@ async function typecheck(): Promise<SuiteCounts> {
   return counts;
 }
 
-async function vitest(name: string, projects: string[], reportDir: string, env: NodeJS.ProcessEnv): Promise<SuiteCounts> {
+/** Runs vitest projects; `files` are parts of test file paths (`--files`), none for every file. */
+async function vitest(name: string, projects: string[], reportDir: string, env: NodeJS.ProcessEnv, files: string[]): Promise<SuiteCounts> {
   const reportFile = path.join(reportDir, `${name}.json`);
   fs.rmSync(reportFile, { force: true });
-  const args = ['run', ...projects.flatMap((project) => ['--project', project])];
+  const args = ['run', ...projects.flatMap((project) => ['--project', project]), ...files];
   // Until every suite has tests, an empty one is reported as "no test files found" rather than as a crash.
   args.push('--passWithNoTests', '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`);
   const result = await runCommand(bin('vitest'), args, { env });
@@ -170,7 +173,7 @@ async function startSharedServices(ports: Ports, logDir: string): Promise<Servic
   return { ports, serviceOptions, uploadRoot };
 }
 
-async function integration(services: Services, reportDir: string): Promise<SuiteCounts> {
+async function integration(services: Services, reportDir: string, files: string[]): Promise<SuiteCounts> {
   const { ports, serviceOptions } = services;
   const urls = urlsFor(ports);
   const databaseUrl = await timedStep(`fresh database ${DATABASE}`, () => ensureDatabase(DATABASE, { recreate: true }));
@@ -187,7 +190,7 @@ async function integration(services: Services, reportDir: string): Promise<Suite
     startService(stripeFakeSpec(ports, `${urls.api}/api/stripe/webhook`), serviceOptions),
   );
   try {
-    return await vitest('integration', ['integration'], reportDir, { ...process.env, ...env });
+    return await vitest('integration', ['integration'], reportDir, { ...process.env, ...env }, files);
   } finally {
     await stripeFake.stop();
   }
@@ -236,7 +239,7 @@ async function endToEnd(services: Services, reportDir: string): Promise<SuiteCou
 }
 
 async function main(): Promise<number> {
-  const suites = selectedSuites(process.argv.slice(2));
+  const { suites, files } = selectedSuites(process.argv.slice(2));
   const ports = portsFrom(portBaseFromEnv(4400));
   const logDir = fromRoot('.local', 'logs', `test-${ports.base}`);
   fs.mkdirSync(logDir, { recursive: true });
@@ -246,7 +249,7 @@ async function main(): Promise<number> {
 
   if (wants('typecheck')) results.push(await runSuite('typecheck', 'Typecheck (one check per TypeScript project)', typecheck));
   if (wants('unit')) {
-    results.push(await runSuite('unit', 'Unit tests (vitest projects unit and web)', () => vitest('unit', ['unit', 'web'], logDir, process.env)));
+    results.push(await runSuite('unit', 'Unit tests (vitest projects unit and web)', () => vitest('unit', ['unit', 'web'], logDir, process.env, files)));
   }
 
   if (wants('integration') || wants('e2e')) {
@@ -265,7 +268,7 @@ async function main(): Promise<number> {
       results.push(
         await runSuite(suite, title, () => {
           if (services === undefined) throw new SetupError(`local services did not start: ${describeError(setupError).split('\n')[0]}`);
-          return suite === 'integration' ? integration(services, logDir) : endToEnd(services, logDir);
+          return suite === 'integration' ? integration(services, logDir, files) : endToEnd(services, logDir);
         }),
       );
     }

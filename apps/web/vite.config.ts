@@ -14,7 +14,8 @@ export default defineConfig({
       '/uploads': { target: apiTarget, changeOrigin: false },
     },
   },
-  build: { outDir: 'dist', emptyOutDir: true },
+  // The manifest tells the API which files the shelf's route module needs, so a first load can ask for them early.
+  build: { outDir: 'dist', emptyOutDir: true, manifest: true },
   test: {
     // Also when the root vitest.config.ts extends this file as its "web" project.
     root: import.meta.dirname,

@@ -19,12 +19,13 @@ const CHROMIUM_ARGS = [
   '--disable-sync',
 ];
 
-/** The slow phone: 1.6 Mbps down, 750 kbps up, 150 ms latency, CPU 4× slower than this machine's. */
+/** The slow phone: 1.6 Mbps down, 750 kbps up, 150 ms latency, CPU 4× slower than this machine's (the target's conditions). */
 export const THROTTLING = {
   downloadBytesPerSecond: 1_600_000 / 8,
   uploadBytesPerSecond: 750_000 / 8,
   latencyMs: 150,
-  cpuSlowdown: 4,
+  // SR_BENCH_CPU_SLOWDOWN=1 measures a device with a fast processor on the same slow connection.
+  cpuSlowdown: Number(process.env.SR_BENCH_CPU_SLOWDOWN ?? 4),
 } as const;
 
 /** A phone-sized window, since the throttling describes a phone. */
@@ -59,6 +60,8 @@ export interface PageLoad {
   resources: { path: string; startMs: number; endMs: number; transferredBytes: number }[];
   /** Main-thread tasks of 50 ms or more (the Long Tasks API), by start: what the paint waited for besides the network. */
   longTasks: { startMs: number; endMs: number }[];
+  /** Every largest-contentful-paint candidate in order: when it painted, and for an image when its file had loaded. */
+  paintCandidates: { startMs: number; loadMs: number; what: string }[];
   /** Bytes received for every response of the load, as transferred (compressed), headers included. */
   transferredBytes: number;
   responses: number;
@@ -80,13 +83,13 @@ const READ_PAINT_TIMINGS = `new Promise((resolve) => {
     const lcp = entries[entries.length - 1];
     const nav = performance.getEntriesByType('navigation')[0];
     const fcp = performance.getEntriesByName('first-contentful-paint')[0];
-    let element = 'none';
-    if (lcp) {
-      const el = lcp.element;
-      if (lcp.url) element = (el ? el.tagName.toLowerCase() : 'removed element') + ' ' + lcp.url.split('/').pop();
-      else if (el) element = el.tagName.toLowerCase() + ' "' + (el.textContent || '').trim().replace(/\\s+/g, ' ').slice(0, 40) + '"';
-      else element = 'an element since removed';
-    }
+    const describe = (entry) => {
+      const el = entry.element;
+      if (entry.url) return (el ? el.tagName.toLowerCase() : 'removed element') + ' ' + entry.url.split('/').slice(-2).join('/');
+      if (el) return el.tagName.toLowerCase() + ' "' + (el.textContent || '').trim().replace(/\\s+/g, ' ').slice(0, 40) + '"';
+      return 'an element since removed';
+    };
+    const element = lcp ? describe(lcp) : 'none';
     resolve({
       pathname: location.pathname,
       lcpMs: lcp ? lcp.startTime : -1,
@@ -95,6 +98,7 @@ const READ_PAINT_TIMINGS = `new Promise((resolve) => {
       htmlReceivedMs: nav ? nav.responseEnd : -1,
       domContentLoadedMs: nav ? nav.domContentLoadedEventEnd : -1,
       loadEventMs: nav ? nav.loadEventEnd : -1,
+      paintCandidates: entries.map((e) => ({ startMs: e.startTime, loadMs: e.loadTime || 0, what: describe(e) })),
       longTasks: (window.__benchLongTasks || []).map((t) => ({ startMs: t.startTime, endMs: t.startTime + t.duration })),
       resources: performance.getEntriesByType('resource').map((r) => {
         const url = new URL(r.name);

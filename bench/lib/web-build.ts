@@ -8,23 +8,11 @@ import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
 import { SetupError } from '../../scripts/lib/errors.ts';
-import { bin, machineScratchDir } from '../../scripts/lib/paths.ts';
 import type { Ports } from '../../scripts/lib/ports.ts';
-import { runCommand, tail } from '../../scripts/lib/run.ts';
-import { WEB_DIR } from '../../scripts/lib/stack.ts';
+import { buildWeb } from '../../scripts/lib/stack.ts';
+import { readManifest, type Manifest } from '../../apps/api/src/middleware/vite-manifest.ts';
 
-/** One entry of `.vite/manifest.json`, keyed by source path (or `_name-hash.js` for shared chunks). */
-export interface ManifestChunk {
-  file: string;
-  src?: string;
-  isEntry?: boolean;
-  isDynamicEntry?: boolean;
-  imports?: string[];
-  dynamicImports?: string[];
-  css?: string[];
-}
-
-export type Manifest = Record<string, ManifestChunk>;
+export { staticClosure, type Manifest, type ManifestChunk } from '../../apps/api/src/middleware/vite-manifest.ts';
 
 export interface WebBuild {
   outDir: string;
@@ -39,39 +27,14 @@ export interface Weight {
   brotli: number;
 }
 
-/**
- * Builds like scripts/lib/stack.ts buildWeb (production mode, its own scratch
- * folder so it never empties apps/web/dist or another run's build), with
- * `--manifest` added, which buildWeb has no way to pass.
- */
+/** The production build `npm test` serves (scripts/lib/stack.ts `buildWeb`), with the manifest Vite writes beside it. */
 export async function buildWebWithManifest(ports: Ports): Promise<WebBuild> {
-  const outDir = path.join(machineScratchDir(), `web-dist-bench-${ports.base}`);
-  const env: NodeJS.ProcessEnv = { ...process.env };
-  // A production build must not inherit NODE_ENV=test or development from a parent.
-  delete env.NODE_ENV;
-  const result = await runCommand(bin('vite'), ['build', '--outDir', outDir, '--emptyOutDir', '--manifest', '--bypass-lock'], { cwd: WEB_DIR, env, capture: true });
-  if (result.code !== 0) throw new SetupError(`vite build of apps/web failed (exit ${result.code}):\n${tail(result.stdout + result.stderr, 30)}`);
-  const manifestPath = path.join(outDir, '.vite', 'manifest.json');
-  if (!fs.existsSync(manifestPath)) throw new SetupError(`vite build finished but ${manifestPath} is missing.`);
-  const manifest = JSON.parse(fs.readFileSync(manifestPath, 'utf8')) as Manifest;
+  const outDir = await buildWeb(ports);
+  const manifest = readManifest(outDir);
+  if (manifest === undefined) throw new SetupError(`vite build finished but ${outDir}/.vite/manifest.json is missing.`);
   const entryKey = Object.keys(manifest).find((key) => manifest[key]!.isEntry === true);
   if (entryKey === undefined) throw new SetupError('The Vite manifest names no entry chunk.');
   return { outDir, manifest, entryKey };
-}
-
-/** The chunks `keys` need before they run: themselves and their static imports, transitively. */
-export function staticClosure(manifest: Manifest, keys: readonly string[]): Set<string> {
-  const seen = new Set<string>();
-  const queue = [...keys];
-  while (queue.length > 0) {
-    const key = queue.pop()!;
-    if (seen.has(key)) continue;
-    const chunk = manifest[key];
-    if (chunk === undefined) throw new Error(`The Vite manifest has no chunk ${key}.`);
-    seen.add(key);
-    queue.push(...(chunk.imports ?? []));
-  }
-  return seen;
 }
 
 export function weigh(content: Buffer): Weight {

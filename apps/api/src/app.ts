@@ -3,12 +3,15 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import compression from 'compression';
 import type pg from 'pg';
+import type { ShelfQuery } from '@scrap-relay/shared';
 import { configurePassport } from './auth/passport.ts';
 import { sessionMiddleware } from './auth/session.ts';
 import type { AppContext } from './context.ts';
 import { errorHandler, notFoundHandler, unauthenticated } from './errors/index.ts';
 import { csrfProtection } from './middleware/csrf.ts';
 import { requestLog } from './middleware/request-log.ts';
+import { webApp } from './middleware/web-app.ts';
+import { searchShelf } from './modules/bundles/shelf.query.ts';
 import { guildRoutes } from './modules/guild/guild.routes.ts';
 import { healthRoutes } from './modules/health/health.routes.ts';
 import { membersRoutes } from './modules/members/members.routes.ts';
@@ -90,9 +93,8 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   app.use('/uploads', uploads);
 
   if (ctx.config.webDist) {
-    const dist = path.resolve(ctx.config.webDist);
-    app.use(express.static(dist, { index: false, maxAge: '1y', immutable: true, setHeaders: noCacheForHtml }));
-    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(path.join(dist, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } }));
+    const shelfPage = (query: ShelfQuery) => searchShelf(ctx.sequelize, ctx.storage, query);
+    app.use(webApp(path.resolve(ctx.config.webDist), { signedIn, shelfPage, logger: ctx.logger }));
   }
 
   app.use(errorHandler);
@@ -101,8 +103,4 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
 
 function privateForGood(res: express.Response) {
   res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
-}
-
-function noCacheForHtml(res: express.Response, file: string) {
-  if (file.endsWith('.html')) res.setHeader('Cache-Control', 'no-cache');
 }

@@ -15,6 +15,9 @@ declare module 'express-session' {
 
 const THIRTY_DAYS_MS = 30 * 24 * 60 * 60 * 1000;
 
+/** The session cookie's name. */
+export const SESSION_COOKIE = 'sr.sid';
+
 /** The member row read with the session, held only for the request that read it (see `takeSignedInMember`). */
 const MEMBER_ROW = Symbol('member row');
 const membersReadWithSession = new WeakMap<object, Record<string, unknown>>();
@@ -69,7 +72,7 @@ export function takeSignedInMember(req: object, id: string): Member | null {
 /** Sessions live in PostgreSQL so any API process behind a load balancer can serve any request. */
 export function sessionMiddleware(config: Config, pool: pg.Pool) {
   return session({
-    name: 'sr.sid',
+    name: SESSION_COOKIE,
     secret: config.sessionSecret,
     // No write per request: a session lasts 30 days from its last change (sign-in, CSRF token), which keeps
     // reads cheap for every API process sharing the table.

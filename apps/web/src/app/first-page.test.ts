@@ -1,11 +1,9 @@
 // @vitest-environment happy-dom
-import type { BundleCard, Page } from '@scrap-relay/shared';
+import { type BundleCard, CARD_PHOTO_SIZES, type Page, readShelfSearch, shelfQueryFor } from '@scrap-relay/shared';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { getSessionQueryOptions } from '../features/auth/api/get-session.ts';
-import { getShelfQueryOptions, shelfQueryFor } from '../features/shelf/api/get-shelf.ts';
-import { CARD_PHOTO_SIZES } from '../features/shelf/utils/card-photo.ts';
+import { getShelfQueryOptions } from '../features/shelf/api/get-shelf.ts';
 import { jsonResponse, makeBundleCard, makeSession, makeUser } from '../testing/fixtures.ts';
-import { readShelfSearch } from '../utils/shelf-address.ts';
 import { followSignedIn, startFirstPage } from './first-page.ts';
 import { makeQueryClient } from './provider.tsx';
 

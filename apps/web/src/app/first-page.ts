@@ -1,10 +1,9 @@
 import type { QueryClient } from '@tanstack/react-query';
-import type { SessionResponse } from '@scrap-relay/shared';
+import { readShelfSearch, type SessionResponse, shelfQueryFor } from '@scrap-relay/shared';
 import { paths } from '../config/paths.ts';
 import { sessionQueryKey } from '../features/auth/api/get-session.ts';
-import { getShelfQueryOptions, shelfQueryFor } from '../features/shelf/api/get-shelf.ts';
+import { getShelfQueryOptions } from '../features/shelf/api/get-shelf.ts';
 import { preloadCardPhoto } from '../features/shelf/utils/card-photo.ts';
-import { readShelfSearch } from '../utils/shelf-address.ts';
 
 /** The shelf's route module, for the router and for an early start (one function, so both share the module). */
 export const loadShelfPage = () => import('./routes/app/shelf/shelf.tsx');

@@ -53,7 +53,7 @@ export const paths = {
       requires: 'listBundles',
     },
     bundle: { path: '/bundles/:id', getHref: (id: string) => `/bundles/${encodeURIComponent(id)}` },
-    /** `search` is a shelf query string (utils/shelf-address.ts `shelfSearchParams`), so a link opens a filtered shelf. */
+    /** `search` is a shelf query string (the shared `shelfSearchParams`), so a link opens a filtered shelf. */
     shelf: { path: '/shelf', getHref: (search?: string) => (search ? `/shelf?${search}` : '/shelf') },
     wishes: { path: '/wishes', getHref: () => '/wishes' },
     review: { path: '/review', getHref: () => '/review', requires: 'reviewBundles' },

@@ -1,4 +1,4 @@
-import { ERROR_CODES, type ErrorBody, type ErrorCode, type SessionResponse } from '@scrap-relay/shared';
+import { ERROR_CODES, queryString, type ErrorBody, type ErrorCode, type QueryValue, type SessionResponse } from '@scrap-relay/shared';
 
 /** Every failed request becomes one of these, so screens switch on `code` and forms map `fields`. */
 export class ApiError extends Error {
@@ -16,8 +16,6 @@ export class ApiError extends Error {
 }
 
 export const isApiError = (value: unknown): value is ApiError => value instanceof ApiError;
-
-type QueryValue = string | number | boolean | null | undefined;
 
 export interface RequestOptions {
   query?: Record<string, QueryValue>;
@@ -79,14 +77,7 @@ async function toApiError(response: Response): Promise<ApiError> {
 }
 
 function buildUrl(baseUrl: string, path: string, query?: Record<string, QueryValue>): string {
-  const url = `${baseUrl}${path}`;
-  if (!query) return url;
-  const params = new URLSearchParams();
-  for (const [key, value] of Object.entries(query)) {
-    if (value !== undefined && value !== null && value !== '') params.set(key, String(value));
-  }
-  const search = params.toString();
-  return search ? `${url}?${search}` : url;
+  return `${baseUrl}${path}${query ? queryString(query) : ''}`;
 }
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';

@@ -1,6 +1,6 @@
 import type { PhotoView } from '@scrap-relay/shared';
 import { describe, expect, it } from 'vitest';
-import { cardSrcSet, photoSrcSet } from './photo-sources.ts';
+import { photoSrcSet } from './photo-sources.ts';
 
 const photo = (overrides: Partial<PhotoView>): PhotoView => ({
   id: 'p-1',
@@ -29,15 +29,5 @@ describe('photoSrcSet', () => {
 
   it('offers a small photo once, as its smallest file', () => {
     expect(photoSrcSet(photo({ width: 300, height: 200 }))).toBe('/uploads/p-400.webp 300w');
-  });
-});
-
-describe('cardSrcSet', () => {
-  it('offers the thumbnail and the medium size', () => {
-    expect(cardSrcSet({ thumbUrl: '/t.webp', thumb2xUrl: '/m.webp' })).toBe('/t.webp 400w, /m.webp 800w');
-  });
-
-  it('offers no srcset without a medium size', () => {
-    expect(cardSrcSet({ thumbUrl: '/t.webp', thumb2xUrl: null })).toBeUndefined();
   });
 });

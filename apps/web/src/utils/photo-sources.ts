@@ -1,7 +1,4 @@
-import type { BundleCard, PhotoView } from '@scrap-relay/shared';
-
-/** The long side of each size the photo pipeline stores (apps/api/src/modules/bundles/photo-pipeline.ts). */
-export const STORED_LONG_SIDE = { thumb: 400, medium: 800, display: 1600 } as const;
+import { STORED_LONG_SIDE, type PhotoView } from '@scrap-relay/shared';
 
 /** The pipeline fits each size inside long side × long side from the size above it and never enlarges. */
 const fitWidth = (width: number, height: number, longSide: number) => {
@@ -25,13 +22,4 @@ export function photoSrcSet(photo: PhotoView): string {
     .filter(([, width]) => !seen.has(width) && seen.add(width))
     .map(([url, width]) => `${url} ${width}w`)
     .join(', ');
-}
-
-/**
- * A shelf card's `srcset`: the thumbnail and, where the photo has one, the medium size. The shelf does not send
- * the photo's proportions, so these are the long sides, which is the width of the usual landscape phone photo.
- */
-export function cardSrcSet(card: Pick<BundleCard, 'thumbUrl' | 'thumb2xUrl'>): string | undefined {
-  if (!card.thumbUrl || !card.thumb2xUrl) return undefined;
-  return `${card.thumbUrl} ${STORED_LONG_SIDE.thumb}w, ${card.thumb2xUrl} ${STORED_LONG_SIDE.medium}w`;
 }

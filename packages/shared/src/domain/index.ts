@@ -9,3 +9,5 @@ export * from './colour.ts';
 export * from './claims.ts';
 export * from './roles.ts';
 export * from './shelf-filters.ts';
+export * from './shelf-address.ts';
+export * from './photo-sizes.ts';

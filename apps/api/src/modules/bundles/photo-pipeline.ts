@@ -1,14 +1,14 @@
 import type { Metadata, Sharp, SharpOptions } from 'sharp';
-import { averageColour, type Rgb } from '@scrap-relay/shared';
+import { averageColour, STORED_LONG_SIDE, type Rgb } from '@scrap-relay/shared';
 import { unprocessable, unsupportedMediaType } from '../../errors/index.ts';
 
 /** 100 megapixels: far above any phone camera, far below a decompression bomb. */
 export const MAX_INPUT_PIXELS = 100_000_000;
 const READABLE_FORMATS = new Set(['jpeg', 'png', 'webp', 'heif', 'avif', 'tiff']);
-export const DISPLAY_MAX_PX = 1600;
+export const DISPLAY_MAX_PX = STORED_LONG_SIDE.display;
 /** The thumbnail at twice its size, for sharp screens and wider cards. */
-export const MEDIUM_MAX_PX = 800;
-export const THUMB_MAX_PX = 400;
+export const MEDIUM_MAX_PX = STORED_LONG_SIDE.medium;
+export const THUMB_MAX_PX = STORED_LONG_SIDE.thumb;
 
 type SharpFactory = (input?: Buffer, options?: SharpOptions) => Sharp;
 let sharpLoading: Promise<SharpFactory> | undefined;

@@ -1,14 +1,8 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { ShelfPage, ShelfQuery } from '@scrap-relay/shared';
 import { api } from '../../../lib/api-client.ts';
-import type { ShelfSearch } from '../../../utils/shelf-address.ts';
 
 export const shelfQueryKey = ['shelf'] as const;
-
-export const SHELF_PAGE_SIZE = 24;
-
-/** What the shelf asks the API for a search read from its address (one place, so an early prefetch asks for the same page). */
-export const shelfQueryFor = ({ filters, sort, page }: ShelfSearch): ShelfQuery => ({ ...filters, sort, page, pageSize: SHELF_PAGE_SIZE });
 
 /** One page of bundles on the shelf; the API filters, sorts and pages. */
 export const getShelf = (query: ShelfQuery, { signal }: { signal?: AbortSignal } = {}): Promise<ShelfPage> =>

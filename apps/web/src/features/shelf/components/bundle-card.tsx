@@ -1,9 +1,7 @@
-import { FIBRE_LABELS, formatWeight, type BundleCard as BundleCardData, type UnitSystem } from '@scrap-relay/shared';
+import { CARD_PHOTO_SIZES, cardSrcSet, FIBRE_LABELS, formatWeight, type BundleCard as BundleCardData, type UnitSystem } from '@scrap-relay/shared';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths.ts';
 import { formatOffer, formatYieldLine } from '../../../utils/bundle-text.ts';
-import { cardSrcSet } from '../../../utils/photo-sources.ts';
-import { CARD_PHOTO_SIZES } from '../utils/card-photo.ts';
 
 /**
  * How a card's photo loads: the first row is wanted at once (the first photo is usually the page's

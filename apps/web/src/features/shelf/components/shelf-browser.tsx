@@ -1,12 +1,11 @@
-import type { ShelfPage, ShelfFilters, UnitSystem } from '@scrap-relay/shared';
+import { countFilters, type ShelfFilters, type ShelfPage, shelfQueryFor, type ShelfSort, type UnitSystem } from '@scrap-relay/shared';
 import { lazy, Suspense, useEffect, useId, useRef, useState, type ReactNode, type RefObject } from 'react';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { Button, ButtonLink } from '../../../components/ui/button.tsx';
 import { Select } from '../../../components/ui/field.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { cn } from '../../../utils/cn.ts';
-import { countFilters, type ShelfSort } from '../../../utils/shelf-address.ts';
-import { shelfQueryFor, useShelf } from '../api/get-shelf.ts';
+import { useShelf } from '../api/get-shelf.ts';
 import { useShelfSearch } from '../hooks/use-shelf-search.ts';
 import { BundleCard, type CardPhotoLoading } from './bundle-card.tsx';
 

@@ -1,7 +1,6 @@
-import type { ShelfFilters } from '@scrap-relay/shared';
+import { readShelfSearch, type ShelfFilters, type ShelfSearch, shelfSearchParams, type ShelfSort } from '@scrap-relay/shared';
 import { useCallback, useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import { readShelfSearch, shelfSearchParams, type ShelfSearch, type ShelfSort } from '../../../utils/shelf-address.ts';
 
 /**
  * The shelf's search lives in the address: each change is a new history entry,

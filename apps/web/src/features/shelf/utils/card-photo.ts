@@ -1,21 +1,4 @@
-import type { BundleCard } from '@scrap-relay/shared';
-import { cardSrcSet } from '../../../utils/photo-sources.ts';
-
-/**
- * The card photo's width in CSS px at each layout of the shelf, in px because the app's root size is 18 px
- * (styles.css) while `sizes` reads rem as 16: main padding 18 px a side, 27 from 640 px; the filters column
- * (324 px + 27 gap) from 768; the menu (270 px) once the shell is 1080 px wide; three cards from 1280; the
- * shell stops growing at 1440; cards 18 px apart inside a 2 px border. Measured in Chromium at 412, 800,
- * 1100 and 1440 px.
- */
-export const CARD_PHOTO_SIZES = [
-  '(min-width: 1440px) 239px',
-  '(min-width: 1280px) calc(33.33vw - 241px)',
-  '(min-width: 1080px) calc(50vw - 351px)',
-  '(min-width: 768px) calc(50vw - 216px)',
-  '(min-width: 640px) calc(50vw - 40px)',
-  'calc(100vw - 40px)',
-].join(', ');
+import { CARD_PHOTO_SIZES, cardSrcSet, type BundleCard } from '@scrap-relay/shared';
 
 /**
  * Asks for a card's photo before the card is drawn (the first card's photo is the shelf's largest paint on a

@@ -1,4 +1,4 @@
-import { describeShelfFilters, wishSchema, type ShelfFilters, type UnitSystem, type WishInput } from '@scrap-relay/shared';
+import { compactFilters, countFilters, describeShelfFilters, type ShelfFilters, type UnitSystem, type WishInput, wishSchema } from '@scrap-relay/shared';
 import { useId, useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { z } from 'zod';
@@ -6,7 +6,6 @@ import { paths } from '../../../config/paths.ts';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { Button } from '../../../components/ui/button.tsx';
 import { Form, SubmitButton, TextField } from '../../../components/ui/form.tsx';
-import { compactFilters, countFilters } from '../../../utils/shelf-address.ts';
 import { useCreateWish } from '../api/create-wish.ts';
 import { useSavedWish } from '../hooks/use-saved-wish.ts';
 

@@ -1,4 +1,4 @@
-import { describeShelfFilters, type UnitSystem, type WishView } from '@scrap-relay/shared';
+import { describeShelfFilters, parseShelfFilters, shelfSearchParams, type UnitSystem, type WishView } from '@scrap-relay/shared';
 import { useId, useState } from 'react';
 import { paths } from '../../../config/paths.ts';
 import { Alert } from '../../../components/ui/alert.tsx';
@@ -6,7 +6,6 @@ import { Button, ButtonLink } from '../../../components/ui/button.tsx';
 import { ConfirmDialog } from '../../../components/ui/dialog.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { formatDate } from '../../../utils/format.ts';
-import { parseShelfFilters, shelfSearchParams } from '../../../utils/shelf-address.ts';
 import { useWishes } from '../api/get-wishes.ts';
 import { useDeleteWish } from '../api/delete-wish.ts';
 

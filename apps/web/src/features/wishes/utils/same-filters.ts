@@ -1,5 +1,4 @@
-import type { ShelfFilters, WishView } from '@scrap-relay/shared';
-import { parseShelfFilters, shelfSearchParams } from '../../../utils/shelf-address.ts';
+import { parseShelfFilters, type ShelfFilters, shelfSearchParams, type WishView } from '@scrap-relay/shared';
 
 /** The filters as the shelf's address writes them: fixed key order, empty ones left out, numbers as text. */
 const filtersKey = (filters: ShelfFilters): string => shelfSearchParams({ filters }).toString();

@@ -1,11 +1,13 @@
-// Types only from the shared schemas: their values would bring zod into the shelf's first load (see parseShelfFilters).
-import { COLOUR_FAMILIES, COLOUR_VALUES, CUT_KINDS, CUT_SIZES, FIBRES, type ShelfFilters, type ShelfQuery } from '@scrap-relay/shared';
+import type { ShelfFilters, ShelfQuery } from '../schemas/bundles.ts';
+import { COLOUR_FAMILIES, COLOUR_VALUES, CUT_KINDS, CUT_SIZES, FIBRES } from './fibres.ts';
 
 /**
  * The shelf's filters as they travel: in the shelf's address (so a search can be
- * shared and the back button works) and in a saved wish. Used by the shelf and the
- * wishes features alike, and by main.tsx's early start of the shelf (app/first-page.ts),
- * so this module stays small and free of formatting code (the filters in words are the shared domain's `describeShelfFilters`).
+ * shared and the back button works), in a saved wish, and in the request for a page
+ * of bundles. Used by the web app's shelf and wishes, by its early start of the shelf
+ * (apps/web/src/app/first-page.ts), and by the API, which names that first request
+ * in the shelf page's headers so the browser asks for it at once. Kept small and free
+ * of zod and of formatting code (the filters in words are `describeShelfFilters`).
  */
 
 export type ShelfSort = ShelfQuery['sort'];
@@ -116,3 +118,28 @@ export function compactFilters(filters: ShelfFilters): ShelfFilters {
 }
 
 export const countFilters = (filters: ShelfFilters): number => Object.keys(compactFilters(filters)).length;
+
+/** Bundles on one page of the shelf. */
+export const SHELF_PAGE_SIZE = 24;
+
+/** What the shelf asks the API for a search read from its address. */
+export const shelfQueryFor = ({ filters, sort, page }: ShelfSearch): ShelfQuery => ({ ...filters, sort, page, pageSize: SHELF_PAGE_SIZE });
+
+export type QueryValue = string | number | boolean | null | undefined;
+
+/**
+ * A request's query string, `?`-prefixed, or '' when nothing is set; empty values are left out. The web app's
+ * API client builds every address with it, and the API names the shelf's first request with it, so the two
+ * addresses are the same to the byte and the browser's early copy is the one the page uses.
+ */
+export function queryString(query: Readonly<Record<string, QueryValue>>): string {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) {
+    if (value !== undefined && value !== null && value !== '') params.set(key, String(value));
+  }
+  const search = params.toString();
+  return search ? `?${search}` : '';
+}
+
+/** The API address (below `/api`) of the page of bundles a shelf address shows, e.g. `/bundles?sort=newest&page=1&pageSize=24`. */
+export const shelfPagePath = (address: URLSearchParams): string => `/bundles${queryString({ ...shelfQueryFor(readShelfSearch(address)) })}`;

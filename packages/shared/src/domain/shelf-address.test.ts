@@ -1,12 +1,15 @@
-import { MAX_BUNDLE_GRAMS, MAX_PRICE_MINOR, shelfFiltersSchema, shelfQuerySchema } from '@scrap-relay/shared';
 import { describe, expect, it } from 'vitest';
+import { MAX_BUNDLE_GRAMS, MAX_PRICE_MINOR, shelfFiltersSchema, shelfQuerySchema } from '../schemas/bundles.ts';
 import {
   countFilters,
   parseShelfFilters,
   readShelfSearch,
   SHELF_FILTER_KEYS,
   SHELF_FILTER_LIMITS,
+  SHELF_PAGE_SIZE,
+  shelfPagePath,
   shelfSearchParams,
+  queryString,
 } from './shelf-address.ts';
 
 describe('the shelf search in the address', () => {
@@ -76,5 +79,28 @@ describe('reading filters without the schemas, as the API reads them', () => {
       const params = new URLSearchParams(page === null ? '' : `page=${encodeURIComponent(page)}`);
       expect(readShelfSearch(params).page, `page=${page}`).toBe(parsed.success ? parsed.data : 1);
     }
+  });
+});
+
+describe('the request for a page of the shelf', () => {
+  it('builds a query string from set values only, in the order given', () => {
+    expect(queryString({ b: 'two words', a: 1, c: undefined, d: null, e: '', f: false })).toBe('?b=two+words&a=1&f=false');
+    expect(queryString({ a: undefined })).toBe('');
+  });
+
+  it('asks for the first page, newest first, for a bare shelf address', () => {
+    expect(shelfPagePath(new URLSearchParams(''))).toBe(`/bundles?sort=newest&page=1&pageSize=${SHELF_PAGE_SIZE}`);
+  });
+
+  it('carries the filters the address holds and drops what the API would refuse', () => {
+    expect(shelfPagePath(new URLSearchParams('q=reds&fibre=batik&sort=price_asc&page=3&colour=plaid&maxGrams=-5'))).toBe(
+      `/bundles?fibre=batik&q=reds&sort=price_asc&page=3&pageSize=${SHELF_PAGE_SIZE}`,
+    );
+  });
+
+  it('is a request the shelf schema of the API accepts as it stands', () => {
+    const path = shelfPagePath(new URLSearchParams('offer=sale&cut=strips&value=dark&minGrams=100&maxPriceMinor=900&sort=weight_desc&page=2'));
+    const query = Object.fromEntries(new URLSearchParams(path.slice(path.indexOf('?') + 1)));
+    expect(shelfQuerySchema.safeParse(query).success).toBe(true);
   });
 });
