@@ -153,7 +153,8 @@ describe('office tallies', () => {
            (SELECT count(*)::int FROM bundles WHERE state = 'expired' AND ${inPeriod('expires_at')}) AS expired,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'guild' AND (kind = 'guild_fee' OR reverses = 'guild_fee')), 0)::int
             FROM ledger_entries WHERE ${inPeriod('created_at')}) AS fees,
-           (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'processor'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS processing,
+           -- A lost dispute's money leaves through the processor too, but is no card cost.
+           (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'processor' AND kind <> 'dispute'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS processing,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account LIKE 'seller:%' AND kind <> 'payout'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS credits,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'payouts'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS payouts,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'buyer' AND kind = 'refund'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS refunds,

@@ -62,7 +62,9 @@ describe('the dashboard and the month-end statement', () => {
 
     // 1. A sale with postage: 1200 + 730 postage (454 g in a padded mailer, local band, plus handling); guild fee 120.
     const sale = await shelved({ title: 'Dashboard sale', priceMinor: 1200, weightGrams: 454 });
-    await paidOrder(sale);
+    const saleOrder = await paidOrder(sale);
+    // Posted, so its credit may be paid out in step 5.
+    expect((await sellerClient.send('post', `/api/orders/${saleOrder}/posted`, {})).status).toBe(200);
     // 2. A free meeting handover of 300 g.
     const meeting = await Meeting.create({ startsAt: new Date(Date.now() + 5 * 86_400_000), place: 'Hall', createdBy: null });
     const gift = await shelved({ title: 'Dashboard gift', offer: 'meeting', priceMinor: null, meetingHandoverOk: false, weightGrams: 300 });
@@ -149,7 +151,7 @@ describe('the dashboard and the month-end statement', () => {
 
     const csv = await treasurerClient.get('/api/ledger.csv');
     const lines = csv.text.trim().split('\n');
-    expect(lines[0]).toBe('date,transaction,kind,reverses,account,amount_in_currency_units,currency,order,payout');
+    expect(lines[0]).toBe('time_in_UTC,transaction,kind,reverses,account,amount_in_currency_units,currency,order,payout');
     const ofOrder = lines.filter((line) => line.includes(`,${order.reference},`)).map((line) => line.split(','));
     expect(ofOrder.find((cells) => cells[2] === 'charge')?.slice(5, 8)).toEqual([csvDollars(-order.chargeMinor), 'USD', order.reference]);
     expect(ofOrder.find((cells) => cells[2] === 'guild_fee')?.slice(5, 7)).toEqual(['1.25', 'USD']);
@@ -209,14 +211,22 @@ const oneLine = (text: string) => text.replace(/\s+/g, ' ');
 const dollars = (cents: number) => `$${(cents / 100).toFixed(2)}`;
 
 describe('the payout e-mail', () => {
-  it('tells the seller the amount, the moment in the guild’s time zone and what the guild still owes, queued with the payout', async () => {
+  it('tells the seller the amount, the moment in the guild’s time zone, what the guild still owes and what waits for bags not yet sent, queued with the payout', async () => {
     const payee = await createMember({ name: 'Orla Penhallow' });
     const payeeClient = await signedInClient(api.runtime.app, payee);
     const id = await listAndSubmit(payeeClient, { title: 'Payout sale', priceMinor: 1200, weightGrams: 454 });
     await librarianClient.send('post', `/api/bundles/${id}/review`, { decision: 'approve' });
-    await paidOrder(id);
+    const orderId = await paidOrder(id);
+    // Posted, so its whole credit may be paid out.
+    expect((await payeeClient.send('post', `/api/orders/${orderId}/posted`, {})).status).toBe(200);
+    // A second sale, paid but not posted yet: its credit waits, is not offered for payout, and the e-mail says so.
+    const unposted = await listAndSubmit(payeeClient, { title: 'Payout sale not yet posted', priceMinor: 900, weightGrams: 454 });
+    await librarianClient.send('post', `/api/bundles/${unposted}/review`, { decision: 'approve' });
+    const waiting = (await Order.findByPk(await paidOrder(unposted)))!.sellerCreditMinor;
     const balances = await treasurerClient.get('/api/seller-balances');
-    const owed = balances.body.items.find((b: { sellerId: string }) => b.sellerId === payee.id).balanceMinor as number;
+    const row = balances.body.items.find((b: { sellerId: string }) => b.sellerId === payee.id);
+    expect(row.waitingMinor).toBe(waiting);
+    const owed = row.payableMinor as number;
     expect(owed).toBeGreaterThan(250);
 
     // India keeps UTC+05:30 all year (IANA time zone database), so the local time is the UTC time plus 5 h 30 min.
@@ -243,6 +253,7 @@ describe('the payout e-mail', () => {
       expect(text).toContain(when);
       expect(text).toContain('Reference: FPG <0042>.');
       expect(text).toContain('still owes you $2.50 for your sales');
+      expect(text).toContain(`A further ${dollars(waiting)} is for bags you have not posted or handed over yet`);
       expect(text).toContain(`${serviceEnv().appUrl}/orders?as=seller`);
       expect(mail.html).toContain('FPG &lt;0042&gt;');
       expect(mail.html).not.toContain('<0042>');

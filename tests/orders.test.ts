@@ -1,6 +1,6 @@
 import Stripe from 'stripe';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { Bundle, LedgerEntry, Meeting, Order, type Member } from '../apps/api/src/db/models/index.ts';
+import { Bundle, Guild, LedgerEntry, Meeting, Order, type Member } from '../apps/api/src/db/models/index.ts';
 import { cancelUnpaid, releaseOverdueHolds, remindUnposted, runLateRefund } from '../apps/api/src/modules/orders/orders.service.ts';
 import { LATE_REFUND_QUEUE } from '../apps/api/src/jobs/queue.ts';
 import { processingCostEntries } from '@scrap-relay/shared';
@@ -48,14 +48,35 @@ async function shelved(overrides: Record<string, unknown> = {}, by = sellerClien
 }
 
 /** The buyer orders the bundle by post and pays; the order once the payment's webhook has confirmed it. */
-async function paidByPost(bundleId: string): Promise<Order> {
-  const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+const paidByPost = (bundleId: string) => paidOrder(bundleId, { fulfilment: 'post', address });
+
+/** The buyer orders the bundle as `how` says and pays; the order once the payment's webhook has confirmed it. */
+async function paidOrder(bundleId: string, how: Record<string, unknown>): Promise<Order> {
+  const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], ...how });
+  expect(placed.status).toBe(201);
   await payCheckout(sessionIdFromUrl(placed.body.checkoutUrl));
   return waitFor(async () => {
     const o = await Order.findByPk(placed.body.order.id);
     return o?.state === 'confirmed' ? o : null;
   });
 }
+
+/** One seller's row of the treasurer's balances page. */
+async function balanceOf(sellerId: string) {
+  const res = await treasurerClient.get('/api/seller-balances');
+  expect(res.status).toBe(200);
+  return res.body.items.find((b: { sellerId: string }) => b.sellerId === sellerId);
+}
+
+/** One handover's row on its meeting's sheet, as the librarian sees it. */
+async function handoverRow(meetingId: string, id: string) {
+  const sheet = await librarianClient.get(`/api/meetings/${meetingId}/handovers`);
+  expect(sheet.status).toBe(200);
+  return sheet.body.items.find((h: { id: string }) => h.id === id);
+}
+
+/** Cents as the test guild's USD e-mails and messages write them: 1810 → "$18.10". */
+const dollars = (cents: number) => `$${(cents / 100).toFixed(2)}`;
 
 async function ledgerTotal(where = ''): Promise<number> {
   const [rows] = await api.runtime.ctx.sequelize.query(`SELECT coalesce(sum(amount_minor), 0)::int AS total FROM ledger_entries ${where}`);
@@ -520,6 +541,8 @@ describe('cancelling, refunds and the treasurer', () => {
     const keptOrder = await buyerClient.send('post', '/api/orders', { items: [{ bundleId: kept, quantity: 1 }], fulfilment: 'post', address });
     await payCheckout(sessionIdFromUrl(keptOrder.body.checkoutUrl));
     await waitFor(async () => (await Order.findByPk(keptOrder.body.order.id))?.state === 'confirmed');
+    // Posted, so its credit may be paid out below.
+    expect((await sellerClient.send('post', `/api/orders/${keptOrder.body.order.id}/posted`, {})).status).toBe(200);
 
     const bundleId = await shelved({ priceMinor: 2000 });
     const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
@@ -549,20 +572,27 @@ describe('cancelling, refunds and the treasurer', () => {
     const balances = await treasurerClient.get('/api/seller-balances');
     const mine = balances.body.items.find((b: { sellerId: string }) => b.sellerId === seller.id);
     expect(mine.balanceMinor).toBe(await ledgerTotal(`WHERE account = 'seller:${seller.id}'`));
-    expect(mine.balanceMinor).toBeGreaterThan(0);
+    expect(mine.payableMinor + mine.waitingMinor).toBe(mine.balanceMinor);
+    expect(mine.payableMinor).toBeGreaterThanOrEqual(500);
 
-    const tooMuch = await treasurerClient.send('post', '/api/payouts', { sellerId: seller.id, amountMinor: mine.balanceMinor + 1, method: 'bank_transfer' });
+    const tooMuch = await treasurerClient.send('post', '/api/payouts', { sellerId: seller.id, amountMinor: mine.payableMinor + 1, method: 'bank_transfer' });
     expect(tooMuch.status).toBe(422);
+    expect(tooMuch.body.error.fields.amountMinor).toBeDefined();
     const payout = await treasurerClient.send('post', '/api/payouts', { sellerId: seller.id, amountMinor: 500, method: 'bank_transfer', reference: 'Nov transfer' });
     expect(payout.status).toBe(201);
-    const after = (await treasurerClient.get('/api/seller-balances')).body.items.find((b: { sellerId: string }) => b.sellerId === seller.id);
-    expect(after).toMatchObject({ balanceMinor: mine.balanceMinor - 500, paidOutMinor: mine.paidOutMinor + 500 });
+    const after = await balanceOf(seller.id);
+    expect(after).toMatchObject({
+      balanceMinor: mine.balanceMinor - 500,
+      paidOutMinor: mine.paidOutMinor + 500,
+      payableMinor: mine.payableMinor - 500,
+      waitingMinor: mine.waitingMinor,
+    });
 
     const ledger = await treasurerClient.get('/api/ledger?kind=payout');
     expect(ledger.body.items.every((e: { kind: string }) => e.kind === 'payout')).toBe(true);
     const csv = await treasurerClient.get('/api/ledger.csv');
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
-    expect(csv.text.split('\n')[0]).toBe('date,transaction,kind,reverses,account,amount_in_currency_units,currency,order,payout');
+    expect(csv.text.split('\n')[0]).toBe('time_in_UTC,transaction,kind,reverses,account,amount_in_currency_units,currency,order,payout');
     expect((await buyerClient.get('/api/ledger')).status).toBe(403);
   });
 
@@ -572,17 +602,17 @@ describe('cancelling, refunds and the treasurer', () => {
     const order = await paidByPost(await shelved({ priceMinor: 900 }, paidOutClient));
     const credit = order.sellerCreditMinor!;
     expect(credit).toBeGreaterThan(0);
+    expect((await paidOutClient.send('post', `/api/orders/${order.id}/posted`, {})).status).toBe(200);
 
     const before = (await treasurerClient.get(`/api/orders/${order.id}`)).body.order;
     expect(before.abilities.refund).toBe(true);
-    expect(before.refundEffect).toEqual({ sellerBalanceMinor: credit, sellerCreditMinor: credit });
+    expect(before.refundEffect).toEqual({ sellerPayableMinor: credit, sellerPayableAfterMinor: 0, sellerCreditMinor: credit });
 
     const payout = await treasurerClient.send('post', '/api/payouts', { sellerId: paidOut.id, amountMinor: credit, method: 'bank_transfer' });
     expect(payout.status).toBe(201);
     const afterPayout = (await treasurerClient.get(`/api/orders/${order.id}`)).body.order;
-    expect(afterPayout.refundEffect).toEqual({ sellerBalanceMinor: 0, sellerCreditMinor: credit });
-    expect(afterPayout.refundEffect.sellerBalanceMinor - afterPayout.refundEffect.sellerCreditMinor).toBe(-credit);
-    expect(afterPayout.refundEffect.sellerBalanceMinor).toBe(await ledgerTotal(`WHERE account = 'seller:${paidOut.id}'`));
+    expect(afterPayout.refundEffect).toEqual({ sellerPayableMinor: 0, sellerPayableAfterMinor: -credit, sellerCreditMinor: credit });
+    expect(afterPayout.refundEffect.sellerPayableMinor).toBe(await ledgerTotal(`WHERE account = 'seller:${paidOut.id}'`));
 
     // The buyer and the seller see the order without it; so does anyone after the refund.
     expect((await buyerClient.get(`/api/orders/${order.id}`)).body.order.refundEffect).toBeNull();
@@ -590,9 +620,169 @@ describe('cancelling, refunds and the treasurer', () => {
     const refunded = await treasurerClient.send('post', `/api/orders/${order.id}/refund`);
     expect(refunded.body.order).toMatchObject({ state: 'refunded', refundEffect: null });
 
-    const balance = (await treasurerClient.get('/api/seller-balances')).body.items.find((b: { sellerId: string }) => b.sellerId === paidOut.id);
-    expect(balance.balanceMinor).toBe(-credit);
+    expect(await balanceOf(paidOut.id)).toMatchObject({ balanceMinor: -credit, payableMinor: -credit, waitingMinor: 0 });
     expect(await ledgerTotal(`WHERE account = 'seller:${paidOut.id}'`)).toBe(-credit);
+    expect((await waitForMail({ to: paidOut.email, subjectIncludes: 'was refunded' })).text).toContain(`so you now owe the guild ${dollars(credit)}`);
+  });
+
+  it('keeps a paid order’s credit waiting until its bag is posted, and refuses a payout above what is payable, writing nothing', async () => {
+    const maker = await createMember({ name: 'Maud Penrose' });
+    const makerClient = await signedInClient(api.runtime.app, maker);
+    const order = await paidByPost(await shelved({ priceMinor: 1100 }, makerClient));
+    const credit = order.sellerCreditMinor;
+    expect(credit).toBeGreaterThan(0);
+    expect(await balanceOf(maker.id)).toMatchObject({ creditedMinor: credit, paidOutMinor: 0, balanceMinor: credit, payableMinor: 0, waitingMinor: credit });
+
+    const tables = ['payouts', 'ledger_entries'];
+    const before = await countRows(api.runtime.ctx.sequelize, tables);
+    const early = await treasurerClient.send('post', '/api/payouts', { sellerId: maker.id, amountMinor: credit, method: 'cash' });
+    expect(early.status).toBe(422);
+    expect(early.body.error.fields.amountMinor).toBe('Nothing is payable now.');
+    expect(early.body.error.message).toContain(`nothing can be paid to Maud Penrose now. ${dollars(credit)} more is waiting for bags not yet posted or handed over`);
+    expect(await countRows(api.runtime.ctx.sequelize, tables)).toEqual(before);
+
+    expect((await makerClient.send('post', `/api/orders/${order.id}/posted`, {})).status).toBe(200);
+    expect(await balanceOf(maker.id)).toMatchObject({ balanceMinor: credit, payableMinor: credit, waitingMinor: 0 });
+    const over = await treasurerClient.send('post', '/api/payouts', { sellerId: maker.id, amountMinor: credit + 1, method: 'cash' });
+    expect(over.status).toBe(422);
+    expect(over.body.error.fields.amountMinor).toBe(`More than the ${dollars(credit)} payable now.`);
+    expect(await countRows(api.runtime.ctx.sequelize, tables)).toEqual(before);
+
+    const paid = await treasurerClient.send('post', '/api/payouts', { sellerId: maker.id, amountMinor: credit, method: 'cash' });
+    expect(paid.status).toBe(201);
+    expect(await balanceOf(maker.id)).toMatchObject({ paidOutMinor: credit, balanceMinor: 0, payableMinor: 0, waitingMinor: 0 });
+  });
+
+  it('makes a meeting sale’s credit payable once the bag is ticked off as handed over', async () => {
+    const giver = await createMember({ name: 'Nell Carrow' });
+    const giverClient = await signedInClient(api.runtime.app, giver);
+    const meeting = await Meeting.create({ startsAt: new Date(Date.now() + 7 * 86_400_000), place: 'Millbrook Hall', createdBy: null });
+    const bundleId = await shelved({ priceMinor: 800, meetingHandoverOk: true }, giverClient);
+    const order = await paidOrder(bundleId, { fulfilment: 'meeting', meetingId: meeting.id });
+    expect(await balanceOf(giver.id)).toMatchObject({ payableMinor: 0, waitingMinor: order.sellerCreditMinor });
+
+    expect((await librarianClient.send('post', `/api/handovers/${order.id}/done`)).status).toBe(204);
+    expect(await balanceOf(giver.id)).toMatchObject({ payableMinor: order.sellerCreditMinor, waitingMinor: 0 });
+  });
+
+  it('lets the librarian untick a handover ticked by mistake, a payout since included while it leaves the seller owing nothing', async () => {
+    const giver = await createMember({ name: 'Tamsin Rowe' });
+    const giverClient = await signedInClient(api.runtime.app, giver);
+    const meeting = await Meeting.create({ startsAt: new Date(Date.now() + 7 * 86_400_000), place: 'Millbrook Hall', createdBy: null });
+    // A bag already posted, whose credit is payable whatever happens at the meeting.
+    const posted = await paidByPost(await shelved({ priceMinor: 1000 }, giverClient));
+    expect((await giverClient.send('post', `/api/orders/${posted.id}/posted`, {})).status).toBe(200);
+    const order = await paidOrder(await shelved({ priceMinor: 800, meetingHandoverOk: true }, giverClient), { fulfilment: 'meeting', meetingId: meeting.id });
+    expect((await librarianClient.send('post', `/api/handovers/${order.id}/done`)).status).toBe(204);
+    // Paid out after the tick, but only what the posted bag earned: the meeting sale's credit is still there.
+    expect((await treasurerClient.send('post', '/api/payouts', { sellerId: giver.id, amountMinor: posted.sellerCreditMinor, method: 'cash' })).status).toBe(201);
+    expect(await balanceOf(giver.id)).toMatchObject({ payableMinor: order.sellerCreditMinor, waitingMinor: 0 });
+    expect(await handoverRow(meeting.id, order.id)).toMatchObject({ done: true, abilities: { markDone: false, undo: true }, undoNote: null });
+
+    expect((await librarianClient.send('delete', `/api/handovers/${order.id}/done`)).status).toBe(204);
+    const unticked = (await Order.findByPk(order.id))!;
+    expect([unticked.state, unticked.handedOverAt, unticked.handedOverBy]).toEqual(['confirmed', null, null]);
+    // Back to waiting: the bag has not changed hands, so its credit cannot be paid out yet, and nothing is owed.
+    expect(await balanceOf(giver.id)).toMatchObject({ payableMinor: 0, waitingMinor: order.sellerCreditMinor });
+    expect(await handoverRow(meeting.id, order.id)).toMatchObject({ done: false, abilities: { markDone: true, undo: false, cancel: true } });
+    // Only a ticked handover can be unticked.
+    const again = await librarianClient.send('delete', `/api/handovers/${order.id}/done`);
+    expect(again.status).toBe(409);
+    expect(again.body.error.fields).toEqual({ id: 'Not ticked.' });
+  });
+
+  it('refuses to untick a handover when a payout since the tick would leave the seller owing the guild, sends the librarian to the treasurer, and writes nothing', async () => {
+    const giver = await createMember({ name: 'Ebba Quance' });
+    const giverClient = await signedInClient(api.runtime.app, giver);
+    const meeting = await Meeting.create({ startsAt: new Date(Date.now() + 7 * 86_400_000), place: 'Millbrook Hall', createdBy: null });
+    const order = await paidOrder(await shelved({ priceMinor: 900, meetingHandoverOk: true }, giverClient), { fulfilment: 'meeting', meetingId: meeting.id });
+    const credit = order.sellerCreditMinor;
+    expect((await librarianClient.send('post', `/api/handovers/${order.id}/done`)).status).toBe(204);
+    const ticked = (await Order.findByPk(order.id))!;
+    expect((await treasurerClient.send('post', '/api/payouts', { sellerId: giver.id, amountMinor: credit, method: 'cash' })).status).toBe(201);
+
+    const message =
+      `This tick can no longer be undone here: Ebba Quance was paid out after the handover was ticked, and unticking it would leave them owing the guild ${dollars(credit)}. ` +
+      'If it was ticked by mistake, please ask the treasurer to put it right.';
+    // The sheet offers no untick, and says why and whom to ask.
+    expect(await handoverRow(meeting.id, order.id)).toMatchObject({ done: true, abilities: { markDone: false, undo: false }, undoNote: message });
+
+    const tables = ['orders', 'ledger_entries', 'payouts', 'order_items'];
+    const before = await countRows(api.runtime.ctx.sequelize, tables);
+    const refused = await librarianClient.send('delete', `/api/handovers/${order.id}/done`);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error).toEqual({ code: 'conflict', message, fields: { id: 'Paid out since the tick: ask the treasurer.' } });
+    expect(await countRows(api.runtime.ctx.sequelize, tables)).toEqual(before);
+    const after = (await Order.findByPk(order.id))!;
+    expect([after.state, after.handedOverAt, after.handedOverBy, after.updatedAt]).toEqual([ticked.state, ticked.handedOverAt, ticked.handedOverBy, ticked.updatedAt]);
+    expect(await balanceOf(giver.id)).toMatchObject({ paidOutMinor: credit, payableMinor: 0, waitingMinor: 0 });
+  });
+
+  it('keeps the untick open until midnight at the end of the meeting’s day in the guild’s time zone', async () => {
+    const giver = await createMember({ name: 'Lowenna Trist' });
+    const giverClient = await signedInClient(api.runtime.app, giver);
+    // 03:00 UTC a week on is the evening before in Los Angeles (UTC−8 in winter, UTC−7 in summer; IANA tz database),
+    // whose day then ends at 08:00 or 07:00 UTC: three hours after the start is still that evening there, six is not,
+    // though both are on the same UTC day.
+    const week = new Date(Date.now() + 7 * 86_400_000);
+    const startsAt = new Date(Date.UTC(week.getUTCFullYear(), week.getUTCMonth(), week.getUTCDate(), 3));
+    const meeting = await Meeting.create({ startsAt, place: 'Millbrook Hall', createdBy: null });
+    const order = await paidOrder(await shelved({ priceMinor: 700, meetingHandoverOk: true }, giverClient), { fulfilment: 'meeting', meetingId: meeting.id });
+    expect((await librarianClient.send('post', `/api/handovers/${order.id}/done`)).status).toBe(204);
+    const guild = (await Guild.findByPk(1))!;
+    const settings = guild.settings;
+    await guild.update({ settings: { ...settings, timeZone: 'America/Los_Angeles' } });
+    const setClock = (at: number) => api.clock.advance(at - api.clock.now().getTime());
+    try {
+      setClock(startsAt.getTime() + 6 * 60 * 60_000);
+      expect(await handoverRow(meeting.id, order.id)).toMatchObject({ done: true, abilities: { undo: false } });
+      const late = await librarianClient.send('delete', `/api/handovers/${order.id}/done`);
+      expect(late.status).toBe(409);
+      expect(late.body.error.fields).toEqual({ id: 'Too late to undo.' });
+
+      setClock(startsAt.getTime() + 3 * 60 * 60_000);
+      expect(await handoverRow(meeting.id, order.id)).toMatchObject({ done: true, abilities: { undo: true } });
+      expect((await librarianClient.send('delete', `/api/handovers/${order.id}/done`)).status).toBe(204);
+      expect((await Order.findByPk(order.id))!.state).toBe('confirmed');
+    } finally {
+      api.clock.reset();
+      await guild.update({ settings });
+    }
+  });
+
+  it('leaves nothing waiting for an order refunded before posting, and counts only what was paid out when telling who owes', async () => {
+    const quilter = await createMember({ name: 'Ada Trelawny' });
+    const quilterClient = await signedInClient(api.runtime.app, quilter);
+    // One bag posted and its credit paid out; a second sale paid but not yet posted.
+    const sent = await paidByPost(await shelved({ priceMinor: 1000 }, quilterClient));
+    expect((await quilterClient.send('post', `/api/orders/${sent.id}/posted`, {})).status).toBe(200);
+    expect((await treasurerClient.send('post', '/api/payouts', { sellerId: quilter.id, amountMinor: sent.sellerCreditMinor, method: 'cheque' })).status).toBe(201);
+    const unsent = await paidByPost(await shelved({ priceMinor: 1300 }, quilterClient));
+    expect(await balanceOf(quilter.id)).toMatchObject({ payableMinor: 0, waitingMinor: unsent.sellerCreditMinor });
+
+    // Refunding the bag not yet sent takes back only waiting credit: nothing that was paid out, so nobody owes.
+    const unsentView = (await treasurerClient.get(`/api/orders/${unsent.id}`)).body.order;
+    expect(unsentView.refundEffect).toEqual({ sellerPayableMinor: 0, sellerPayableAfterMinor: 0, sellerCreditMinor: unsent.sellerCreditMinor });
+    await clearMail();
+    expect((await treasurerClient.send('post', `/api/orders/${unsent.id}/refund`)).status).toBe(200);
+    expect(await balanceOf(quilter.id)).toMatchObject({ balanceMinor: 0, payableMinor: 0, waitingMinor: 0 });
+    const told = await waitForMail({ to: quilter.email, subjectIncludes: 'was refunded' });
+    expect(told.text).toContain('Please do not post it');
+    expect(told.text).not.toContain('owe the guild');
+
+    // Another sale waits; refunding the bag already sent takes back money paid out. The waiting credit does not
+    // cover it (that order may be refunded too): the seller owes the paid-out credit until later bags go out.
+    const waiting = await paidByPost(await shelved({ priceMinor: 1500 }, quilterClient));
+    const sentView = (await treasurerClient.get(`/api/orders/${sent.id}`)).body.order;
+    expect(sentView.refundEffect).toEqual({ sellerPayableMinor: 0, sellerPayableAfterMinor: -sent.sellerCreditMinor, sellerCreditMinor: sent.sellerCreditMinor });
+    await clearMail();
+    expect((await treasurerClient.send('post', `/api/orders/${sent.id}/refund`)).status).toBe(200);
+    expect(await balanceOf(quilter.id)).toMatchObject({
+      balanceMinor: waiting.sellerCreditMinor - sent.sellerCreditMinor,
+      payableMinor: -sent.sellerCreditMinor,
+      waitingMinor: waiting.sellerCreditMinor,
+    });
+    expect((await waitForMail({ to: quilter.email, subjectIncludes: 'was refunded' })).text).toContain(`so you now owe the guild ${dollars(sent.sellerCreditMinor)}`);
   });
 
   it('keeps the ledger balanced after everything above', async () => {
@@ -610,6 +800,7 @@ describe('bad order input', () => {
     ['post without an address', { items: [{ bundleId: '00000000-0000-4000-8000-000000000000', quantity: 1 }], fulfilment: 'post' }, 'address'],
     ['an unknown fulfilment', { items: [{ bundleId: '00000000-0000-4000-8000-000000000000', quantity: 1 }], fulfilment: 'drone' }, 'fulfilment'],
     ['a bad country', { items: [{ bundleId: '00000000-0000-4000-8000-000000000000', quantity: 1 }], fulfilment: 'post', address: { ...address, country: 'Narnia' } }, 'address.country'],
+    ['two letters that are no country', { items: [{ bundleId: '00000000-0000-4000-8000-000000000000', quantity: 1 }], fulfilment: 'post', address: { ...address, country: 'UK' } }, 'address.country'],
   ])('refuses %s with 400 naming the field', async (_label, body, field) => {
     const before = await countRows(api.runtime.ctx.sequelize, ['orders', 'order_items']);
     const res = await buyerClient.send('post', '/api/orders', body);
@@ -634,5 +825,17 @@ describe('bad order input', () => {
     expect(badCountries.status).toBe(400);
     expect(Object.keys(badCountries.body.error.fields)).toEqual(expect.arrayContaining(['countries.1']));
     expect((await admin.get('/api/guild/postage')).body.postage).toEqual(current);
+  });
+});
+
+describe('the order’s life', () => {
+  it('refuses, before writing, any move of state the shared state machine does not list', async () => {
+    const bundleId = await shelved();
+    const placed = await buyerClient.send('post', '/api/orders', { items: [{ bundleId, quantity: 1 }], fulfilment: 'post', address });
+    expect((await buyerClient.send('post', `/api/orders/${placed.body.order.id}/cancel`, { reason: 'Changed my mind' })).status).toBe(200);
+    const order = (await Order.findByPk(placed.body.order.id))!;
+    // ORDER_TRANSITIONS in packages/shared/src/domain/fibres.ts: a cancelled order goes nowhere.
+    await expect(order.update({ state: 'confirmed' })).rejects.toThrow('may not move from cancelled to confirmed');
+    expect((await Order.findByPk(order.id))!.state).toBe('cancelled');
   });
 });

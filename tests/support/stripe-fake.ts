@@ -20,10 +20,41 @@ export interface FakeEvent {
   type: string;
   object_id: string;
   state: string;
+  attempts: { status: number | null; resend: boolean }[];
 }
 
 export const stripeEvents = async (type?: string) => (await control<{ data: FakeEvent[] }>('GET', `/events${type ? `?type=${type}` : ''}`)).body.data;
-export const resendEvent = (id: string) => control<unknown>('POST', `/events/${id}/resend`);
+export const resendEvent = (id: string) => control<{ attempt: { status: number | null } }>('POST', `/events/${id}/resend`);
+
+/**
+ * The event of this type about this object once the API has accepted it (answered 2xx); the stand-in retries a
+ * failed delivery, so this waits for that rather than for a time.
+ */
+export async function deliveredEvent(type: string, objectId: string, timeoutMs = 20_000): Promise<FakeEvent> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const event = (await stripeEvents(type)).find((e) => e.object_id === objectId);
+    if (event?.state === 'delivered') return event;
+    if (Date.now() > deadline) throw new Error(`${type} about ${objectId} was not delivered (state: ${event?.state ?? 'no such event'})`);
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+}
+
+export interface FakeDispute {
+  id: string;
+  amount: number;
+  status: string;
+  reason: string;
+  payment_intent: string;
+  evidence_details: { due_by: number | null };
+}
+
+/** The cardholder's bank opens a dispute on a paid session's payment (the whole of it unless `amount` is given). */
+export const openDispute = (sessionId: string, reason: string, amount?: number) =>
+  control<FakeDispute>('POST', `/checkout/sessions/${sessionId}/dispute`, { reason, amount });
+/** The guild answers it (in Stripe, in the dashboard): the bank reviews it. */
+export const answerDispute = (id: string) => control<FakeDispute>('POST', `/disputes/${id}/answer`, {});
+export const closeDispute = (id: string, outcome: 'won' | 'lost') => control<FakeDispute>('POST', `/disputes/${id}/close`, { outcome });
 export const stripeSession = (id: string) =>
   stripeGet<{ id: string; status: string; payment_status: string; payment_intent: string | null }>(`/checkout/sessions/${id}`);
 async function stripeGet<T>(path: string): Promise<T> {

@@ -4,6 +4,7 @@
  */
 import express, { type Request, type RequestHandler, type Response, Router } from 'express';
 import { createCheckoutSession, expireCheckoutSession, findSession } from './checkout.ts';
+import { findDispute } from './disputes.ts';
 import type { FakeContext } from './context.ts';
 import { authenticationFailed, resourceMissing, StripeFakeError } from './errors.ts';
 import { checkExpand, lineItemList, present } from './expand.ts';
@@ -210,6 +211,13 @@ export function apiRouter(ctx: FakeContext): Router {
         .reverse();
       const list: RefundList = { object: 'list', data: matching.slice(0, limit), has_more: matching.length > limit, url: '/v1/refunds' };
       return list;
+    }),
+  );
+  router.get(
+    '/disputes/:id',
+    endpoint('dispute', ({ params, id }) => {
+      params.done();
+      return findDispute(ctx, id);
     }),
   );
   router.get(

@@ -28,7 +28,8 @@ export const TEST_CARDS = {
   declined: '4000000000000002',
 } as const;
 
-const SYSTEM_REQUEST: RequestContext = { requestId: null, idempotencyKey: null, apiVersion: null };
+/** Events nobody's API call caused (time ran out, the bank acted) carry no request. */
+export const SYSTEM_REQUEST: RequestContext = { requestId: null, idempotencyKey: null, apiVersion: null };
 
 function isHttpUrl(value: string): boolean {
   try {
@@ -185,7 +186,8 @@ export function createCheckoutSession(ctx: FakeContext, params: ParamReader, req
   return record;
 }
 
-function eventContext(record: SessionRecord, request: RequestContext): RequestContext {
+/** Events about a session's payment carry the Stripe-Version the session was made with. */
+export function eventContext(record: SessionRecord, request: RequestContext): RequestContext {
   return { ...request, apiVersion: request.apiVersion ?? record.apiVersion };
 }
 
@@ -287,6 +289,7 @@ export async function paySession(ctx: FakeContext, id: string, card: CardInput):
     },
     receipt_email: receiptEmail,
     refunded: false,
+    disputed: false,
     status: 'succeeded',
   };
   const paymentIntent: PaymentIntent = {

@@ -1,12 +1,14 @@
 /**
  * `/_control`: endpoints for our tests, not part of Stripe's API. They read the
- * event log, replay events, pay without a browser and wipe the stand-in.
+ * event log, replay events, pay without a browser, act as the cardholder's bank
+ * in a dispute, and wipe the stand-in.
  */
 import express, { Router } from 'express';
 import { findSession, paySession } from './checkout.ts';
 import type { FakeContext } from './context.ts';
+import { answerDispute, closeDispute, openDispute } from './disputes.ts';
 import { cardDeclined, invalidRequest, resourceMissing, StripeFakeError } from './errors.ts';
-import type { EventLogEntry } from './types.ts';
+import { DISPUTE_REASONS, type DisputeReason, type EventLogEntry } from './types.ts';
 
 function summary(entry: EventLogEntry) {
   return {
@@ -18,6 +20,10 @@ function summary(entry: EventLogEntry) {
     attempts: entry.attempts,
     event: entry.event,
   };
+}
+
+function jsonBody(body: unknown): Record<string, unknown> {
+  return typeof body === 'object' && body !== null ? (body as Record<string, unknown>) : {};
 }
 
 function findEntry(ctx: FakeContext, id: string): EventLogEntry {
@@ -57,8 +63,7 @@ export function controlRouter(ctx: FakeContext, onReset: () => void): Router {
   });
 
   router.post('/checkout/sessions/:id/pay', async (req, res) => {
-    const body: unknown = req.body;
-    const { card, withholdEvents } = typeof body === 'object' && body !== null ? (body as { card?: unknown; withholdEvents?: unknown }) : {};
+    const { card, withholdEvents } = jsonBody(req.body);
     if (typeof card !== 'string' || card.trim() === '') {
       throw invalidRequest('Send a JSON body { "card": "4242 4242 4242 4242" }.', 'parameter_missing', 'card');
     }
@@ -83,6 +88,31 @@ export function controlRouter(ctx: FakeContext, onReset: () => void): Router {
           'checkout_session_not_open',
         );
     }
+  });
+
+  router.post('/checkout/sessions/:id/dispute', async (req, res) => {
+    const { reason, amount } = jsonBody(req.body);
+    if (typeof reason !== 'string' || !(DISPUTE_REASONS as readonly string[]).includes(reason)) {
+      throw invalidRequest(
+        `Send a JSON body { "reason": "product_not_received" } with one of Stripe's dispute reasons: ${DISPUTE_REASONS.join(', ')}.`,
+        'parameter_invalid',
+        'reason',
+      );
+    }
+    if (amount !== undefined && typeof amount !== 'number') throw invalidRequest('amount is a whole number of minor units.', 'parameter_invalid', 'amount');
+    res.json(await openDispute(ctx, req.params.id, { reason: reason as DisputeReason, amount }));
+  });
+
+  router.post('/disputes/:id/answer', async (req, res) => {
+    res.json(await answerDispute(ctx, req.params.id));
+  });
+
+  router.post('/disputes/:id/close', async (req, res) => {
+    const { outcome } = jsonBody(req.body);
+    if (outcome !== 'won' && outcome !== 'lost') {
+      throw invalidRequest('Send a JSON body { "outcome": "won" } or { "outcome": "lost" }.', 'parameter_invalid', 'outcome');
+    }
+    res.json(await closeDispute(ctx, req.params.id, outcome));
   });
 
   router.post('/reset', (_req, res) => {

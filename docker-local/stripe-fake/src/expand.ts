@@ -35,6 +35,7 @@ function resolvers(ctx: FakeContext, object: Expandable): Record<string, () => E
     case 'charge':
       return { payment_intent: () => store.paymentIntents.get(object.payment_intent) ?? null };
     case 'refund':
+    case 'dispute':
       return {
         charge: () => store.charges.get(object.charge) ?? null,
         payment_intent: () => store.paymentIntents.get(object.payment_intent) ?? null,
@@ -50,6 +51,7 @@ const EXPANDABLE: Readonly<Record<string, Readonly<Record<string, string>>>> = {
   payment_intent: { latest_charge: 'charge' },
   charge: { payment_intent: 'payment_intent' },
   refund: { charge: 'charge', payment_intent: 'payment_intent' },
+  dispute: { charge: 'charge', payment_intent: 'payment_intent' },
 };
 
 /**

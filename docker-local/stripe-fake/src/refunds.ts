@@ -41,6 +41,11 @@ export function createRefund(ctx: FakeContext, params: ParamReader, request: Req
   const metadata = params.metadata('metadata');
   params.done();
   const charge = chargeFor(ctx, paymentIntentId, chargeId);
+  const dispute = ctx.store.disputeForCharge(charge.id);
+  if (dispute && !dispute.is_charge_refundable && dispute.status !== 'won') {
+    // Stripe's wording and code for a refund of a charged-back payment, from memory.
+    throw invalidRequest(`Charge ${charge.id} has been charged back; cannot issue a refund.`, 'charge_disputed');
+  }
 
   const remaining = charge.amount - charge.amount_refunded;
   if (remaining === 0) {

@@ -2,7 +2,7 @@
  * Everything the stand-in knows, kept in memory: a restart (or /_control/reset)
  * forgets every session, payment and event.
  */
-import type { Charge, CheckoutSession, EventLogEntry, LineItem, Metadata, PaymentIntent, Refund } from './types.ts';
+import type { Charge, CheckoutSession, Dispute, EventLogEntry, LineItem, Metadata, PaymentIntent, Refund } from './types.ts';
 
 export interface SessionRecord {
   session: CheckoutSession;
@@ -25,6 +25,7 @@ export class FakeStore {
   readonly paymentIntents = new Map<string, PaymentIntent>();
   readonly charges = new Map<string, Charge>();
   readonly refunds = new Map<string, Refund>();
+  readonly disputes = new Map<string, Dispute>();
   /** Insertion order is creation order; the control endpoint lists them that way. */
   readonly events = new Map<string, EventLogEntry>();
   /** Keyed by API key and Idempotency-Key, as Stripe scopes keys per account. */
@@ -35,11 +36,17 @@ export class FakeStore {
     this.paymentIntents.clear();
     this.charges.clear();
     this.refunds.clear();
+    this.disputes.clear();
     this.events.clear();
     this.idempotency.clear();
   }
 
   refundsForCharge(chargeId: string): Refund[] {
     return [...this.refunds.values()].filter((refund) => refund.charge === chargeId);
+  }
+
+  /** A charge has at most one dispute, as with Stripe. */
+  disputeForCharge(chargeId: string): Dispute | undefined {
+    return [...this.disputes.values()].find((dispute) => dispute.charge === chargeId);
   }
 }

@@ -115,6 +115,8 @@ export interface Charge {
   };
   receipt_email: string | null;
   refunded: boolean;
+  /** True once the cardholder's bank has opened a dispute on it. */
+  disputed: boolean;
   status: 'succeeded';
 }
 
@@ -135,7 +137,51 @@ export interface Refund {
   status: 'succeeded';
 }
 
-export type StripeObject = CheckoutSession | PaymentIntent | Charge | Refund;
+/**
+ * The dispute statuses the stand-in produces: a full dispute (not an inquiry), answered or not, then decided.
+ * Stripe has more (`warning_*` for inquiries, `appeal_*`, `prevented`); our API must accept those too.
+ */
+export type DisputeStatus = 'needs_response' | 'under_review' | 'won' | 'lost';
+
+/** Stripe's documented values of a dispute's `reason` (the Dispute object's reference). */
+export const DISPUTE_REASONS = [
+  'bank_cannot_process',
+  'check_returned',
+  'credit_not_processed',
+  'customer_initiated',
+  'debit_not_authorized',
+  'duplicate',
+  'fraudulent',
+  'general',
+  'incorrect_account_details',
+  'insufficient_funds',
+  'noncompliant',
+  'product_not_received',
+  'product_unacceptable',
+  'subscription_canceled',
+  'unrecognized',
+] as const;
+export type DisputeReason = (typeof DISPUTE_REASONS)[number];
+
+export interface Dispute {
+  id: string;
+  object: 'dispute';
+  amount: number;
+  /** Stripe lists the balance movements here; the stand-in keeps no balance, so it stays empty. */
+  balance_transactions: [];
+  charge: string;
+  created: number;
+  currency: string;
+  evidence_details: { due_by: number | null; has_evidence: boolean; past_due: boolean; submission_count: number };
+  is_charge_refundable: boolean;
+  livemode: false;
+  metadata: Metadata;
+  payment_intent: string;
+  reason: DisputeReason;
+  status: DisputeStatus;
+}
+
+export type StripeObject = CheckoutSession | PaymentIntent | Charge | Refund | Dispute;
 
 export type RefundList = List<Refund>;
 
@@ -144,7 +190,10 @@ export type EventType =
   | 'checkout.session.expired'
   | 'payment_intent.succeeded'
   | 'charge.refunded'
-  | 'refund.created';
+  | 'refund.created'
+  | 'charge.dispute.created'
+  | 'charge.dispute.updated'
+  | 'charge.dispute.closed';
 
 export interface StripeEvent {
   id: string;

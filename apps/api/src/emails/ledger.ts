@@ -8,7 +8,8 @@ const METHOD_LABELS: Record<PayoutInput['method'], string> = { bank_transfer: 'b
 
 /**
  * The treasurer recorded a payout to a seller. Money e-mail: always sent. Amounts come formatted in the guild's
- * currency and the moment in the guild's time zone; `owedNow` is what the guild still owes after this payout, null for nothing.
+ * currency and the moment in the guild's time zone; `owedNow` is what the guild may still pay out after this payout,
+ * null for nothing; `waiting` is credit for bags not yet posted or handed over, null for none.
  */
 export function payoutRecorded(p: {
   guildName: string;
@@ -18,12 +19,16 @@ export function payoutRecorded(p: {
   reference: string;
   recordedAt: string;
   owedNow: string | null;
+  waiting: string | null;
   link: string;
 }): RenderedEmail {
   const how = METHOD_LABELS[p.method] && ` ${METHOD_LABELS[p.method]}`;
   const reference = p.reference ? ` Reference: ${p.reference}.` : '';
   const owed = p.owedNow ? `After this payout the guild still owes you ${p.owedNow} for your sales.` : 'With this payout the guild has paid you everything your sales earned so far.';
-  const balance = `${owed} Your sales, and what each one earned you, are in your orders as a seller; the treasurer can go through your balance with you.`;
+  const waiting = p.waiting
+    ? ` A further ${p.waiting} is for bags you have not posted or handed over yet; it can be paid once you mark them posted, or once they are handed over at a meeting.`
+    : '';
+  const balance = `${owed}${waiting} Your sales, and what each one earned you, are in your orders as a seller; the treasurer can go through your balance with you.`;
   return layout({
     guildName: p.guildName,
     subject: `The guild paid you ${p.amount}`,

@@ -25,7 +25,7 @@ export function orderSoldToSeller(
     ? `Please post it to:\n${addressLines(p.address).join('\n')}`
     : `Please bring it to the meeting: ${p.meeting ?? ''}`;
   const money = p.paid
-    ? `${p.buyerName} paid ${p.paid}.${p.share ? ` Your share is ${p.share}${p.postageIncluded ? ', postage included' : ''}; the guild's treasurer pays it out.` : ''}`
+    ? `${p.buyerName} paid ${p.paid}.${p.share ? ` Your share is ${p.share}${p.postageIncluded ? ', postage included' : ''}; the guild's treasurer pays it out once ${p.address ? 'you have marked the parcel posted' : 'it has been handed over at the meeting'}.` : ''}`
     : 'It is a gift: nothing was paid.';
   const label = p.address
     ? `Write ${p.reference} on the parcel, so it can be matched to the order.`

@@ -31,6 +31,10 @@ export function html(strings: TemplateStringsArray, ...values: unknown[]): SafeH
   return new SafeHtml(out);
 }
 
+/** The call to action every e-mail ends its message with. */
+export const button = (link: string, label: string) =>
+  html`<p><a href="${link}" style="display:inline-block;padding:12px 20px;background:#23234a;color:#ffffff;border-radius:6px;text-decoration:none">${label}</a></p>`;
+
 export interface RenderedEmail {
   subject: string;
   text: string;

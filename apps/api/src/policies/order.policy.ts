@@ -1,13 +1,23 @@
-import type { OrderState } from '@scrap-relay/shared';
+import { disputeStage, type OrderState } from '@scrap-relay/shared';
 import type { Actor } from './index.ts';
 
-type OrderRecord = { buyerId: string; sellerId: string; state: OrderState; fulfilment: 'post' | 'meeting'; chargeMinor: number };
+/** `dispute`: the bank's dispute of the payment, when the record was read with it (refunding and cancelling need it). */
+type OrderRecord = {
+  buyerId: string;
+  sellerId: string;
+  state: OrderState;
+  fulfilment: 'post' | 'meeting';
+  chargeMinor: number;
+  dispute?: { status: string } | null;
+};
 
 const isBuyer = (a: Actor, o?: OrderRecord) => o !== undefined && o.buyerId === a.id;
 const isSeller = (a: Actor, o?: OrderRecord) => o !== undefined && o.sellerId === a.id;
 const isTreasurer = (a: Actor) => a.roles.includes('treasurer');
 const isMeetingKeeper = (a: Actor) => a.roles.includes('admin') || a.roles.includes('librarian');
 const PAID: OrderState[] = ['confirmed', 'posted', 'received', 'handed_over'];
+/** While a bank disputes the payment, or once it has taken it back, the card service refuses a refund. */
+const paymentDisputed = (o?: OrderRecord) => o?.dispute != null && ['open', 'lost'].includes(disputeStage(o.dispute.status));
 
 export const orderPolicy = {
   'order.view': (a: Actor, o?: OrderRecord) => isBuyer(a, o) || isSeller(a, o) || isTreasurer(a),
@@ -20,11 +30,16 @@ export const orderPolicy = {
   'order.markPosted': (a: Actor, o?: OrderRecord) => isSeller(a, o) && o!.fulfilment === 'post' && o!.state === 'confirmed',
   'order.markReceived': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && o!.state === 'posted',
   'order.cancel': (a: Actor, o?: OrderRecord) =>
-    ((isBuyer(a, o) || isSeller(a, o)) && (o!.state === 'awaiting_payment' || o!.state === 'confirmed')) ||
-    // The librarian cancels a meeting handover that did not happen.
-    (isMeetingKeeper(a) && o !== undefined && o.fulfilment === 'meeting' && o.state === 'confirmed'),
+    !paymentDisputed(o) &&
+    (((isBuyer(a, o) || isSeller(a, o)) && (o!.state === 'awaiting_payment' || o!.state === 'confirmed')) ||
+      // The librarian cancels a meeting handover that did not happen.
+      (isMeetingKeeper(a) && o !== undefined && o.fulfilment === 'meeting' && o.state === 'confirmed')),
   'order.reportProblem': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && (o!.state === 'posted' || o!.state === 'received'),
-  'order.refund': (a: Actor, o?: OrderRecord) => isTreasurer(a) && o !== undefined && o.chargeMinor > 0 && PAID.includes(o.state),
+  'order.refund': (a: Actor, o?: OrderRecord) => isTreasurer(a) && o !== undefined && o.chargeMinor > 0 && PAID.includes(o.state) && !paymentDisputed(o),
+  /** That the buyer's bank disputes the payment, and how it ended: the seller, whose credit it concerns, and the treasurer. */
+  'order.viewDispute': (a: Actor, o?: OrderRecord) => isSeller(a, o) || isTreasurer(a),
+  /** Its amount, reason and deadline: the treasurer, who answers it. */
+  'order.viewDisputeDetails': (a: Actor, _o?: OrderRecord) => isTreasurer(a),
   'ledger.view': (a: Actor, _o?: undefined) => isTreasurer(a),
   'payout.record': (a: Actor, _o?: undefined) => isTreasurer(a),
   'postage.manage': (a: Actor, _o?: undefined) => a.roles.includes('admin'),

@@ -15,7 +15,7 @@ export interface MeetingSelectProps {
   disabled?: boolean;
 }
 
-/** Choose one of the guild's meetings, named by when and where (in the reader's time zone). */
+/** Choose one of the guild's meetings, named by when and where (in the guild's time zone, named). */
 export function MeetingSelect({ label, hint, meetings, value, onChange, emptyLabel, error, disabled }: MeetingSelectProps) {
   const timeZone = useGuildTimeZone();
   const options = [...(emptyLabel ? [{ value: '', label: emptyLabel }] : []), ...meetings.map((m) => ({ value: m.id, label: meetingLabel(m, timeZone) }))];

@@ -1,5 +1,4 @@
-import type { PostalAddress } from '@scrap-relay/shared';
-import { countryName } from '../utils/countries.ts';
+import { countryName, type PostalAddress } from '@scrap-relay/shared';
 
 /** A postal address as it goes on an envelope, one line each, the country by name. */
 export function PostalAddressLines({ address }: { address: PostalAddress }) {

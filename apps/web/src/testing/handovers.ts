@@ -21,6 +21,7 @@ export function makeHandover(giver: string, collector: string, overrides: Partia
     checkOffUrl: `http://app.test/handovers/h-${counter}`,
     qrSvg: '<svg/>',
     abilities: { markDone: true, undo: false, cancel: true },
+    undoNote: null,
     ...overrides,
   };
 }

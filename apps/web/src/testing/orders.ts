@@ -33,6 +33,7 @@ export function makeOrderView(overrides: Partial<OrderView> = {}): OrderView {
     problems: [],
     createdAt: '2026-11-02T10:00:00.000Z',
     refundEffect: null,
+    dispute: null,
     abilities: { pay: false, markPosted: false, markReceived: false, cancel: false, refund: false, reportProblem: false, viewAddress: false },
     ...overrides,
   };

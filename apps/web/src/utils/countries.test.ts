@@ -1,29 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { allCountries, countryChoices, countryName, isCountryCode, startingCountry } from './countries.ts';
-
-// Country names are Intl.DisplayNames' English names (CLDR data in the browser); codes are ISO 3166-1 alpha-2.
-describe('country codes and names', () => {
-  it('names real countries and refuses what is not one', () => {
-    expect(countryName('US')).toBe('United States');
-    expect(countryName('ca')).toBe('Canada');
-    // "UN" is what a two-letter box made of "United Nations"… and of "United States"; ZZ is "unknown region".
-    expect(isCountryCode('UN')).toBe(false);
-    expect(isCountryCode('ZZ')).toBe(false);
-    expect(isCountryCode('EU')).toBe(false);
-    expect(isCountryCode('USA')).toBe(false);
-    expect(isCountryCode('')).toBe(false);
-  });
-
-  it('lists every country once, by name, for a guild that posts anywhere', () => {
-    const countries = allCountries();
-    const codes = countries.map((country) => country.code);
-    expect(new Set(codes).size).toBe(codes.length);
-    expect(codes).toEqual(expect.arrayContaining(['US', 'CA', 'GB', 'NZ', 'AU', 'IE']));
-    expect(codes).not.toEqual(expect.arrayContaining(['UN']));
-    const names = countries.map((country) => country.name);
-    expect(names).toEqual([...names].sort((a, b) => a.localeCompare(b, 'en')));
-  });
-});
+import { countryChoices, startingCountry } from './countries.ts';
 
 describe('what the country of an address may be', () => {
   it('offers the countries the guild’s postage table covers', () => {

@@ -1,6 +1,6 @@
 import { meetingSchema } from '@scrap-relay/shared';
 import { describe, expect, it } from 'vitest';
-import { formatDateTime, formatShortDateTime, formatTimestamp, isoToLocalInput, localInputToIso, meetingHasStarted, meetingLabel, toIsoWithOffset } from './meetings.ts';
+import { formatCompactTimestamp, formatDateTime, formatShortDateTime, formatTimeOfDay, formatTimestamp, isoToLocalInput, localInputToIso, meetingHasStarted, meetingLabel, toIsoWithOffset } from './meetings.ts';
 
 describe('meeting times with the zone offset written out', () => {
   const sevenPmUtc = new Date(Date.UTC(2026, 11, 10, 19, 0));
@@ -83,8 +83,16 @@ describe('dates and times as people read them', () => {
     expect(formatTimestamp('2026-12-02T18:24:00Z', LA)).toBe('December 2, 2026 at 10:24 AM PST');
   });
 
-  it('names the device’s zone when no zone is given', () => {
-    expect(formatDateTime('2026-12-12T03:00:00Z')).toMatch(/^\w+day, \w+ \d{1,2}, 2026 at \d{1,2}:00 [AP]M \S+$/);
+  it('gives back text that is not a date as it came', () => {
     expect(formatDateTime('not a date', LA)).toBe('not a date');
+    expect(formatCompactTimestamp('not a date', LA)).toBe('not a date');
+  });
+
+  it('has a compact form for table cells and a time of day, both in the guild’s zone with the zone named', () => {
+    // 18:24 UTC on 2 December is 10:24 AM in Los Angeles (UTC−8 in winter) and 7:24 AM on the 3rd in Auckland
+    // (UTC+13 in the southern summer) — IANA tz database.
+    expect(formatCompactTimestamp('2026-12-02T18:24:00Z', LA)).toBe('Dec 2, 2026, 10:24 AM PST');
+    expect(formatCompactTimestamp('2026-12-02T18:24:00Z', 'Pacific/Auckland')).toBe('Dec 3, 2026, 7:24 AM GMT+13');
+    expect(formatTimeOfDay('2026-12-02T18:24:00Z', LA)).toBe('10:24 AM PST');
   });
 });

@@ -2,55 +2,64 @@ import type { MeetingView } from '@scrap-relay/shared';
 import { instantOfWallTime, isCalendarWallTime, offsetMinutesAt, shortZoneName, wallTimeAt, type WallTime } from './zoned-time.ts';
 
 /**
- * Dates with times (meetings, offer deadlines, ticks at the door). The API sends instants; people read and
- * type them in the guild's time zone (the zone its e-mails use, `useGuildTimeZone()`), whatever the device's
- * clock says, and every time shown names its zone. Without a zone the device's is used, still named.
+ * Dates with times (meetings, offer deadlines, ticks at the door, ledger entries). The API sends instants; people
+ * read and type them in the guild's time zone (the zone its e-mails use, `useGuildTimeZone()`), whatever the
+ * device's clock says, and every time shown names its zone. The zone is always given: nothing here falls back
+ * to the device's.
  */
 
 const formats = new Map<string, Intl.DateTimeFormat>();
 
-const OPTIONS: Record<'full' | 'dated' | 'short', Intl.DateTimeFormatOptions> = {
+const OPTIONS: Record<'full' | 'dated' | 'short' | 'compact' | 'time', Intl.DateTimeFormatOptions> = {
   full: { dateStyle: 'full', timeStyle: 'short' },
   dated: { day: 'numeric', month: 'long', year: 'numeric', hour: 'numeric', minute: '2-digit', timeZoneName: 'short' },
   short: { weekday: 'short', day: 'numeric', month: 'short', hour: 'numeric', minute: '2-digit', timeZoneName: 'short' },
+  compact: { day: 'numeric', month: 'short', year: 'numeric', hour: 'numeric', minute: '2-digit', timeZoneName: 'short' },
+  time: { hour: 'numeric', minute: '2-digit', timeZoneName: 'short' },
 };
 
-function formatIn(kind: keyof typeof OPTIONS, timeZone: string | undefined): Intl.DateTimeFormat {
-  const key = `${kind}:${timeZone ?? ''}`;
+function formatIn(kind: keyof typeof OPTIONS, timeZone: string): Intl.DateTimeFormat {
+  const key = `${kind}:${timeZone}`;
   let format = formats.get(key);
   if (!format) {
-    format = new Intl.DateTimeFormat('en-US', { ...OPTIONS[kind], ...(timeZone ? { timeZone } : {}) });
+    format = new Intl.DateTimeFormat('en-US', { ...OPTIONS[kind], timeZone });
     formats.set(key, format);
   }
   return format;
 }
 
-const deviceZone = (): string => Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
-
 /** "Friday, December 11, 2026 at 7:00 PM PST" (the e-mails' wording), in the given zone. */
-export function formatDateTime(iso: string, timeZone?: string): string {
+export function formatDateTime(iso: string, timeZone: string): string {
   const date = new Date(iso);
   if (Number.isNaN(date.getTime())) return iso;
-  return `${formatIn('full', timeZone).format(date)} ${shortZoneName(date, timeZone ?? deviceZone())}`;
+  return `${formatIn('full', timeZone).format(date)} ${shortZoneName(date, timeZone)}`;
 }
 
 /** When a meeting starts, in full (the same wording as any other date and time). */
 export const formatMeetingWhen = formatDateTime;
 
+/** A formatter of one kind: an instant in the given zone, or the text as it came when it is not a date. */
+const formatterOf =
+  (kind: keyof typeof OPTIONS) =>
+  (iso: string, timeZone: string): string => {
+    const date = new Date(iso);
+    return Number.isNaN(date.getTime()) ? iso : formatIn(kind, timeZone).format(date);
+  };
+
 /** "December 11, 2026 at 7:00 PM PST" — when something happened (an order's history). */
-export function formatTimestamp(iso: string, timeZone?: string): string {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : formatIn('dated', timeZone).format(date);
-}
+export const formatTimestamp = formatterOf('dated');
 
 /** "Fri, Dec 11, 7:00 PM PST" — for lists and menus where space is short. */
-export function formatShortDateTime(iso: string, timeZone?: string): string {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : formatIn('short', timeZone).format(date);
-}
+export const formatShortDateTime = formatterOf('short');
+
+/** "Dec 2, 2026, 10:24 AM PST" — for table cells (the ledger), where the year matters and space is short. */
+export const formatCompactTimestamp = formatterOf('compact');
+
+/** "3:42 PM PST" — the time of something that happened today (a draft saved a moment ago). */
+export const formatTimeOfDay = formatterOf('time');
 
 /** One line naming a meeting: when, then where. */
-export const meetingLabel = (meeting: Pick<MeetingView, 'startsAt' | 'place'>, timeZone?: string): string =>
+export const meetingLabel = (meeting: Pick<MeetingView, 'startsAt' | 'place'>, timeZone: string): string =>
   `${formatShortDateTime(meeting.startsAt, timeZone)} — ${meeting.place}`;
 
 const pad = (n: number, width = 2) => String(Math.abs(n)).padStart(width, '0');

@@ -33,6 +33,8 @@ export interface MonthStatement {
   guildFeesMinor: number;
   refundsMinor: number;
   processingCostMinor: number;
+  /** Payments the buyers' banks took back through the card processor: disputes the guild lost. */
+  disputesLostMinor: number;
   payoutsMinor: number;
   sellerCreditsMinor: number;
   closingBalances: { sellerId: string; name: string; balanceMinor: number }[];

@@ -1,4 +1,4 @@
-import type { OrderState, PostageQuote } from '../domain/index.ts';
+import type { DisputeStage, OrderState, PostageQuote } from '../domain/index.ts';
 import type { PostalAddress } from '../schemas/orders.ts';
 
 export interface MeetingView {
@@ -61,13 +61,37 @@ export interface OrderView {
   createdAt: string;
   /** Only for a viewer who may refund the order (abilities.refund): what a refund would take back from the seller. */
   refundEffect: RefundEffectView | null;
+  /** The cardholder's bank questioning the payment: for the treasurer in full, for the seller its stage and dates; null otherwise. */
+  dispute: OrderDisputeView | null;
   abilities: OrderAbilities;
 }
 
-/** The seller's side of a refund, from the ledger, in minor units of the order's currency. */
+export interface OrderDisputeView {
+  stage: DisputeStage;
+  openedAt: string;
+  closedAt: string | null;
+  /** The rest only for the treasurer (null for the seller). The card service's status (`needs_response`, `under_review`, `won`, `lost`, …). */
+  status: string | null;
+  /** What the bank took or may take back, in minor units of the order's currency. */
+  amountMinor: number | null;
+  /** The card service's reason code (`product_not_received`, …). */
+  reason: string | null;
+  /** The date by which the bank wants the guild's evidence, when it asked for any. */
+  evidenceDueBy: string | null;
+}
+
+/**
+ * The seller's side of a refund, from the ledger, in minor units of the order's currency. A seller owes the guild
+ * only money they were paid out and no longer have bags behind: when their payable figure is below zero.
+ */
 export interface RefundEffectView {
-  /** What the guild owes the seller now: credits less refunds and payouts (below zero, the seller owes the guild). */
-  sellerBalanceMinor: number;
+  /** What the guild may pay the seller now (SellerBalanceView.payableMinor); below zero, what the seller owes the guild. */
+  sellerPayableMinor: number;
+  /**
+   * The same after this refund: lower by the order's credit when its bag had gone out; unchanged when it had not,
+   * since that credit was still waiting and could not have been paid out.
+   */
+  sellerPayableAfterMinor: number;
   /** This order's credit to the seller still standing: what the refund reverses. */
   sellerCreditMinor: number;
 }
@@ -91,12 +115,22 @@ export interface LedgerEntryView {
   payoutId: string | null;
 }
 
+/** What the guild owes one seller, from the ledger, in minor units. */
 export interface SellerBalanceView {
   sellerId: string;
   name: string;
+  /** Their credits less refunds. */
   creditedMinor: number;
   paidOutMinor: number;
+  /** Credited less paid out: payableMinor + waitingMinor. */
   balanceMinor: number;
+  /**
+   * What the treasurer may pay out now: credits of orders whose bag has gone out (posted, received, handed over),
+   * less every refund and payout. Below zero, the seller owes the guild (a refund came after a payout).
+   */
+  payableMinor: number;
+  /** Credits of paid orders whose bag has not been posted or handed over yet: payable once it goes out. */
+  waitingMinor: number;
   currency: string;
 }
 
@@ -114,6 +148,8 @@ export interface HandoverView {
   checkOffUrl: string;
   qrSvg: string;
   abilities: { markDone: boolean; undo: boolean; cancel: boolean };
+  /** Why a tick can no longer be undone at the door though it is the meeting's day (the seller was paid out since), and whom to ask; else null. */
+  undoNote: string | null;
 }
 
 export interface WaitlistRow {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   allowsFulfilment,
+  BAG_OUT_ORDER_STATES,
   BUNDLE_STATES,
   BUNDLE_TRANSITIONS,
   CUT_KINDS,
@@ -8,8 +9,12 @@ import {
   FIBRES,
   FIBRE_LABELS,
   FIBRE_TYPICAL_GSM,
+  CREDIT_WAITING_ORDER_STATES,
+  HANDOVER_UNTICK,
   ORDER_STATES,
+  ORDER_TRANSITIONS,
   canOrderTransition,
+  type OrderState,
   canTransition,
 } from './fibres.ts';
 
@@ -77,6 +82,38 @@ describe('order states (design choice)', () => {
       expect(canOrderTransition('cancelled', to)).toBe(false);
       expect(canOrderTransition('refunded', to)).toBe(false);
     }
+  });
+
+  it('goes back only to put right a handover ticked by mistake: posted and received bags never return to confirmed', () => {
+    expect(canOrderTransition(HANDOVER_UNTICK.from, HANDOVER_UNTICK.to)).toBe(true);
+    const backToConfirmed = ORDER_STATES.filter((from) => from !== 'awaiting_payment' && canOrderTransition(from, 'confirmed'));
+    expect(backToConfirmed).toEqual(['handed_over']);
+  });
+});
+
+describe('when a seller credit may be paid out (design choice)', () => {
+  it('waits exactly in the states from which the bag can still be posted or handed over', () => {
+    const bagCanStillGoOut = ORDER_STATES.filter((from) => canOrderTransition(from, 'posted') || canOrderTransition(from, 'handed_over'));
+    expect([...CREDIT_WAITING_ORDER_STATES]).toEqual(bagCanStillGoOut);
+  });
+
+  it('is payable in posted, handed over and every state they lead to, except a refund (which reverses the credit)', () => {
+    const reached = new Set<OrderState>(['posted', 'handed_over']);
+    for (let grew = true; grew; ) {
+      grew = false;
+      for (const from of [...reached]) {
+        for (const to of ORDER_TRANSITIONS[from]) {
+          // The same-day untick says the bag never went out: it leads back to waiting, not onward from a bag out.
+          if (from === HANDOVER_UNTICK.from && to === HANDOVER_UNTICK.to) continue;
+          if (reached.has(to)) continue;
+          reached.add(to);
+          grew = true;
+        }
+      }
+    }
+    reached.delete('refunded');
+    expect(new Set(BAG_OUT_ORDER_STATES)).toEqual(reached);
+    for (const state of BAG_OUT_ORDER_STATES) expect(CREDIT_WAITING_ORDER_STATES).not.toContain(state);
   });
 });
 

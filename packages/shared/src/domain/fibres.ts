@@ -230,12 +230,27 @@ export const ORDER_TRANSITIONS: Readonly<Record<OrderState, readonly OrderState[
   confirmed: ['posted', 'handed_over', 'cancelled', 'refunded'],
   posted: ['received', 'refunded'],
   received: ['refunded'],
-  handed_over: ['refunded'],
+  // Back to `confirmed` only as the same-day correction of a tick made by mistake at the meeting's door (the
+  // librarian's untick, `HANDOVER_UNTICK`): the bag never changed hands. It is no way to take a bag back later.
+  handed_over: ['refunded', 'confirmed'],
   cancelled: [],
   refunded: [],
 };
+
+/** The one move that goes back: unticking a meeting handover ticked by mistake, on the meeting's day. */
+export const HANDOVER_UNTICK = { from: 'handed_over', to: 'confirmed' } as const satisfies { from: OrderState; to: OrderState };
 
 /** Whether an order may move from one state to another. */
 export function canOrderTransition(from: OrderState, to: OrderState): boolean {
   return ORDER_TRANSITIONS[from].includes(to);
 }
+
+/**
+ * Where the bag is decides when its seller's credit may be paid out (design choice). Once the bag has gone out —
+ * posted (and perhaps received since) or handed over at a meeting — the credit is payable. While the order is only
+ * `confirmed` (paid, or nothing to pay, and the bag still with the seller) it may yet be cancelled or refunded with
+ * nothing sent, so its credit waits: paying it out then would leave the guild chasing the seller for it.
+ * Cancelled and refunded orders carry their reversal beside their credit and net to nothing, so they are in neither.
+ */
+export const BAG_OUT_ORDER_STATES = ['posted', 'received', 'handed_over'] as const satisfies readonly OrderState[];
+export const CREDIT_WAITING_ORDER_STATES = ['confirmed'] as const satisfies readonly OrderState[];

@@ -3,6 +3,7 @@ import {
   DEFAULT_PROCESSING,
   type LedgerEntry,
   accountBalances,
+  disputeLostEntries,
   divideRoundHalfUp,
   guildFee,
   isBalanced,
@@ -198,6 +199,14 @@ describe('ledger (design choice: double entry, each transaction sums to zero)', 
         const refund = reversalEntries(entries, { keepProcessingCost });
         expect(isBalanced(refund)).toBe(true);
         expect(isBalanced([...entries, ...refund])).toBe(true);
+      }
+      if (m.chargeMinor > 0) {
+        // A lost dispute over any part of the payment balances and never takes back more than the seller was credited.
+        const amountMinor = 1 + int(m.chargeMinor - 1);
+        const lost = disputeLostEntries({ sellerId: `s${i}`, amountMinor, orderEntries: entries });
+        expect(isBalanced(lost)).toBe(true);
+        expect(accountBalances([...entries, ...lost]).get(`seller:s${i}`) ?? 0).toBeGreaterThanOrEqual(0);
+        expect(accountBalances(lost).get('processor')).toBe(amountMinor);
       }
     }
   });

@@ -109,7 +109,7 @@ export function orderMoney(input: OrderMoneyInput): OrderMoney {
 
 /* ---------- ledger ---------- */
 
-export const LEDGER_ENTRY_KINDS = ['charge', 'guild_fee', 'seller_credit', 'processing_cost', 'refund', 'payout'] as const;
+export const LEDGER_ENTRY_KINDS = ['charge', 'guild_fee', 'seller_credit', 'processing_cost', 'refund', 'payout', 'dispute'] as const;
 export type LedgerEntryKind = (typeof LEDGER_ENTRY_KINDS)[number];
 
 export type LedgerAccount = 'buyer' | 'guild' | 'processor' | 'payouts' | `seller:${string}`;
@@ -119,8 +119,8 @@ export interface LedgerEntry {
   account: LedgerAccount;
   /** Signed: positive adds to the account's balance, negative takes from it. */
   amountMinor: number;
-  /** On refund entries, the kind of entry reversed. */
-  reverses?: Exclude<LedgerEntryKind, 'refund' | 'payout'>;
+  /** On refund and dispute entries, the kind of entry reversed. */
+  reverses?: Exclude<LedgerEntryKind, 'refund' | 'payout' | 'dispute'>;
 }
 
 export const sellerAccount = (sellerId: string): LedgerAccount => `seller:${sellerId}`;
@@ -174,9 +174,43 @@ export function reversalEntries(entries: readonly LedgerEntry[], options: Revers
   return entries
     .filter((e) => !(keepProcessingCost && e.kind === 'processing_cost'))
     .map((e) => {
-      if (e.kind === 'refund' || e.kind === 'payout') throw new Error(`A ${e.kind} entry is not reversed by a refund`);
+      if (e.kind === 'refund' || e.kind === 'payout' || e.kind === 'dispute') throw new Error(`A ${e.kind} entry is not reversed by a refund`);
       return { kind: 'refund', account: e.account, amountMinor: -e.amountMinor, reverses: e.kind };
     });
+}
+
+/**
+ * A dispute the guild lost: the cardholder's bank took `amountMinor` back through the card processor. Mirrors a
+ * refund for the order's shares, kind `dispute`:
+ *   processor        +amount (the money left the guild's card account)
+ *   seller:<id>      −the seller's credit for the order still standing (reverses seller_credit)
+ *   guild            −the guild fee still standing (reverses guild_fee)
+ *   guild            −whatever is left, borne by the guild (for example when the order had been refunded already)
+ * Of a dispute for part of the payment, each share is taken back in proportion (credit × amount ÷ charge, by the
+ * one rounding rule); the guild's fee absorbs the rounding. The processor's fee for the payment stays, as on a refund.
+ */
+export function disputeLostEntries({ sellerId, amountMinor, orderEntries }: { sellerId: string; amountMinor: number; orderEntries: readonly LedgerEntry[] }): LedgerEntry[] {
+  assertMinor('amountMinor', amountMinor);
+  if (amountMinor <= 0) throw new RangeError('A lost dispute takes back a positive amount');
+  const seller = sellerAccount(sellerId);
+  let chargeMinor = 0;
+  let creditMinor = 0;
+  let feeMinor = 0;
+  for (const e of orderEntries) {
+    if (e.kind === 'charge') chargeMinor -= e.amountMinor;
+    if (e.account === seller && (e.kind === 'seller_credit' || e.reverses === 'seller_credit')) creditMinor += e.amountMinor;
+    if (e.account === 'guild' && (e.kind === 'guild_fee' || e.reverses === 'guild_fee')) feeMinor += e.amountMinor;
+  }
+  const part = (standing: number) => (chargeMinor > 0 && standing > 0 ? Math.min(standing, divideRoundHalfUp(standing * Math.min(amountMinor, chargeMinor), chargeMinor)) : 0);
+  const sellerShare = Math.min(part(creditMinor), amountMinor);
+  const feeShare = Math.min(Math.max(feeMinor, 0), amountMinor - sellerShare);
+  const entries: LedgerEntry[] = [
+    { kind: 'dispute', account: 'processor', amountMinor },
+    { kind: 'dispute', account: seller, amountMinor: -sellerShare, reverses: 'seller_credit' },
+    { kind: 'dispute', account: 'guild', amountMinor: -feeShare, reverses: 'guild_fee' },
+    { kind: 'dispute', account: 'guild', amountMinor: -(amountMinor - sellerShare - feeShare) },
+  ];
+  return entries.filter((e) => e.amountMinor !== 0);
 }
 
 /** A payout the treasurer made to a seller: the guild owes them that much less. */

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { isCountryCode } from '../domain/countries.ts';
+import { LEDGER_ENTRY_KINDS } from '../domain/money.ts';
 
 const text = (label: string, max: number) =>
   z.string({ error: `Enter ${label}.` }).trim().min(1, { error: `Enter ${label}.` }).max(max, { error: `Use at most ${max} characters.` });
@@ -14,7 +16,8 @@ export const postalAddressSchema = z.strictObject({
     .string({ error: 'Choose the country.' })
     .trim()
     .regex(/^[A-Za-z]{2}$/, { error: 'Use the two-letter country code, like US or CA.' })
-    .transform((c) => c.toUpperCase()),
+    .transform((c) => c.toUpperCase())
+    .refine(isCountryCode, { error: 'That is not a country code; choose the country from the list (the United Kingdom is GB).' }),
 });
 export type PostalAddress = z.infer<typeof postalAddressSchema>;
 
@@ -76,7 +79,7 @@ export type PayoutInput = z.infer<typeof payoutSchema>;
 export const ledgerQuerySchema = z.strictObject({
   from: z.iso.date({ error: 'Use a date like 2026-11-30.' }).optional(),
   to: z.iso.date({ error: 'Use a date like 2026-11-30.' }).optional(),
-  kind: z.enum(['charge', 'guild_fee', 'seller_credit', 'processing_cost', 'refund', 'payout'], { error: 'Unknown entry kind.' }).optional(),
+  kind: z.enum(LEDGER_ENTRY_KINDS, { error: 'Unknown entry kind.' }).optional(),
 });
 export type LedgerQuery = z.infer<typeof ledgerQuerySchema>;
 

@@ -9,19 +9,20 @@ import { Wish } from './wish.ts';
 import { Meeting } from './meeting.ts';
 import { Order } from './order.ts';
 import { OrderItem } from './order-item.ts';
+import { OrderDispute } from './order-dispute.ts';
 import { OrderProblem } from './order-problem.ts';
 import { Payout } from './payout.ts';
 import { LedgerEntry } from './ledger-entry.ts';
 import { StarterClaim } from './starter-claim.ts';
 import { WaitlistEntry, WaitlistOffer } from './waitlist.ts';
 
-export { Bundle, BundlePhoto, BundleReview, Guild, LedgerEntry, Meeting, Member, MemberToken, Order, OrderItem, OrderProblem, Payout, StarterClaim, WaitlistEntry, WaitlistOffer, Wish };
+export { Bundle, BundlePhoto, BundleReview, Guild, LedgerEntry, Meeting, Member, MemberToken, Order, OrderDispute, OrderItem, OrderProblem, Payout, StarterClaim, WaitlistEntry, WaitlistOffer, Wish };
 export { DEFAULT_GUILD_SETTINGS, type GuildSettingsDocument } from './guild.ts';
 export type { TokenPurpose as TokenPurposeType } from './member-token.ts';
 
 /** Initialises every model on one connection and wires the associations in one place. */
 export function initModels(sequelize: Sequelize) {
-  for (const model of [Guild, Member, MemberToken, Bundle, BundlePhoto, BundleReview, Wish, Meeting, Order, OrderItem, OrderProblem, Payout, LedgerEntry, StarterClaim, WaitlistEntry, WaitlistOffer]) {
+  for (const model of [Guild, Member, MemberToken, Bundle, BundlePhoto, BundleReview, Wish, Meeting, Order, OrderItem, OrderProblem, OrderDispute, Payout, LedgerEntry, StarterClaim, WaitlistEntry, WaitlistOffer]) {
     model.initModel(sequelize);
   }
 
@@ -39,6 +40,7 @@ export function initModels(sequelize: Sequelize) {
   Order.belongsTo(Member, { foreignKey: 'sellerId', as: 'seller' });
   Order.belongsTo(Meeting, { foreignKey: 'meetingId', as: 'meeting' });
   Order.hasMany(OrderProblem, { foreignKey: 'orderId', as: 'problems' });
+  Order.hasOne(OrderDispute, { foreignKey: 'orderId', as: 'dispute' });
   StarterClaim.belongsTo(Bundle, { foreignKey: 'bundleId', as: 'bundle' });
   StarterClaim.belongsTo(Member, { foreignKey: 'memberId', as: 'member' });
   StarterClaim.belongsTo(Meeting, { foreignKey: 'meetingId', as: 'meeting' });

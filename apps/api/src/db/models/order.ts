@@ -1,8 +1,9 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
-import type { OrderState, PostalAddress, PostageQuote } from '@scrap-relay/shared';
+import { canOrderTransition, type OrderState, type PostalAddress, type PostageQuote } from '@scrap-relay/shared';
 import type { Meeting } from './meeting.ts';
 import type { Member } from './member.ts';
 import type { OrderItem } from './order-item.ts';
+import type { OrderDispute } from './order-dispute.ts';
 import type { OrderProblem } from './order-problem.ts';
 
 export class Order extends Model<InferAttributes<Order>, InferCreationAttributes<Order>> {
@@ -44,6 +45,7 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
   declare seller?: NonAttribute<Member>;
   declare meeting?: NonAttribute<Meeting | null>;
   declare problems?: NonAttribute<OrderProblem[]>;
+  declare dispute?: NonAttribute<OrderDispute | null>;
 
   static initModel(sequelize: Sequelize) {
     // A fresh definition per column: Sequelize writes the column name into the object it is given.
@@ -83,7 +85,18 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'orders' },
+      {
+        sequelize,
+        tableName: 'orders',
+        hooks: {
+          // The last guard on the order's life: a move the shared state machine does not list is a bug, refused before it is written.
+          beforeUpdate(order) {
+            if (!order.changed('state')) return;
+            const from = order.previous('state') as OrderState;
+            if (!canOrderTransition(from, order.state)) throw new Error(`order ${order.id} may not move from ${from} to ${order.state}`);
+          },
+        },
+      },
     );
   }
 }

@@ -1,6 +1,6 @@
-import { Op, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import QRCode from 'qrcode';
-import type { HandoverView } from '@scrap-relay/shared';
+import { canOrderTransition, formatMoney, HANDOVER_UNTICK, sellerAccount, type HandoverView } from '@scrap-relay/shared';
 import { Bundle, BundlePhoto, Meeting, Member, Order, OrderItem, StarterClaim } from '../../db/models/index.ts';
 import { conflict, notFound } from '../../errors/index.ts';
 import { handoverMoved, meetingReminder } from '../../emails/starter.ts';
@@ -8,15 +8,62 @@ import { meetingLabel } from '../../emails/format.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { guildTimeZone, loadGuild } from '../guild/guild.service.ts';
+import { lockSellerPayable, sellerBalanceSplits } from '../orders/ledger-writer.ts';
 import { cancelOrder } from '../orders/orders.service.ts';
 import { offerToNextInLine } from '../starter/starter.service.ts';
 
 const DAY_MS = 86_400_000;
 
+/**
+ * Ticks can be undone until midnight at the end of the meeting's day in the guild's time zone, so a slip at the door
+ * can be put right that evening, wherever the guild meets.
+ */
+async function undoDeadline(meeting: Meeting, timeZone: string, transaction?: Transaction): Promise<Date> {
+  const [row] = await Meeting.sequelize!.query<{ deadline: Date }>(
+    `SELECT (($1::timestamptz AT TIME ZONE $2::text)::date + 1)::timestamp AT TIME ZONE $2::text AS deadline`,
+    { bind: [meeting.startsAt.toISOString(), timeZone], transaction, type: QueryTypes.SELECT },
+  );
+  return new Date(row!.deadline);
+}
 
+/**
+ * The ticked orders among these whose untick would take back money already paid out, with what their seller would
+ * then owe the guild. Unticking moves an order's seller credit from payable back to waiting (`sellerBalanceSplits`);
+ * that is refused when the seller was paid out after the tick and their payable-now figure would go below zero,
+ * since the payout may have counted on the bag having changed hands. Only the treasurer can put that right.
+ */
+async function untickShortfalls(sequelize: Sequelize, orders: readonly Order[], transaction?: Transaction): Promise<Map<string, number>> {
+  const ticked = orders.filter((o) => o.state === HANDOVER_UNTICK.from && o.handedOverAt);
+  if (ticked.length === 0) return new Map();
+  const payouts = await sequelize.query<{ seller_id: string; last: Date }>(
+    `SELECT seller_id, max(created_at) AS last FROM payouts WHERE seller_id = ANY($1::uuid[]) GROUP BY seller_id`,
+    { bind: [[...new Set(ticked.map((o) => o.sellerId))]], transaction, type: QueryTypes.SELECT },
+  );
+  const lastPayout = new Map(payouts.map((p) => [p.seller_id, new Date(p.last).getTime()]));
+  const paidSince = ticked.filter((o) => (lastPayout.get(o.sellerId) ?? -Infinity) > o.handedOverAt!.getTime());
+  if (paidSince.length === 0) return new Map();
+  const splits = await sellerBalanceSplits(sequelize, [...new Set(paidSince.map((o) => o.sellerId))], transaction);
+  // The order's entries that wait while it is `confirmed`: its seller credit and whatever takes it back.
+  const credits = await sequelize.query<{ order_id: string; credit: number }>(
+    `SELECT w.order_id, coalesce(sum(e.amount_minor), 0)::int AS credit
+     FROM unnest($1::uuid[], $2::text[]) AS w(order_id, account)
+     LEFT JOIN ledger_entries e ON e.order_id = w.order_id AND e.account = w.account AND (e.kind = 'seller_credit' OR e.reverses = 'seller_credit')
+     GROUP BY w.order_id`,
+    { bind: [paidSince.map((o) => o.id), paidSince.map((o) => sellerAccount(o.sellerId))], transaction, type: QueryTypes.SELECT },
+  );
+  const payable = new Map(splits.map((b) => [b.sellerId, b.payableMinor]));
+  const credit = new Map(credits.map((c) => [c.order_id, c.credit]));
+  const shortfalls = new Map<string, number>();
+  for (const o of paidSince) {
+    const after = (payable.get(o.sellerId) ?? 0) - (credit.get(o.id) ?? 0);
+    if (after < 0) shortfalls.set(o.id, -after);
+  }
+  return shortfalls;
+}
 
-/** Ticks can be undone until the end of the meeting's day (UTC), so a slip at the door can be put right that evening. */
-export const undoDeadline = (meeting: Meeting) => new Date(Math.floor(meeting.startsAt.getTime() / DAY_MS) * DAY_MS + DAY_MS);
+/** Why a tick cannot be undone at the door, and whom to ask: the 409's message and the sheet's note. */
+const untickRefusal = (sellerName: string, owingMinor: number, currency: string) =>
+  `This tick can no longer be undone here: ${sellerName} was paid out after the handover was ticked, and unticking it would leave them owing the guild ${formatMoney(owingMinor, currency)}. If it was ticked by mistake, please ask the treasurer to put it right.`;
 
 async function meetingOrThrow(id: string, transaction?: Transaction) {
   const meeting = await Meeting.findByPk(id, { transaction });
@@ -28,19 +75,22 @@ async function meetingOrThrow(id: string, transaction?: Transaction) {
 export async function handoverSheet(ctx: AppContext, actor: Actor, meetingId: string): Promise<{ meeting: Meeting; handovers: HandoverView[] }> {
   authorize(actor, 'meeting.manage');
   const meeting = await meetingOrThrow(meetingId);
-  const [orders, claims] = await Promise.all([
+  const [orders, claims, guild] = await Promise.all([
     Order.findAll({ where: { meetingId, state: { [Op.in]: ['confirmed', 'handed_over'] } }, include: [{ association: 'items' }, { association: 'buyer' }, { association: 'seller' }] }),
     StarterClaim.findAll({ where: { meetingId, state: { [Op.in]: ['claimed', 'handed_over'] } }, include: [{ association: 'bundle', include: [{ association: 'seller' }] }, { association: 'member' }] }),
+    loadGuild(),
   ]);
   const bundleIds = [...orders.flatMap((o) => (o.items ?? []).map((i) => i.bundleId)), ...claims.map((c) => c.bundleId)];
   const photos = bundleIds.length ? await BundlePhoto.findAll({ where: { bundleId: bundleIds, position: 0 } }) : [];
   const thumbs = new Map(photos.map((p) => [p.bundleId, ctx.storage.publicUrl(p.thumbKey)]));
   const markers = new Map((await Member.findAll({ where: { id: [...orders.map((o) => o.handedOverBy), ...claims.map((c) => c.handedOverBy)].filter((x): x is string => !!x) } })).map((m) => [m.id, m.name]));
-  const canUndo = ctx.now() < undoDeadline(meeting);
+  const canUndo = ctx.now() < (await undoDeadline(meeting, guildTimeZone(guild)));
+  const shortfalls = canUndo ? await untickShortfalls(ctx.sequelize, orders) : new Map<string, number>();
 
   const views: HandoverView[] = [];
   for (const o of orders) {
     const url = `${ctx.config.appUrl}/handovers/${o.id}`;
+    const owing = shortfalls.get(o.id);
     views.push({
       id: o.id,
       kind: 'order',
@@ -53,7 +103,12 @@ export async function handoverSheet(ctx: AppContext, actor: Actor, meetingId: st
       doneBy: o.handedOverBy ? (markers.get(o.handedOverBy) ?? null) : null,
       checkOffUrl: url,
       qrSvg: await QRCode.toString(url, { type: 'svg', margin: 1, errorCorrectionLevel: 'M' }),
-      abilities: { markDone: o.state === 'confirmed', undo: o.state === 'handed_over' && canUndo, cancel: o.state === 'confirmed' },
+      abilities: {
+        markDone: canOrderTransition(o.state, 'handed_over'),
+        undo: o.state === HANDOVER_UNTICK.from && canUndo && owing === undefined,
+        cancel: o.state === 'confirmed',
+      },
+      undoNote: owing === undefined ? null : untickRefusal(o.seller?.name ?? 'The seller', owing, o.currency),
     });
   }
   for (const c of claims) {
@@ -71,6 +126,7 @@ export async function handoverSheet(ctx: AppContext, actor: Actor, meetingId: st
       checkOffUrl: url,
       qrSvg: await QRCode.toString(url, { type: 'svg', margin: 1, errorCorrectionLevel: 'M' }),
       abilities: { markDone: c.state === 'claimed', undo: c.state === 'handed_over' && canUndo, cancel: c.state === 'claimed' },
+      undoNote: null,
     });
   }
   views.sort((a, b) => a.giver.name.localeCompare(b.giver.name) || a.collector.name.localeCompare(b.collector.name));
@@ -95,16 +151,25 @@ async function findHandover(id: string, transaction: Transaction) {
   throw notFound('That handover');
 }
 
-/** Tick (done = true) or untick a handover at the door; who and when are recorded. */
+/**
+ * Tick (done = true) or untick a handover at the door; who and when are recorded. An order moves only as the shared
+ * list of order moves allows; unticking is its one move back, for a tick made by mistake, on the meeting's day.
+ */
 export async function markHandover(ctx: AppContext, actor: Actor, id: string, done: boolean): Promise<void> {
   authorize(actor, 'meeting.manage');
+  const guild = await loadGuild();
   await ctx.sequelize.transaction(async (transaction) => {
+    if (!done) {
+      // An untick can take back money paid out: the seller's payable figure is held still first, as for a payout.
+      const seller = await Order.findOne({ where: { id, fulfilment: 'meeting' }, attributes: ['sellerId'], transaction });
+      if (seller) await lockSellerPayable(ctx.sequelize, seller.sellerId, transaction);
+    }
     const { order, claim } = await findHandover(id, transaction);
     const meeting = await meetingOrThrow((order?.meetingId ?? claim?.meetingId)!, transaction);
     const now = ctx.now();
     if (done) {
       if (order) {
-        if (order.state !== 'confirmed') throw conflict('That handover is not waiting to be done.', { id: `It is ${order.state}.` });
+        if (!canOrderTransition(order.state, 'handed_over')) throw conflict('That handover is not waiting to be done.', { id: `It is ${order.state}.` });
         await order.update({ state: 'handed_over', handedOverAt: now, handedOverBy: actor.id }, { transaction });
       } else {
         if (claim!.state !== 'claimed') throw conflict('That handover is not waiting to be done.', { id: `It is ${claim!.state}.` });
@@ -112,10 +177,22 @@ export async function markHandover(ctx: AppContext, actor: Actor, id: string, do
       }
       return;
     }
-    if (now >= undoDeadline(meeting)) throw conflict('A tick can only be undone on the day of the meeting.', { id: 'Too late to undo.' });
-    if (order?.state === 'handed_over') await order.update({ state: 'confirmed', handedOverAt: null, handedOverBy: null }, { transaction });
-    else if (claim?.state === 'handed_over') await claim.update({ state: 'claimed', handedOverAt: null, handedOverBy: null }, { transaction });
-    else throw conflict('That handover is not ticked.', { id: 'Not ticked.' });
+    if (now >= (await undoDeadline(meeting, guildTimeZone(guild), transaction))) {
+      throw conflict('A tick can only be undone on the day of the meeting.', { id: 'Too late to undo.' });
+    }
+    if (order) {
+      if (order.state !== HANDOVER_UNTICK.from || !canOrderTransition(order.state, HANDOVER_UNTICK.to)) throw conflict('That handover is not ticked.', { id: 'Not ticked.' });
+      const owing = (await untickShortfalls(ctx.sequelize, [order], transaction)).get(order.id);
+      if (owing !== undefined) {
+        const seller = await Member.findByPk(order.sellerId, { transaction });
+        throw conflict(untickRefusal(seller?.name ?? 'The seller', owing, order.currency), { id: 'Paid out since the tick: ask the treasurer.' });
+      }
+      await order.update({ state: HANDOVER_UNTICK.to, handedOverAt: null, handedOverBy: null }, { transaction });
+    } else if (claim!.state === 'handed_over') {
+      await claim!.update({ state: 'claimed', handedOverAt: null, handedOverBy: null }, { transaction });
+    } else {
+      throw conflict('That handover is not ticked.', { id: 'Not ticked.' });
+    }
   });
 }
 

@@ -18,3 +18,33 @@ export function decimalAmount(minor: number, currency: string): string {
 /** Ends the header name of an amount: the figures are in the currency's units (dollars, not cents). */
 export const IN_CURRENCY_UNITS = 'in_currency_units';
 export const AMOUNT_COLUMN = `amount_${IN_CURRENCY_UNITS}`;
+
+const wallClockFormats = new Map<string, Intl.DateTimeFormat>();
+
+/**
+ * An instant as a clock in `timeZone` shows it, written the way spreadsheets read a date and time without being
+ * told a format: "2026-11-30 23:30:00". The zone goes in the column's header (`timeColumn`), as the currency
+ * goes beside amounts.
+ */
+export function wallClockText(instant: Date, timeZone: string): string {
+  let format = wallClockFormats.get(timeZone);
+  if (!format) {
+    format = new Intl.DateTimeFormat('en-US', {
+      timeZone,
+      hourCycle: 'h23',
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+      hour: '2-digit',
+      minute: '2-digit',
+      second: '2-digit',
+    });
+    wallClockFormats.set(timeZone, format);
+  }
+  const part: Record<string, string> = {};
+  for (const { type, value } of format.formatToParts(instant)) part[type] = value;
+  return `${part.year}-${part.month}-${part.day} ${part.hour}:${part.minute}:${part.second}`;
+}
+
+/** The header of a column of times: "time_in_Pacific/Auckland", so whoever opens the file knows whose clock it is. */
+export const timeColumn = (timeZone: string) => `time_in_${timeZone}`;

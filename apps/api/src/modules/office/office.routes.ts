@@ -46,6 +46,7 @@ export function officeRoutes(ctx: AppContext): Router {
       ['guild_fees', '', ...amount(s.guildFeesMinor)],
       ['refunds', '', ...amount(s.refundsMinor)],
       ['processing_cost', '', ...amount(s.processingCostMinor)],
+      ['disputes_lost', '', ...amount(s.disputesLostMinor)],
       ['payouts', '', ...amount(s.payoutsMinor)],
       ['seller_credits', '', ...amount(s.sellerCreditsMinor)],
       ...s.closingBalances.map((b) => ['closing_balance', b.name, ...amount(b.balanceMinor)]),

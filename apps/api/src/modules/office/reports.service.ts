@@ -56,6 +56,7 @@ export async function monthStatement(sequelize: Sequelize, month: string): Promi
     guildFeesMinor: total('fees'),
     refundsMinor: total('refunds'),
     processingCostMinor: total('processing'),
+    disputesLostMinor: total('disputes'),
     payoutsMinor: total('payouts'),
     sellerCreditsMinor: total('credits'),
     closingBalances: balances.map(([sellerId, name, balanceMinor]) => ({ sellerId, name, balanceMinor })),

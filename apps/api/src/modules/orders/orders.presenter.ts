@@ -1,5 +1,5 @@
-import type { MeetingView, OrderView, RefundEffectView } from '@scrap-relay/shared';
-import type { Meeting, Order } from '../../db/models/index.ts';
+import { disputeStage, type MeetingView, type OrderDisputeView, type OrderView, type RefundEffectView } from '@scrap-relay/shared';
+import type { Meeting, Order, OrderDispute } from '../../db/models/index.ts';
 import { can, type Actor } from '../../policies/index.ts';
 
 export function presentMeeting(meeting: Meeting, viewer: Actor): MeetingView {
@@ -13,6 +13,22 @@ export function presentMeeting(meeting: Meeting, viewer: Actor): MeetingView {
 }
 
 const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
+
+/** The bank's dispute of the payment: its stage and dates to the seller, everything to the treasurer, nothing to anyone else. */
+function presentDispute(order: Order, viewer: Actor): OrderDisputeView | null {
+  const dispute: OrderDispute | null | undefined = order.dispute;
+  if (!dispute || !can(viewer, 'order.viewDispute', order)) return null;
+  const details = can(viewer, 'order.viewDisputeDetails', order);
+  return {
+    stage: disputeStage(dispute.status),
+    openedAt: dispute.openedAt.toISOString(),
+    closedAt: iso(dispute.closedAt),
+    status: details ? dispute.status : null,
+    amountMinor: details ? dispute.amountMinor : null,
+    reason: details ? dispute.reason : null,
+    evidenceDueBy: details ? iso(dispute.evidenceDueBy) : null,
+  };
+}
 
 /** What the presenter needs besides the order, read for a whole list at once. */
 export interface OrderExtras {
@@ -68,6 +84,7 @@ export function presentOrder(order: Order, viewer: Actor, { thumbs = new Map(), 
         : (order.problems ?? []).map((p) => ({ id: p.id, message: p.message, createdAt: p.createdAt.toISOString(), resolvedAt: iso(p.resolvedAt) })),
     createdAt: order.createdAt.toISOString(),
     refundEffect: can(viewer, 'order.refund', order) ? (refundEffects.get(order.id) ?? null) : null,
+    dispute: presentDispute(order, viewer),
     abilities: {
       pay: can(viewer, 'order.pay', order),
       markPosted: can(viewer, 'order.markPosted', order),

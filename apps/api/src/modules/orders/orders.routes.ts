@@ -12,11 +12,18 @@ import { routeId } from '../bundles/bundles.routes.ts';
 import { refundEffects } from '../ledger/ledger.service.ts';
 import { presentOrder } from './orders.presenter.ts';
 import * as orders from './orders.service.ts';
+import { ordersWithOpenDisputes } from './disputes.service.ts';
 
-const listQuerySchema = z.strictObject({
-  as: z.enum(['buyer', 'seller', 'treasurer'], { error: 'Use as=buyer, as=seller or as=treasurer.' }).default('buyer'),
-  problems: z.enum(['open'], { error: 'Use problems=open.' }).optional(),
-});
+const listQuerySchema = z
+  .strictObject({
+    as: z.enum(['buyer', 'seller', 'treasurer'], { error: 'Use as=buyer, as=seller or as=treasurer.' }).default('buyer'),
+    problems: z.enum(['open'], { error: 'Use problems=open.' }).optional(),
+    disputes: z.enum(['open'], { error: 'Use disputes=open.' }).optional(),
+  })
+  .refine((q) => !q.disputes || (q.as === 'treasurer' && !q.problems), {
+    error: 'Disputes are listed for the treasurer on their own: as=treasurer&disputes=open.',
+    path: ['disputes'],
+  });
 
 async function firstThumbs(ctx: AppContext, list: Order[]): Promise<Map<string, string | null>> {
   const bundleIds = [...new Set(list.flatMap((o) => (o.items ?? []).map((i) => i.bundleId)))];
@@ -50,8 +57,12 @@ export function ordersRoutes(ctx: AppContext): Router {
 
   router.get('/orders', async (req, res) => {
     const actor = actorOf(requireMember(req));
-    const { as, problems } = parseInput(listQuerySchema, req.query);
-    const list = as === 'treasurer' ? await orders.ordersWithOpenProblems(actor, problems === 'open') : await orders.listOrders(actor, as);
+    const { as, problems, disputes } = parseInput(listQuerySchema, req.query);
+    const list = disputes
+      ? await ordersWithOpenDisputes(actor)
+      : as === 'treasurer'
+        ? await orders.ordersWithOpenProblems(actor, problems === 'open')
+        : await orders.listOrders(actor, as);
     res.json({ items: await presentOrders(ctx, actor, list) });
   });
 

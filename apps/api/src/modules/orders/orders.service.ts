@@ -11,7 +11,7 @@ import {
   type LedgerEntry as DomainEntry,
   type OrderCreateInput,
 } from '@scrap-relay/shared';
-import { Bundle, LedgerEntry, Meeting, Member, Order, OrderItem, OrderProblem, StarterClaim, type Guild } from '../../db/models/index.ts';
+import { Bundle, LedgerEntry, Meeting, Member, Order, OrderDispute, OrderItem, OrderProblem, StarterClaim, type Guild } from '../../db/models/index.ts';
 import { eligibilityOf, ineligible, leaveWaitlistWithClaim, offerToNextInLine } from '../starter/starter.service.ts';
 import { badRequest, conflict, forbidden, notFound, serviceUnavailable, unprocessable } from '../../errors/index.ts';
 import {
@@ -35,7 +35,7 @@ import type { AppContext } from '../../context.ts';
 import { guildTimeZone, loadGuild } from '../guild/guild.service.ts';
 import { meetingLabel } from '../../emails/format.ts';
 import { quoteOrThrow } from '../postage/postage.service.ts';
-import { sellerBalance, writeLedger } from './ledger-writer.ts';
+import { sellerBalanceSplits, writeLedger } from './ledger-writer.ts';
 import { LATE_REFUND_QUEUE } from '../../jobs/queue.ts';
 import { newOrderReference } from './order-reference.ts';
 
@@ -53,11 +53,19 @@ export const ORDER_INCLUDE = [
   { association: 'seller' },
   { association: 'meeting' },
   { association: 'problems' },
+  { association: 'dispute' },
 ];
 
 export async function findOrder(id: string, transaction?: Transaction, lock = false): Promise<Order> {
   const order = await Order.findByPk(id, { transaction, lock: lock && transaction ? transaction.LOCK.UPDATE : undefined });
   if (!order) throw notFound('That order');
+  return order;
+}
+
+/** The order locked, with the bank's dispute of its payment, for the rules that depend on one (refunding, cancelling). */
+async function findOrderWithDispute(id: string, transaction: Transaction): Promise<Order> {
+  const order = await findOrder(id, transaction, true);
+  order.dispute = await OrderDispute.findOne({ where: { orderId: id }, transaction });
   return order;
 }
 
@@ -513,7 +521,7 @@ async function notifyParties(
 export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string, reason: string | undefined): Promise<Order> {
   const guild = await loadGuild();
   const { order, closePaymentPage } = await ctx.sequelize.transaction(async (transaction) => {
-    const order = await findOrder(orderId, transaction, true);
+    const order = await findOrderWithDispute(orderId, transaction);
     authorize(actor, 'order.cancel', order);
     const unpaid = order.state === 'awaiting_payment';
     const paid = order.state === 'confirmed' && order.chargeMinor > 0;
@@ -548,7 +556,7 @@ export async function refundOrder(ctx: AppContext, actor: Actor, orderId: string
   const guild = await loadGuild();
   // Locked from the check to the end, as in cancelOrder: the refund is asked for only while the order may be refunded.
   return ctx.sequelize.transaction(async (transaction) => {
-    const order = await findOrder(orderId, transaction, true);
+    const order = await findOrderWithDispute(orderId, transaction);
     authorize(actor, 'order.refund', order);
     await refundPayment(ctx, order);
     const wasPosted = order.state !== 'confirmed';
@@ -561,8 +569,11 @@ export async function refundOrder(ctx: AppContext, actor: Actor, orderId: string
     await notifyParties(ctx, order, ['buyer', 'seller'], transaction, async (side, name, link, titles) => {
       const base = { guildName: guild.name, name, reference: order.reference, titles, link, refunded };
       if (side === 'buyer') return orderRefunded(base);
-      const balance = await sellerBalance(order.sellerId, transaction);
-      return orderRefundedToSeller({ ...base, share: money(order.sellerCreditMinor), owing: money(-balance), notYetPosted: !wasPosted });
+      // The seller owes the guild only when this refund took back a credit already payable (its bag had gone out)
+      // and what is payable is now below zero: part of it was paid out. A credit still waiting cannot have been.
+      const [split] = await sellerBalanceSplits(ctx.sequelize, [order.sellerId], transaction);
+      const owing = wasPosted ? money(-(split?.payableMinor ?? 0)) : null;
+      return orderRefundedToSeller({ ...base, share: money(order.sellerCreditMinor), owing, notYetPosted: !wasPosted });
     });
     return order;
   });
@@ -674,8 +685,9 @@ async function endHold(ctx: AppContext, order: Order): Promise<HoldOutcome> {
     }
     if (session.status !== 'expired') return 'kept';
   }
-  // Closing the page may already have cancelled the order through its webhook; either way it is released.
-  return (await cancelUnpaid(ctx, order.id, 'Payment was not completed in time.')) ? 'released' : 'kept';
+  if (await cancelUnpaid(ctx, order.id, 'Payment was not completed in time.')) return 'released';
+  // Closing the page sends its expiry webhook, which may have cancelled the order a moment before: released all the same.
+  return (await Order.findByPk(order.id))?.state === 'cancelled' ? 'released' : 'kept';
 }
 
 /** The payment a completed checkout page made, as its id. */

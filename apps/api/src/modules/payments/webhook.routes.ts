@@ -4,6 +4,7 @@ import { QueryTypes } from 'sequelize';
 import { badRequest } from '../../errors/index.ts';
 import type { AppContext } from '../../context.ts';
 import { cancelUnpaid, confirmPayment, paymentIntentIdOf } from '../orders/orders.service.ts';
+import { recordDispute } from '../orders/disputes.service.ts';
 
 /**
  * The payment service's events. The signature is checked on the raw body; each event id is
@@ -35,6 +36,9 @@ export function webhookRoutes(ctx: AppContext): Router {
         const orderId = event.data.object.metadata?.orderId;
         // Members read the reason on the order; the session's id stays in the log and the event record.
         if (orderId) followUp = async () => void (await cancelUnpaid(ctx, orderId, 'The payment page closed before a payment was made.'));
+      } else if (event.type === 'charge.dispute.created' || event.type === 'charge.dispute.updated' || event.type === 'charge.dispute.closed') {
+        // The buyer's bank questions a payment: recorded on its order, the treasurers told, a lost one booked.
+        await recordDispute(ctx, event.data.object, transaction);
       }
     });
     if (followUp) await followUp();

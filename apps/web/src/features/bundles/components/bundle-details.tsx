@@ -13,6 +13,7 @@ import { paths } from '../../../config/paths.ts';
 import { Panel } from '../../../components/layouts/page.tsx';
 import { ButtonLink } from '../../../components/ui/button.tsx';
 import { formatDate } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { offerSummary, rehomedHistory } from '../utils/bundle-text.ts';
 import { pieceSize } from '../utils/cut-plan-text.ts';
 import { BundleGallery } from './bundle-gallery.tsx';
@@ -37,6 +38,7 @@ export interface BundleDetailsProps {
 
 /** The bundle page: gallery, the facts, yield estimate and cut plan, the seller, and what the viewer may do. */
 export function BundleDetails({ bundle, units, viewerId, shopperActions }: BundleDetailsProps) {
+  const timeZone = useGuildTimeZone();
   const isSeller = bundle.seller.id === viewerId;
   const facts: Array<[string, ReactNode]> = [
     ['Offer', offerSummary(bundle)],
@@ -46,7 +48,7 @@ export function BundleDetails({ bundle, units, viewerId, shopperActions }: Bundl
     ['State', <BundleStateLabel key="state" state={bundle.state} offer={bundle.offer} />],
   ];
   // Starter bundles never go on the shelf: they are offered to new quilters from the day they are approved.
-  if (bundle.onShelfAt) facts.push([bundle.offer === 'starter' ? 'Offered to new quilters since' : 'On the shelf since', formatDate(bundle.onShelfAt)]);
+  if (bundle.onShelfAt) facts.push([bundle.offer === 'starter' ? 'Offered to new quilters since' : 'On the shelf since', formatDate(bundle.onShelfAt, timeZone)]);
 
   return (
     <div className="space-y-6">

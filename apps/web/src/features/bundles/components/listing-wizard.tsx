@@ -6,6 +6,8 @@ import { useNavigate, useSearchParams } from 'react-router-dom';
 import { paths } from '../../../config/paths.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
+import { formatTimeOfDay } from '../../../utils/meetings.ts';
 import { useCreateBundle } from '../api/create-bundle.ts';
 import { storeBundle } from '../api/get-bundle.ts';
 import { useSubmitBundle } from '../api/submit-bundle.ts';
@@ -53,8 +55,6 @@ interface SaveResult {
   ok: boolean;
   bundleId: string | null;
 }
-
-const timeFormat = new Intl.DateTimeFormat('en', { hour: 'numeric', minute: '2-digit' });
 
 /**
  * The listing form in five steps. The draft saves on every step change and
@@ -306,11 +306,12 @@ function focusFormField(field: string): boolean {
 }
 
 function SaveStatus({ state, uploading }: { state: SaveState; uploading: boolean }) {
+  const timeZone = useGuildTimeZone();
   const text =
     state.kind === 'saving'
       ? 'Saving the draft…'
       : state.kind === 'saved'
-        ? `Draft saved at ${timeFormat.format(state.at)}.`
+        ? `Draft saved at ${formatTimeOfDay(state.at.toISOString(), timeZone)}.`
         : state.kind === 'invalid'
           ? 'Not saved yet: fix the fields marked with ✗.'
           : state.kind === 'failed'

@@ -9,6 +9,7 @@ import { Select } from '../../../components/ui/field.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { DataTable, dataTableColumns } from '../../../components/ui/table.tsx';
 import { formatDate } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { useMyBundles } from '../api/get-my-bundles.ts';
 import { offerSummary } from '../utils/bundle-text.ts';
 import { BundleStateLabel } from './bundle-state-label.tsx';
@@ -23,6 +24,7 @@ export function MyBundles({ units }: { units: UnitSystem }) {
   const bundles = useMyBundles();
   const [state, setState] = useState<BundleState | ''>('');
   const stateId = useId();
+  const timeZone = useGuildTimeZone();
 
   const columns = useMemo(
     () =>
@@ -50,7 +52,7 @@ export function MyBundles({ units }: { units: UnitSystem }) {
           sortFn: 'text',
           sortDescFirst: true,
           meta: { sortLabels: ['Oldest first', 'Newest first'] },
-          cell: ({ getValue }) => formatDate(getValue()),
+          cell: ({ getValue }) => formatDate(getValue(), timeZone),
         }),
         column.display({
           id: 'actions',
@@ -59,7 +61,7 @@ export function MyBundles({ units }: { units: UnitSystem }) {
           meta: { cellClassName: 'md:min-w-48' },
         }),
       ]),
-    [units],
+    [units, timeZone],
   );
   // A bundle has one state; arrIncludes compares it with the chosen one.
   const columnFilters = useMemo(() => (state ? [{ id: 'state', value: [state] }] : []), [state]);
@@ -158,10 +160,11 @@ function BundleSummary({ bundle, units }: { bundle: BundleView; units: UnitSyste
 }
 
 function StateCell({ bundle }: { bundle: BundleView }) {
+  const timeZone = useGuildTimeZone();
   return (
     <div className="space-y-1">
       <BundleStateLabel state={bundle.state} offer={bundle.offer} />
-      {bundle.state === 'on_shelf' && bundle.expiresAt ? <p className="text-thread-soft">Until {formatDate(bundle.expiresAt)}</p> : null}
+      {bundle.state === 'on_shelf' && bundle.expiresAt ? <p className="text-thread-soft">Until {formatDate(bundle.expiresAt, timeZone)}</p> : null}
       {bundle.state === 'returned' && bundle.reviewNotes ? <p className="text-thread-soft">See the librarian’s note above.</p> : null}
     </div>
   );

@@ -4,7 +4,7 @@ import { Panel } from '../../../components/layouts/page.tsx';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { Button, buttonClass } from '../../../components/ui/button.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
-import { formatDate } from '../../../utils/format.ts';
+import { formatCalendarDate } from '../../../utils/format.ts';
 import { useDashboard } from '../api/get-dashboard.ts';
 import { formatHours } from '../chart-data.ts';
 import { csvHref, formatMonth, periodToSearch } from '../period.ts';
@@ -17,7 +17,7 @@ export function periodTitle(query: DashboardQuery, figures: DashboardFigures): s
   if (query.period === 'all') return 'All time';
   if (query.period === 'year') return `The year ${figures.period.label}`;
   if (query.period === 'month') return formatMonth(figures.period.label);
-  return `${formatDate(`${query.from}T12:00:00Z`)} to ${formatDate(`${query.to}T12:00:00Z`)}`;
+  return `${formatCalendarDate(query.from ?? '')} to ${formatCalendarDate(query.to ?? '')}`;
 }
 
 export interface DashboardViewProps {

@@ -6,6 +6,7 @@ import { Button, buttonClass } from '../../../components/ui/button.tsx';
 import { FieldShell, Input } from '../../../components/ui/field.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { formatDate } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { useStatement } from '../api/get-statement.ts';
 import { csvHref, formatMonth, utcMonthOf } from '../period.ts';
 
@@ -76,11 +77,13 @@ function MonthPicker({ month, onChange }: { month: string; onChange: (month: str
 function Statement({ statement: s, guildName }: { statement: MonthStatement; guildName: string }) {
   const money = (minor: number) => formatMoney(minor, s.currency);
   const inProgress = s.month === utcMonthOf(new Date());
+  const timeZone = useGuildTimeZone();
   const lines: Array<[string, number, string]> = [
     ['Card payments received', s.chargesMinor, 'Everything buyers paid: prices and postage.'],
     ['Refunds to buyers', s.refundsMinor, 'Paid back on cancelled or refunded orders.'],
     ['Guild fees kept', s.guildFeesMinor, 'The guild’s fees, less fees given back with refunds.'],
     ['Card processing cost', s.processingCostMinor, 'What the card processor kept.'],
+    ['Taken back by buyers’ banks', s.disputesLostMinor, 'Disputes the guild lost: payments the card processor returned to the buyer’s card.'],
     ['Credited to sellers', s.sellerCreditsMinor, 'Sellers’ shares and postage, less refunds.'],
     ['Paid out to sellers', s.payoutsMinor, 'Payouts the treasurer recorded.'],
   ];
@@ -89,7 +92,7 @@ function Statement({ statement: s, guildName }: { statement: MonthStatement; gui
       <Panel title={`Statement for ${formatMonth(s.month)}`}>
         <p>
           {guildName} · amounts in {s.currency}
-          {inProgress ? ' · this month so far' : ''} · prepared {formatDate(new Date().toISOString())}
+          {inProgress ? ' · this month so far' : ''} · prepared {formatDate(new Date().toISOString(), timeZone)}
         </p>
         <table className="w-full border-collapse text-left">
           <caption className="sr-only">Money through the guild’s account in {formatMonth(s.month)}</caption>

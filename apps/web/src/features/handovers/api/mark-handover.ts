@@ -16,8 +16,8 @@ export const markHandover = ({ handoverId, done }: MarkHandoverVariables): Promi
 /** How a row looks straight after the tap, before the API's answer arrives. */
 export function markedLocally(handover: HandoverView, done: boolean, viewerName: string, now: Date): HandoverView {
   return done
-    ? { ...handover, done: true, doneAt: now.toISOString(), doneBy: viewerName, abilities: { markDone: false, undo: true, cancel: false } }
-    : { ...handover, done: false, doneAt: null, doneBy: null, abilities: { markDone: true, undo: false, cancel: true } };
+    ? { ...handover, done: true, doneAt: now.toISOString(), doneBy: viewerName, abilities: { markDone: false, undo: true, cancel: false }, undoNote: null }
+    : { ...handover, done: false, doneAt: null, doneBy: null, abilities: { markDone: true, undo: false, cancel: true }, undoNote: null };
 }
 
 /**

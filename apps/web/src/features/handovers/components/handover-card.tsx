@@ -68,6 +68,7 @@ export function HandoverCard({ handover, meetingId, viewerName, headingLevel = '
           </Button>
         ) : null}
       </div>
+      {handover.done && handover.undoNote ? <p className="text-thread-soft">{handover.undoNote}</p> : null}
       {mark.isError ? (
         <p role="alert" className="font-semibold text-madder-deep">
           <span aria-hidden="true">✗ </span>

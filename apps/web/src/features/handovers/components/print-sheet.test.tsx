@@ -14,6 +14,7 @@ describe('the printed handover sheet', () => {
     const { container } = await render(
       <PrintSheet
         meeting={meeting}
+        timeZone="Europe/London"
         items={[
           makeHandover('Wren Hollis', 'Bea Marrow', { reference: 'SR-0001' }),
           makeHandover('Alder Finch', 'Bea Marrow', { reference: 'SR-0002' }),

@@ -21,7 +21,7 @@ function PenTick({ done }: { done: boolean }) {
  * to tick by pen; then one list by who collects. Shown only when printing.
  */
 /** `timeZone`: the guild's, so the printed sheet reads the meeting's time as the e-mails do. */
-export function PrintSheet({ meeting, items, timeZone }: { meeting: MeetingView; items: HandoverView[]; timeZone?: string }) {
+export function PrintSheet({ meeting, items, timeZone }: { meeting: MeetingView; items: HandoverView[]; timeZone: string }) {
   const byGiver = groupHandovers(items, 'giver');
   const byCollector = groupHandovers(items, 'collector');
   const title = `${formatDateTime(meeting.startsAt, timeZone)} — ${meeting.place}`;

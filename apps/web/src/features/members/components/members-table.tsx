@@ -7,6 +7,7 @@ import { Input, Select } from '../../../components/ui/field.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { DataTable, dataTableColumns } from '../../../components/ui/table.tsx';
 import { formatDate, ROLE_LABELS } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { useMembers } from '../api/get-members.ts';
 import { useUpdateMember } from '../api/update-member.ts';
 import { MemberRolesEditor } from './member-roles-editor.tsx';
@@ -29,6 +30,7 @@ export function MembersTable() {
   const [confirming, setConfirming] = useState<MemberRow | null>(null);
   const searchId = useId();
   const roleId = useId();
+  const timeZone = useGuildTimeZone();
 
   const columns = useMemo(
     () =>
@@ -45,7 +47,7 @@ export function MembersTable() {
           sortFn: 'text',
           sortDescFirst: true,
           meta: { sortLabels: ['Oldest first', 'Newest first'] },
-          cell: ({ getValue }) => formatDate(getValue()),
+          cell: ({ getValue }) => formatDate(getValue(), timeZone),
         }),
         column.accessor('roles', {
           header: 'Roles',
@@ -65,7 +67,7 @@ export function MembersTable() {
           cell: ({ row }) => <AccountStatus member={row.original} onChange={setConfirming} />,
         }),
       ]),
-    [],
+    [timeZone],
   );
 
   // arrIncludes keeps rows whose roles include any of the values given.

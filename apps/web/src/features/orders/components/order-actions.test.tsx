@@ -40,35 +40,47 @@ async function refundDialogText(order: OrderView): Promise<string> {
   return dialog?.textContent ?? '';
 }
 
+/** The effect of refunding the posted order above (its $18.10 credit was payable) on a seller who may be paid `payableMinor` now. */
+const effectOfPosted = (payableMinor: number): RefundEffectView => ({ sellerPayableMinor: payableMinor, sellerPayableAfterMinor: payableMinor - 1810, sellerCreditMinor: 1810 });
+
 describe('the treasurer’s refund dialog', () => {
   it('warns that a seller paid out already will owe the guild what the refund takes back', async () => {
-    const text = await refundDialogText(refundable({ sellerBalanceMinor: 0, sellerCreditMinor: 1810 }));
+    const text = await refundDialogText(refundable(effectOfPosted(0)));
 
     expect(text).toContain('Orla Vance has been paid out already');
     expect(text).toContain('After this refund they will owe the guild $18.10, which comes off their next sales.');
   });
 
   it('counts only the part of the credit that was paid out', async () => {
-    const text = await refundDialogText(refundable({ sellerBalanceMinor: 1360, sellerCreditMinor: 1810 }));
+    const text = await refundDialogText(refundable(effectOfPosted(1360)));
 
     expect(text).toContain('they will owe the guild $4.50');
   });
 
   it('says what the seller owes already when a refund adds to it', async () => {
-    const text = await refundDialogText(refundable({ sellerBalanceMinor: -250, sellerCreditMinor: 1810 }));
+    const text = await refundDialogText(refundable(effectOfPosted(-250)));
 
     expect(text).toContain('Orla Vance already owes the guild $2.50');
     expect(text).toContain('they will owe the guild $20.60');
   });
 
-  it('says nothing about owing while the guild still holds enough for the seller', async () => {
-    for (const effect of [{ sellerBalanceMinor: 1810, sellerCreditMinor: 1810 }, null]) {
+  it('says nothing about owing while the guild may still pay the seller enough', async () => {
+    for (const effect of [effectOfPosted(1810), null]) {
       const text = await refundDialogText(refundable(effect));
 
       expect(text).toContain('The bundles were already sent, so they stay rehomed.');
       expect(text).not.toMatch(/owe|paid out/);
       cleanup();
     }
+  });
+
+  it('says nothing about owing for a bag not yet sent, whose credit was waiting and never paid out', async () => {
+    // The seller owes $2.50 from an earlier refund; this order's credit was never payable, so the refund leaves that as it is.
+    const notSent = { ...refundable({ sellerPayableMinor: -250, sellerPayableAfterMinor: -250, sellerCreditMinor: 1810 }), state: 'confirmed' as const, postedAt: null };
+    const text = await refundDialogText(notSent);
+
+    expect(text).toContain('The bundles have not been posted, so they go back on the shelf.');
+    expect(text).not.toMatch(/owe|paid out/);
   });
 });
 

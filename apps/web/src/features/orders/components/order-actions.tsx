@@ -179,19 +179,22 @@ function RefundAction({ order }: { order: OrderView }) {
   );
 }
 
-/** Said before a refund that takes back more than the guild still owes the seller, because part was paid out already. */
+/**
+ * Said before a refund that takes back more than the guild may still pay the seller, because part was paid out
+ * already. A refund of a bag not yet sent changes nothing here: its credit was waiting and was never paid out.
+ */
 function SellerOwingNote({ order }: { order: OrderView }) {
   const effect = order.refundEffect;
   if (!effect) return null;
-  const afterMinor = effect.sellerBalanceMinor - effect.sellerCreditMinor;
-  if (afterMinor >= 0) return null;
+  const afterMinor = effect.sellerPayableAfterMinor;
+  if (afterMinor >= 0 || afterMinor >= effect.sellerPayableMinor) return null;
   const money = (minor: number) => formatMoney(minor, order.currency);
   const name = order.seller.name;
   return (
     <Alert
       tone="warning"
       announce={false}
-      title={effect.sellerBalanceMinor < 0 ? `${name} already owes the guild ${money(-effect.sellerBalanceMinor)}` : `${name} has been paid out already`}
+      title={effect.sellerPayableMinor < 0 ? `${name} already owes the guild ${money(-effect.sellerPayableMinor)}` : `${name} has been paid out already`}
     >
       <p>After this refund they will owe the guild {money(-afterMinor)}, which comes off their next sales.</p>
     </Alert>

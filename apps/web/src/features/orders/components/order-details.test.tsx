@@ -1,5 +1,5 @@
 // @vitest-environment happy-dom
-import type { OrderView } from '@scrap-relay/shared';
+import type { OrderDisputeView, OrderView } from '@scrap-relay/shared';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { MemoryRouter } from 'react-router-dom';
 import { afterEach, describe, expect, it } from 'vitest';
@@ -75,5 +75,85 @@ describe('the order page', () => {
 
     const cancelled = await orderPage(makeOrderView({ address, state: 'cancelled', cancelledAt: '2026-11-02T11:00:00.000Z' }));
     expect(panel(cancelled.container, 'By post')?.textContent).toContain('Was to be posted to you at');
+  });
+});
+
+/** A posted order of $19.30 whose buyer's bank opened a dispute on 20 November, evidence due by the end of 27 November (UTC). */
+const openForTreasurer: OrderDisputeView = {
+  stage: 'open',
+  status: 'needs_response',
+  amountMinor: 1930,
+  reason: 'product_not_received',
+  openedAt: '2026-11-20T17:00:00.000Z',
+  evidenceDueBy: '2026-11-27T23:59:59.000Z',
+  closedAt: null,
+};
+
+const posted = (viewerIs: OrderView['viewerIs'], dispute: OrderDisputeView) =>
+  makeOrderView({
+    state: 'posted',
+    viewerIs,
+    paidAt: '2026-11-02T10:05:00.000Z',
+    postedAt: '2026-11-03T09:00:00.000Z',
+    trackingNumber: 'FERN-2231',
+    guildFeeMinor: 120,
+    sellerCreditMinor: 1810,
+    dispute,
+  });
+
+const disputePanel = (container: HTMLElement) => panel(container, 'Card payment dispute');
+
+describe('a disputed card payment on the order page', () => {
+  it('gives the treasurer the amount, the reason, the deadline in the guild’s time and where to answer', async () => {
+    const { container } = await orderPage(posted('officer', openForTreasurer));
+    const text = disputePanel(container)?.textContent ?? '';
+    expect(text).toContain('Waiting for the guild’s answer');
+    expect(text).toContain('$19.30');
+    expect(text).toContain('The buyer says the order never arrived');
+    // 23:59:59 UTC on 27 November is 3:59 PM the same day in Los Angeles (UTC−8 in winter, IANA tz database).
+    expect(text).toContain('November 27, 2026 at 3:59 PM PST');
+    expect(text).toContain('the card service’s own dashboard');
+    expect(text).toContain('the tracking number FERN-2231');
+    expect(text).toContain('local law');
+    const history = [...container.querySelectorAll('li')].map((item) => item.textContent ?? '');
+    expect(history.some((line) => line.startsWith('The buyer’s bank disputed the card payment') && line.includes('$19.30: The buyer says the order never arrived'))).toBe(true);
+  });
+
+  it('tells the treasurer a lost dispute was booked, and drops the deadline', async () => {
+    const lost: OrderDisputeView = { ...openForTreasurer, stage: 'lost', status: 'lost', closedAt: '2026-12-10T18:00:00.000Z' };
+    const { container } = await orderPage(posted('officer', lost));
+    const text = disputePanel(container)?.textContent ?? '';
+    expect(text).toContain('Decided for the buyer: the money went back');
+    expect(text).toContain('seller’s credit and the guild’s fee for this order taken back');
+    expect(text).not.toContain('Evidence due by');
+    // 18:00 UTC on 10 December is 10 AM in Los Angeles (UTC−8 in winter, IANA tz database).
+    expect(text).toContain('December 10, 2026 at 10:00 AM PST');
+  });
+
+  it('gives the seller a plain line and none of the bank’s details', async () => {
+    const forSeller: OrderDisputeView = { stage: 'open', status: null, amountMinor: null, reason: null, evidenceDueBy: null, openedAt: openForTreasurer.openedAt, closedAt: null };
+    const { container } = await orderPage(posted('seller', forSeller));
+    expect(disputePanel(container)).toBeUndefined();
+    const note = container.querySelector('[class*="border-l-8"]')?.textContent ?? '';
+    expect(note).toContain('The buyer’s bank is looking into the card payment for this order');
+    expect(note).toContain('proof of posting');
+    expect(container.textContent).not.toContain('never arrived');
+  });
+
+  it('asks the seller to check with the treasurer before sending bundles whose payment the bank took back', async () => {
+    const lost: OrderDisputeView = { stage: 'lost', status: null, amountMinor: null, reason: null, evidenceDueBy: null, openedAt: openForTreasurer.openedAt, closedAt: '2026-12-10T18:00:00.000Z' };
+    const unsent = await orderPage({ ...posted('seller', lost), state: 'confirmed', postedAt: null, trackingNumber: null });
+    expect(unsent.container.textContent).toContain('The buyer’s bank took the card payment back');
+    expect(unsent.container.textContent).toContain('ask the treasurer before you send them');
+    cleanup();
+    const sent = await orderPage(posted('seller', lost));
+    expect(sent.container.textContent).toContain('Your credit for this order was taken back with it.');
+    expect(sent.container.textContent).not.toContain('before you send them');
+  });
+
+  it('shows nothing of a dispute on an order without one', async () => {
+    const { container } = await orderPage(makeOrderView({ state: 'posted', viewerIs: 'officer', paidAt: '2026-11-02T10:05:00.000Z' }));
+    expect(disputePanel(container)).toBeUndefined();
+    expect(container.textContent).not.toContain('bank');
   });
 });

@@ -10,6 +10,7 @@ import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { formatMeetingWhen, formatTimestamp } from '../../../utils/meetings.ts';
 import type { PaymentWait } from '../hooks/use-order-after-payment.ts';
 import { orderNextStep, orderTimeline, postingAddressLabel } from '../utils/order-story.ts';
+import { DisputePanel } from './dispute-panel.tsx';
 import { OrderActions } from './order-actions.tsx';
 import { OrderStatusBadge } from './order-status-badge.tsx';
 
@@ -44,6 +45,8 @@ export function OrderDetails({ order, units, payment }: OrderDetailsProps) {
           </ul>
         </Alert>
       ) : null}
+
+      {order.dispute ? <DisputePanel order={order} dispute={order.dispute} /> : null}
 
       <Panel>
         <div className="flex flex-wrap items-center gap-3">
@@ -90,7 +93,11 @@ export function OrderDetails({ order, units, payment }: OrderDetailsProps) {
           ) : null}
         </dl>
         {order.viewerIs === 'seller' && order.sellerCreditMinor !== null && order.sellerCreditMinor > 0 ? (
-          <p className="text-thread-soft">The treasurer pays out your balance; the postage part covers what you pay to post it.</p>
+          <p className="text-thread-soft">
+            {order.fulfilment === 'post'
+              ? 'The treasurer pays out your credit once you have marked the parcel posted; the postage part covers what you pay to post it.'
+              : 'The treasurer pays out your credit once the bag has been handed over at the meeting.'}
+          </p>
         ) : null}
         {charged ? (
           <p className="text-thread-soft">The guild is the merchant for card payments. Fees and refunds follow the guild’s own rules and local law.</p>

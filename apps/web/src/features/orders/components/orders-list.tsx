@@ -7,6 +7,7 @@ import { Button, ButtonLink } from '../../../components/ui/button.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { cn } from '../../../utils/cn.ts';
 import { formatDate } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { useOrders, type OrderSide } from '../api/get-orders.ts';
 import { OrderStatusBadge } from './order-status-badge.tsx';
 
@@ -82,6 +83,7 @@ export function OrdersList({ side, claimsStarter }: OrdersListProps) {
 }
 
 function OrderCard({ order, side }: { order: OrderView; side: OrderSide }) {
+  const timeZone = useGuildTimeZone();
   const thumb = order.items.find((item) => item.thumbUrl)?.thumbUrl ?? null;
   const titles = order.items.map((item) => (item.quantity > 1 ? `${item.title} × ${item.quantity}` : item.title)).join(', ');
   const other = side === 'buyer' ? `From ${order.seller.name}` : `To ${order.buyer.name}`;
@@ -109,7 +111,7 @@ function OrderCard({ order, side }: { order: OrderView; side: OrderSide }) {
         </div>
         <p className="[overflow-wrap:anywhere]">{titles}</p>
         <p className="text-thread-soft">
-          {formatDate(order.createdAt)} · {other} · {order.fulfilment === 'post' ? 'By post' : 'At a meeting'} · {money}
+          {formatDate(order.createdAt, timeZone)} · {other} · {order.fulfilment === 'post' ? 'By post' : 'At a meeting'} · {money}
         </p>
         {order.abilities.pay ? <p className="font-semibold text-ochre">Waiting for your payment</p> : null}
         {order.abilities.markPosted ? <p className="font-semibold text-madder-deep">Paid: ready to post</p> : null}

@@ -8,6 +8,7 @@ import { PrintFrame } from '../../../components/print-frame.tsx';
 import { useDocumentTitle } from '../../../hooks/use-document-title.ts';
 import { isApiError } from '../../../lib/api-client.ts';
 import { formatDate } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { usePackingSlip } from '../api/get-packing-slip.ts';
 import { useSenderAddress } from '../api/get-sender-address.ts';
 import { AddressBlock } from './order-details.tsx';
@@ -54,6 +55,7 @@ export function PackingSlip({ orderId, guildName, units }: { orderId: string; gu
 
 function SlipSheet({ order, qrSvg, guildName, units, from }: { order: OrderView; qrSvg: string; guildName: string; units: UnitSystem; from: PostalAddress | null }) {
   const totalGrams = order.items.reduce((sum, item) => sum + item.weightGrams * item.quantity, 0);
+  const timeZone = useGuildTimeZone();
   return (
     <article aria-labelledby="packing-slip-title" className="space-y-6 rounded-stitch border-2 border-thread bg-white p-6 text-thread sm:p-8 print:max-w-[180mm] print:border-0 print:p-0">
       <div className="flex flex-wrap items-start justify-between gap-4">
@@ -63,7 +65,7 @@ function SlipSheet({ order, qrSvg, guildName, units, from }: { order: OrderView;
             Packing slip
           </h1>
           <p className="text-2xl font-bold tracking-wider">{order.reference}</p>
-          <p>Ordered {formatDate(order.createdAt)}</p>
+          <p>Ordered {formatDate(order.createdAt, timeZone)}</p>
         </div>
         <img src={svgDataUrl(qrSvg)} alt={`QR code of the order reference ${order.reference}`} width={128} height={128} className="size-32 shrink-0" />
       </div>

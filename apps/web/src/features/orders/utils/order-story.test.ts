@@ -125,3 +125,44 @@ describe('the label over the postal address', () => {
     expect(posted({ state: 'refunded', refundedAt: '2026-11-02T11:00:00.000Z', viewerIs: 'officer' })).toBe('Was to be posted to');
   });
 });
+
+describe('a disputed payment in the timeline', () => {
+  const paid: OrderView = { ...base, state: 'posted', viewerIs: 'officer', paidAt: '2026-11-02T10:05:00.250Z', postedAt: '2026-11-03T09:00:00.000Z' };
+
+  it('tells the treasurer when the bank opened it, for how much and why, and how it ended', () => {
+    const order: OrderView = {
+      ...paid,
+      dispute: {
+        stage: 'lost',
+        status: 'lost',
+        amountMinor: 1930,
+        reason: 'product_unacceptable',
+        openedAt: '2026-11-20T17:00:00.000Z',
+        evidenceDueBy: null,
+        closedAt: '2026-12-10T18:00:00.000Z',
+      },
+    };
+    expect(orderTimeline(order).map((e) => [e.title, e.detail])).toEqual([
+      ['Order placed', undefined],
+      ['Paid', '$19.30 by card'],
+      ['Posted', 'No tracking number given'],
+      ['The buyer’s bank disputed the card payment', '$19.30: The buyer says the bundles were not as described'],
+      ['The bank decided the dispute for the buyer and took the payment back', undefined],
+    ]);
+  });
+
+  it('gives the seller the opening without the bank’s details, after the payment even within the same second', () => {
+    // The card service stamps whole seconds: 10:05:00 is the same moment as the payment at 10:05:00.250.
+    const order: OrderView = {
+      ...paid,
+      viewerIs: 'seller',
+      postedAt: null,
+      dispute: { stage: 'open', status: null, amountMinor: null, reason: null, evidenceDueBy: null, openedAt: '2026-11-02T10:05:00.000Z', closedAt: null },
+    };
+    expect(orderTimeline(order).map((e) => [e.title, e.detail])).toEqual([
+      ['Order placed', undefined],
+      ['Paid', '$19.30 by card'],
+      ['The buyer’s bank disputed the card payment', undefined],
+    ]);
+  });
+});

@@ -1,4 +1,4 @@
-import { formatMoney, type OrderView } from '@scrap-relay/shared';
+import { disputeReasonLabel, formatMoney, type OrderView } from '@scrap-relay/shared';
 
 /** What happened to an order, in time order, and what happens next: pure, so the wording per state is tested. */
 
@@ -9,8 +9,9 @@ export interface TimelineEvent {
   detail?: string;
 }
 
-// Same-moment events keep the order things happen in (a free order is placed and confirmed at once).
-const RANK = ['placed', 'paid', 'posted', 'handed-over', 'received', 'problem', 'cancelled', 'refunded'];
+// Same-moment events keep the order things happen in (a free order is placed and confirmed at once). A moment is
+// a whole second: the card service stamps a dispute in whole seconds, the guild's own records in milliseconds.
+const RANK = ['placed', 'paid', 'posted', 'handed-over', 'received', 'problem', 'cancelled', 'refunded', 'dispute-opened', 'dispute-closed'];
 const rankOf = (key: string) => RANK.indexOf(key.split(':')[0] ?? key);
 
 export function orderTimeline(order: OrderView): TimelineEvent[] {
@@ -46,10 +47,34 @@ export function orderTimeline(order: OrderView): TimelineEvent[] {
   if (order.refundedAt) {
     events.push({ key: 'refunded', at: order.refundedAt, title: 'Refunded', detail: `${formatMoney(order.chargeMinor, order.currency)} back to the card` });
   }
+  if (order.dispute) events.push(...disputeEvents(order, order.dispute));
   // Oldest first, and the order is always placed first: a free order's confirmation is stamped a moment
   // before the order row itself, so by the clock alone it would come first.
   const [placed, ...rest] = events;
-  return [placed!, ...rest.sort((a, b) => a.at.localeCompare(b.at) || rankOf(a.key) - rankOf(b.key))];
+  const second = (iso: string) => iso.slice(0, 19);
+  return [placed!, ...rest.sort((a, b) => second(a.at).localeCompare(second(b.at)) || rankOf(a.key) - rankOf(b.key))];
+}
+
+const DISPUTE_ENDINGS = {
+  won: 'The bank decided the dispute for the guild',
+  lost: 'The bank decided the dispute for the buyer and took the payment back',
+  closed: 'The bank closed its questions about the payment',
+} as const;
+
+/** A dispute's opening and its end; the amount and reason only for the treasurer, whose view carries them. */
+function disputeEvents(order: OrderView, dispute: NonNullable<OrderView['dispute']>): TimelineEvent[] {
+  const events: TimelineEvent[] = [
+    {
+      key: 'dispute-opened',
+      at: dispute.openedAt,
+      title: 'The buyer’s bank disputed the card payment',
+      ...(dispute.amountMinor !== null && dispute.reason !== null
+        ? { detail: `${formatMoney(dispute.amountMinor, order.currency)}: ${disputeReasonLabel(dispute.reason)}` }
+        : {}),
+    },
+  ];
+  if (dispute.closedAt && dispute.stage !== 'open') events.push({ key: 'dispute-closed', at: dispute.closedAt, title: DISPUTE_ENDINGS[dispute.stage] });
+  return events;
 }
 
 /**

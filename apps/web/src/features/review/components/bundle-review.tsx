@@ -20,6 +20,7 @@ import { ColourSwatch, colourWords } from '../../../components/colour-swatch.tsx
 import { Alert } from '../../../components/ui/alert.tsx';
 import { formatOffer } from '../../../utils/bundle-text.ts';
 import { formatDate } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { photoSrcSet } from '../../../utils/photo-sources.ts';
 import { formatCount, yieldFacts } from '../../../utils/yield-text.ts';
 import { formatWaitingTime } from '../utils/waiting-time.ts';
@@ -206,6 +207,7 @@ function YieldPanel({ estimate, cutPlan, units }: { estimate: YieldEstimate; cut
 
 function SellerPanel({ bundle }: { bundle: BundleView }) {
   const { seller } = bundle;
+  const timeZone = useGuildTimeZone();
   return (
     <Panel title="The seller’s history">
       <p>
@@ -213,7 +215,7 @@ function SellerPanel({ bundle }: { bundle: BundleView }) {
       </p>
       {bundle.submittedAt ? (
         <p>
-          Sent for review on {formatDate(bundle.submittedAt)} (waiting {formatWaitingTime(bundle.submittedAt)}).
+          Sent for review on {formatDate(bundle.submittedAt, timeZone)} (waiting {formatWaitingTime(bundle.submittedAt)}).
         </p>
       ) : null}
       {bundle.reviewNotes ? (

@@ -9,6 +9,7 @@ import { Loading } from '../../../components/ui/loading.tsx';
 import { DataTable, dataTableColumns } from '../../../components/ui/table.tsx';
 import { formatOffer } from '../../../utils/bundle-text.ts';
 import { formatDate } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { useReviewQueue } from '../api/get-review-queue.ts';
 import { useQueueSearch } from '../hooks/use-queue-search.ts';
 import { QUEUE_SORT_COLUMNS } from '../utils/queue-search.ts';
@@ -35,6 +36,7 @@ export function ReviewQueueTable({ units }: { units: UnitSystem }) {
   const changePage = useCallback((index: number, pastTheEnd?: boolean) => (pastTheEnd ? fixPage(index + 1) : setPage(index + 1)), [fixPage, setPage]);
   const offerId = useId();
   const sellerSelectId = useId();
+  const timeZone = useGuildTimeZone();
 
   const columns = useMemo(
     () =>
@@ -86,12 +88,12 @@ export function ReviewQueueTable({ units }: { units: UnitSystem }) {
           cell: ({ getValue }) => (
             <div>
               <p className="font-semibold">{formatWaitingTime(getValue())}</p>
-              <p className="text-thread-soft">since {formatDate(getValue())}</p>
+              <p className="text-thread-soft">since {formatDate(getValue(), timeZone)}</p>
             </div>
           ),
         }),
       ]),
-    [units],
+    [units, timeZone],
   );
 
   const columnFilters = useMemo(

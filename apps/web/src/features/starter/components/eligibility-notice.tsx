@@ -1,10 +1,12 @@
 import { Alert } from '../../../components/ui/alert.tsx';
 import { formatDate } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import type { StarterEligibilityView } from '../types.ts';
 import { NewQuiltersOnly } from './new-quilters-only.tsx';
 
 /** The member's standing, in plain words: may claim now, not a new quilter (and how to give one instead), or may claim again from a date. */
 export function EligibilityNotice({ eligibility, canGive }: { eligibility: StarterEligibilityView; canGive: boolean }) {
+  const timeZone = useGuildTimeZone();
   if (eligibility.eligible) {
     return (
       <Alert tone="success" title="You may claim a starter bundle" announce={false}>
@@ -17,7 +19,7 @@ export function EligibilityNotice({ eligibility, canGive }: { eligibility: Start
       <Alert tone="info" title="You have had your starter bundle for now" announce={false}>
         <p>
           {eligibility.nextEligibleAt
-            ? `You may claim another from ${formatDate(eligibility.nextEligibleAt)}.`
+            ? `You may claim another from ${formatDate(eligibility.nextEligibleAt, timeZone)}.`
             : 'You may claim another once the guild’s waiting time has passed.'}{' '}
           The limit lets every new quilter have a turn.
         </p>

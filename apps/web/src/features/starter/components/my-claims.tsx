@@ -21,7 +21,7 @@ export function MyClaims({ claims }: { claims: StarterClaimSummary[] }) {
           <li key={claim.id} className="space-y-1 py-3 first:pt-0 last:pb-0">
             <p className="text-lg font-semibold">{claim.bundle.title}</p>
             <p>
-              <span className="font-semibold">{STATE_TEXT[claim.state]}</span> · claimed on {formatDate(claim.claimedAt)}
+              <span className="font-semibold">{STATE_TEXT[claim.state]}</span> · claimed on {formatDate(claim.claimedAt, timeZone)}
             </p>
             {claim.state === 'claimed' ? (
               <p>

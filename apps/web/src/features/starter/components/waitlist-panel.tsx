@@ -4,6 +4,7 @@ import { Alert } from '../../../components/ui/alert.tsx';
 import { Button } from '../../../components/ui/button.tsx';
 import { ConfirmDialog } from '../../../components/ui/dialog.tsx';
 import { formatDate } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { useJoinWaitlist } from '../api/join-waitlist.ts';
 import { useLeaveWaitlist } from '../api/leave-waitlist.ts';
 import type { StarterStatus } from '../types.ts';
@@ -19,12 +20,13 @@ export function WaitlistPanel({ status, freeCount }: { status: StarterStatus; fr
   const join = useJoinWaitlist();
   const leave = useLeaveWaitlist({ onSuccess: () => setConfirmLeave(false) });
   const entry = status.waitlist;
+  const timeZone = useGuildTimeZone();
 
   if (entry) {
     return (
       <Panel title="Your place on the waiting list">
         <p className="text-lg">
-          <strong>{placeText(entry.position)}</strong> You joined on {formatDate(entry.joinedAt)}.
+          <strong>{placeText(entry.position)}</strong> You joined on {formatDate(entry.joinedAt, timeZone)}.
         </p>
         <p>When a starter bundle comes in, it is offered to the person at the front of the queue by e-mail, with a few days to answer.</p>
         {join.isSuccess ? <Alert tone="success" title="You are on the waiting list" /> : null}

@@ -32,7 +32,7 @@ export function WaitlistQueue() {
           cell: ({ getValue }) => <span className="text-lg font-bold">{getValue()}</span>,
         }),
         column.accessor('name', { header: 'Name', sortFn: 'text', cell: ({ getValue }) => <span className="font-semibold">{getValue()}</span> }),
-        column.accessor('joinedAt', { header: 'Joined the list', sortFn: 'text', cell: ({ getValue }) => formatDate(getValue()) }),
+        column.accessor('joinedAt', { header: 'Joined the list', sortFn: 'text', cell: ({ getValue }) => formatDate(getValue(), timeZone) }),
         column.accessor('waitingDays', {
           header: 'Waiting',
           sortFn: 'alphanumeric',
@@ -61,7 +61,7 @@ export function WaitlistQueue() {
           ),
         }),
       ]),
-    [],
+    [timeZone],
   );
 
   if (waitlist.isPending) return <Loading label="Loading the waiting list…" />;

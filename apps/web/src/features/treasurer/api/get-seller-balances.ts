@@ -5,7 +5,7 @@ import { treasurerQueryKey } from './get-ledger.ts';
 
 export const sellerBalancesQueryKey = [...treasurerQueryKey, 'seller-balances'] as const;
 
-/** What the guild owes each seller: credits (net of refunds) less payouts. */
+/** What the guild owes each seller: credits (net of refunds) less payouts, split into payable now and waiting for bags to go out. */
 export const getSellerBalances = ({ signal }: { signal?: AbortSignal } = {}): Promise<{ items: SellerBalanceView[] }> =>
   api.get('/seller-balances', { signal });
 

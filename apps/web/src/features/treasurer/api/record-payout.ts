@@ -14,7 +14,7 @@ export interface RecordedPayout {
   createdAt: string;
 }
 
-/** Money the treasurer has paid a seller outside Scrap Relay (transfer, cheque, cash); 422 when it is more than the balance. */
+/** Money the treasurer has paid a seller outside Scrap Relay (transfer, cheque, cash); 422 when it is more than what is payable now. */
 export const recordPayout = (input: PayoutInput): Promise<{ payout: RecordedPayout }> => api.post('/payouts', input);
 
 export function useRecordPayout(config: MutationConfig<PayoutInput, { payout: RecordedPayout }> = {}) {

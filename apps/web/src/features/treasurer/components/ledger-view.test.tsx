@@ -4,7 +4,8 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { MemoryRouter } from 'react-router-dom';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { createQueryClient } from '../../../lib/react-query.ts';
-import { jsonResponse, makeSession, makeUser } from '../../../testing/fixtures.ts';
+import { SESSION_CACHE_KEY } from '../../../utils/guild-session.ts';
+import { jsonResponse, makeSession, makeUser, testGuild } from '../../../testing/fixtures.ts';
 import { cleanup, render, waitFor } from '../../../testing/render.tsx';
 import { ledgerDirection } from '../utils/labels.ts';
 import { LedgerView } from './ledger-view.tsx';
@@ -37,18 +38,22 @@ const entries: LedgerEntryView[] = [
   entry('4', 'payout', 'seller:s-1', 'Seller: Orla Finch', -1000, false),
 ];
 
-async function renderLedger() {
+/** The ledger as a treasurer of a guild in `timeZone` sees it (the session already loaded, as the app's guard leaves it). */
+async function renderLedger(timeZone = testGuild.timeZone) {
   vi.stubGlobal(
     'fetch',
     vi.fn(async (input: RequestInfo | URL) => {
       const path = new URL(String(input), 'http://app.test').pathname;
       if (path === '/api/session') return jsonResponse(200, makeSession(makeUser({ roles: ['member', 'treasurer'] })));
       if (path === '/api/ledger') return jsonResponse(200, { items: entries });
+      if (path === '/api/orders') return jsonResponse(200, { items: [] });
       return jsonResponse(404, { error: { code: 'not_found', message: 'Not here.' } });
     }),
   );
+  const client = createQueryClient();
+  client.setQueryData(SESSION_CACHE_KEY, { ...makeSession(makeUser({ roles: ['member', 'treasurer'] })), guild: { ...testGuild, timeZone } });
   const rendered = await render(
-    <QueryClientProvider client={createQueryClient()}>
+    <QueryClientProvider client={client}>
       <MemoryRouter>
         <LedgerView filters={{}} onFiltersChange={() => undefined} />
       </MemoryRouter>
@@ -78,6 +83,18 @@ describe('the ledger', () => {
     expect(container.querySelector('th')?.parentElement?.textContent).toContain('Amount, in or out');
     // Red is for nothing here: the words carry the direction.
     expect(container.querySelector('tbody .text-madder-deep')).toBeNull();
+  });
+
+  it('gives each entry’s time, and reads the date filters, in the guild’s time zone, whatever the device’s', async () => {
+    // 10:22 UTC on 2 March 2026 is 11:22 PM the same day in Auckland, UTC+13 until summer time ends on 5 April
+    // (IANA tz database, Pacific/Auckland).
+    const { container } = await renderLedger('Pacific/Auckland');
+    const times = [...container.querySelectorAll('tbody time')].map((time) => time.textContent);
+    expect(times).toHaveLength(4);
+    expect(new Set(times)).toEqual(new Set(['Mar 2, 2026, 11:22 PM GMT+13']));
+    const filters = container.querySelector('[role="search"]')!;
+    expect(filters.textContent).toContain('Days run from midnight to midnight in the guild’s time zone');
+    expect(filters.textContent).toContain('(Pacific/Auckland)');
   });
 });
 

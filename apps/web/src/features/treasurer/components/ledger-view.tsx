@@ -8,11 +8,14 @@ import { Loading } from '../../../components/ui/loading.tsx';
 import { DataTable, dataTableColumns } from '../../../components/ui/table.tsx';
 import { paths } from '../../../config/paths.ts';
 import { cn } from '../../../utils/cn.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
+import { formatCompactTimestamp } from '../../../utils/meetings.ts';
+import { describeTimeZone } from '../../../utils/zoned-time.ts';
 import { ledgerCsvHref, useLedger } from '../api/get-ledger.ts';
 import { LEDGER_KIND_LABELS, ledgerDirection, ledgerKindText } from '../utils/labels.ts';
+import { OpenDisputes } from './open-disputes.tsx';
 
 const column = dataTableColumns<LedgerEntryView>();
-const dateTime = new Intl.DateTimeFormat('en', { day: 'numeric', month: 'short', year: 'numeric', hour: 'numeric', minute: '2-digit' });
 
 const kindOptions = [{ value: '', label: 'Every kind' }, ...LEDGER_ENTRY_KINDS.map((kind) => ({ value: kind, label: LEDGER_KIND_LABELS[kind] }))];
 
@@ -34,6 +37,7 @@ export function LedgerView({ filters, onFiltersChange }: LedgerViewProps) {
   const ledger = useLedger(filters);
   const [query, setQuery] = useState('');
   const searchId = useId();
+  const timeZone = useGuildTimeZone();
 
   const columns = useMemo(
     () =>
@@ -43,7 +47,7 @@ export function LedgerView({ filters, onFiltersChange }: LedgerViewProps) {
           sortFn: 'text',
           sortDescFirst: true,
           meta: { sortLabels: ['Oldest first', 'Newest first'] },
-          cell: ({ getValue }) => <time dateTime={getValue()}>{dateTime.format(new Date(getValue()))}</time>,
+          cell: ({ getValue }) => <time dateTime={getValue()}>{formatCompactTimestamp(getValue(), timeZone)}</time>,
         }),
         column.accessor('kind', {
           header: 'Kind',
@@ -74,12 +78,13 @@ export function LedgerView({ filters, onFiltersChange }: LedgerViewProps) {
           ),
         }),
       ]),
-    [],
+    [timeZone],
   );
 
   return (
     <div className="space-y-6">
-      <LedgerFilters filters={filters} onChange={onFiltersChange} />
+      <OpenDisputes />
+      <LedgerFilters filters={filters} onChange={onFiltersChange} timeZone={timeZone} />
 
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div className="min-w-64 flex-1 space-y-1.5 sm:max-w-md">
@@ -128,7 +133,7 @@ function Amount({ entry }: { entry: LedgerEntryView }) {
   return (
     <span className="block">
       <span className="block font-semibold tabular-nums">{formatMoney(entry.amountMinor, entry.currency)}</span>
-      <span className="block text-base text-thread-soft">{ledgerDirection(entry.account, entry.amountMinor)}</span>
+      <span className="block text-base text-thread-soft">{ledgerDirection(entry.account, entry.amountMinor, entry.kind)}</span>
     </span>
   );
 }
@@ -155,7 +160,8 @@ function LedgerTotal({ entries }: { entries: readonly LedgerEntryView[] }) {
   );
 }
 
-function LedgerFilters({ filters, onChange }: { filters: LedgerQuery; onChange: (filters: LedgerQuery) => void }) {
+/** The dates are days in the guild's time zone, as the API reads them: "30 November" ends at midnight there. */
+function LedgerFilters({ filters, onChange, timeZone }: { filters: LedgerQuery; onChange: (filters: LedgerQuery) => void; timeZone: string }) {
   const reversed = filters.from && filters.to && filters.to < filters.from;
   const set = (patch: Partial<Record<keyof LedgerQuery, string>>) => {
     const next = { ...filters, ...patch };
@@ -173,6 +179,7 @@ function LedgerFilters({ filters, onChange }: { filters: LedgerQuery; onChange: 
       <FieldShell label="Kind" hint="Payments, fees, refunds…">
         {(control) => <Select {...control} options={kindOptions} value={filters.kind ?? ''} onChange={(event) => set({ kind: event.target.value })} />}
       </FieldShell>
+      <p className="text-thread-soft sm:col-span-3">Days run from midnight to midnight in the guild’s time zone, {describeTimeZone(timeZone)}, and so do the times below and in the CSV.</p>
     </div>
   );
 }

@@ -14,8 +14,9 @@ import { PAYOUT_METHOD_LABELS } from '../utils/labels.ts';
 
 const column = dataTableColumns<SellerBalanceView>();
 const methodOptions = Object.entries(PAYOUT_METHOD_LABELS).map(([value, label]) => ({ value, label }));
-const byAmount = (key: 'creditedMinor' | 'paidOutMinor' | 'balanceMinor') => (a: { original: SellerBalanceView }, b: { original: SellerBalanceView }) =>
-  a.original[key] - b.original[key];
+type AmountKey = 'creditedMinor' | 'paidOutMinor' | 'payableMinor' | 'waitingMinor';
+const byAmount = (key: AmountKey) => (a: { original: SellerBalanceView }, b: { original: SellerBalanceView }) => a.original[key] - b.original[key];
+const amountMeta = { sortLabels: ['Smallest first', 'Largest first'], cellClassName: 'md:text-right tabular-nums' } as const;
 
 interface Recorded {
   name: string;
@@ -23,7 +24,10 @@ interface Recorded {
   currency: string;
 }
 
-/** What the guild owes each seller, and recording a payout made outside Scrap Relay (it reduces the balance). */
+/**
+ * What the guild owes each seller, split into what may be paid out now and what waits for bags not yet sent, and
+ * recording a payout made outside Scrap Relay (at most the payable figure; it lowers it).
+ */
 export function SellerBalancesView() {
   const balances = useSellerBalances();
   const [sellerId, setSellerId] = useState('');
@@ -44,35 +48,47 @@ export function SellerBalancesView() {
         column.accessor('creditedMinor', {
           header: 'Credited',
           sortFn: byAmount('creditedMinor'),
-          meta: { sortLabels: ['Smallest first', 'Largest first'], cellClassName: 'md:text-right tabular-nums' },
+          meta: amountMeta,
           cell: ({ row }) => formatMoney(row.original.creditedMinor, row.original.currency),
         }),
         column.accessor('paidOutMinor', {
           header: 'Paid out',
           sortFn: byAmount('paidOutMinor'),
-          meta: { sortLabels: ['Smallest first', 'Largest first'], cellClassName: 'md:text-right tabular-nums' },
+          meta: amountMeta,
           cell: ({ row }) => formatMoney(row.original.paidOutMinor, row.original.currency),
         }),
-        column.accessor('balanceMinor', {
-          header: 'Owed now',
-          sortFn: byAmount('balanceMinor'),
+        column.accessor('payableMinor', {
+          header: 'Payable now',
+          sortFn: byAmount('payableMinor'),
           sortDescFirst: true,
-          meta: { sortLabels: ['Smallest first', 'Largest first'], cellClassName: 'md:text-right tabular-nums' },
-          cell: ({ row }) => <strong>{formatMoney(row.original.balanceMinor, row.original.currency)}</strong>,
+          meta: amountMeta,
+          cell: ({ row }) => <strong>{formatMoney(row.original.payableMinor, row.original.currency)}</strong>,
+        }),
+        column.accessor('waitingMinor', {
+          header: 'Waiting for bags to go out',
+          sortFn: byAmount('waitingMinor'),
+          sortDescFirst: true,
+          meta: amountMeta,
+          cell: ({ row }) => (
+            <span className={row.original.waitingMinor === 0 ? 'text-thread-soft' : undefined}>{formatMoney(row.original.waitingMinor, row.original.currency)}</span>
+          ),
         }),
         column.display({
           id: 'payout',
           header: 'Payout',
-          cell: ({ row }) =>
-            row.original.balanceMinor > 0 ? (
-              <Button variant="secondary" onClick={() => choose(row.original.sellerId)}>
-                Record a payout<span className="sr-only"> to {row.original.name}</span>
-              </Button>
-            ) : row.original.balanceMinor < 0 ? (
-              <span>Owes the guild {formatMoney(-row.original.balanceMinor, row.original.currency)}, from a refund after a payout</span>
-            ) : (
-              <span className="text-thread-soft">Nothing owed</span>
-            ),
+          cell: ({ row }) => {
+            const { payableMinor, waitingMinor, currency, name, sellerId: id } = row.original;
+            if (payableMinor > 0) {
+              return (
+                <Button variant="secondary" onClick={() => choose(id)}>
+                  Record a payout<span className="sr-only"> to {name}</span>
+                </Button>
+              );
+            }
+            if (payableMinor < 0) return <span>Owes the guild {formatMoney(-payableMinor, currency)}, from a refund after a payout</span>;
+            if (waitingMinor > 0) return <span className="text-thread-soft">Nothing to pay until the bags go out</span>;
+            return <span className="text-thread-soft">Nothing owed</span>;
+          },
         }),
       ]),
     [],
@@ -91,19 +107,28 @@ export function SellerBalancesView() {
   }
 
   const items = balances.data.items;
-  const owed = items.filter((item) => item.balanceMinor > 0);
-  const selected = items.find((item) => item.sellerId === sellerId) ?? null;
+  const payable = items.filter((item) => item.payableMinor > 0);
+  const selected = payable.find((item) => item.sellerId === sellerId) ?? null;
   const currency = items[0]?.currency;
-  const totalOwed = owed.reduce((sum, item) => sum + item.balanceMinor, 0);
-  const owing = items.filter((item) => item.balanceMinor < 0);
-  const totalOwing = owing.reduce((sum, item) => sum - item.balanceMinor, 0);
+  const totalPayable = payable.reduce((sum, item) => sum + item.payableMinor, 0);
+  const totalWaiting = items.reduce((sum, item) => sum + item.waitingMinor, 0);
+  const totalOwed = totalPayable + totalWaiting;
+  const owing = items.filter((item) => item.payableMinor < 0);
+  const totalOwing = owing.reduce((sum, item) => sum - item.payableMinor, 0);
 
   return (
     <div className="space-y-6">
       {currency ? (
         <div className="space-y-2">
           <p className="text-lg">
-            The guild owes sellers <strong>{formatMoney(totalOwed, currency)}</strong> in all.
+            The guild owes sellers <strong>{formatMoney(totalOwed, currency)}</strong> in all:{' '}
+            <strong>{formatMoney(totalPayable, currency)}</strong> can be paid out now
+            {totalWaiting > 0 ? (
+              <>
+                , and <strong>{formatMoney(totalWaiting, currency)}</strong> is waiting for bags to go out
+              </>
+            ) : null}
+            .
           </p>
           {owing.length > 0 ? (
             <p>
@@ -112,6 +137,10 @@ export function SellerBalancesView() {
               so the month statement’s total owed to sellers, which nets it off, is {formatMoney(totalOwed - totalOwing, currency)}.
             </p>
           ) : null}
+          <p className="text-thread-soft">
+            A sale’s credit can be paid out once its bag has gone out: when the seller marks the parcel posted, or the bag is ticked off as handed
+            over at a meeting. Until then the order can still be cancelled and refunded, so its credit waits.
+          </p>
         </div>
       ) : null}
       <DataTable
@@ -119,7 +148,7 @@ export function SellerBalancesView() {
         data={items}
         columns={columns}
         getRowId={(item) => item.sellerId}
-        initialSorting={[{ id: 'balanceMinor', desc: true }]}
+        initialSorting={[{ id: 'payableMinor', desc: true }]}
         noun={['seller', 'sellers']}
         emptyMessage="No seller has been credited yet."
       />
@@ -127,16 +156,16 @@ export function SellerBalancesView() {
       <div ref={formRef} className="scroll-mt-4">
         <Panel title="Record a payout">
           <p>
-            Record money you have already paid a seller (by transfer, cheque or cash). It is written to the ledger and lowers what the guild owes
-            them.
+            Record money you have already paid a seller (by transfer, cheque or cash), up to what is payable now. It is written to the ledger and
+            lowers what the guild owes them. Payouts follow the guild’s own rules and local law.
           </p>
           {recorded ? (
             <Alert tone="success" title={`Payout of ${formatMoney(recorded.amountMinor, recorded.currency)} to ${recorded.name} recorded`}>
               <p>The balance above is updated, and the ledger has the entry.</p>
             </Alert>
           ) : null}
-          {owed.length === 0 ? (
-            <p className="font-semibold">No seller is owed anything just now.</p>
+          {payable.length === 0 ? (
+            <p className="font-semibold">{totalWaiting > 0 ? 'Nothing can be paid out until bags go out.' : 'No seller is owed anything just now.'}</p>
           ) : (
             <>
               <FieldShell label="Seller">
@@ -148,7 +177,7 @@ export function SellerBalancesView() {
                     onChange={(event) => choose(event.target.value)}
                     options={[
                       { value: '', label: 'Choose a seller' },
-                      ...owed.map((item) => ({ value: item.sellerId, label: `${item.name} (owed ${formatMoney(item.balanceMinor, item.currency)})` })),
+                      ...payable.map((item) => ({ value: item.sellerId, label: `${item.name} (${formatMoney(item.payableMinor, item.currency)})` })),
                     ]}
                   />
                 )}
@@ -173,11 +202,13 @@ export function SellerBalancesView() {
 
 function PayoutForm({ seller, onRecorded }: { seller: SellerBalanceView; onRecorded: (recorded: Recorded) => void }) {
   const record = useRecordPayout();
+  const money = (minor: number) => formatMoney(minor, seller.currency);
+  const waiting = seller.waitingMinor > 0 ? ` ${money(seller.waitingMinor)} more is waiting for bags not yet posted or handed over.` : '';
   return (
     <Form
       schema={payoutSchema}
-      defaultValues={{ sellerId: seller.sellerId, amountMinor: seller.balanceMinor, method: 'bank_transfer', reference: '' }}
-      messages={{ amountMinor: `Enter an amount between ${formatMoney(1, seller.currency)} and what is owed.` }}
+      defaultValues={{ sellerId: seller.sellerId, amountMinor: seller.payableMinor, method: 'bank_transfer', reference: '' }}
+      messages={{ amountMinor: `Enter an amount between ${money(1)} and what is payable now.` }}
       onSubmit={async (values) => {
         const { payout } = await record.mutateAsync(values);
         onRecorded({ name: seller.name, amountMinor: payout.amountMinor, currency: payout.currency });
@@ -186,7 +217,7 @@ function PayoutForm({ seller, onRecorded }: { seller: SellerBalanceView; onRecor
       <ScaledNumberField
         name="amountMinor"
         label={`Amount paid (${seller.currency})`}
-        hint={`At most ${formatMoney(seller.balanceMinor, seller.currency)}, what the guild owes ${seller.name}.`}
+        hint={`At most ${money(seller.payableMinor)}, what can be paid to ${seller.name} now.${waiting}`}
         toText={(minor) => minorToMajorText(minor, seller.currency)}
         fromText={(text) => majorTextToMinor(text, seller.currency)}
       />

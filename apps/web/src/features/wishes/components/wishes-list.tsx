@@ -6,6 +6,7 @@ import { Button, ButtonLink } from '../../../components/ui/button.tsx';
 import { ConfirmDialog } from '../../../components/ui/dialog.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { formatDate } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { useWishes } from '../api/get-wishes.ts';
 import { useDeleteWish } from '../api/delete-wish.ts';
 
@@ -20,6 +21,7 @@ export function WishesList({ units, currency }: WishesListProps) {
   const [deleting, setDeleting] = useState<WishView | null>(null);
   const [deleted, setDeleted] = useState<string | null>(null);
   const headingId = useId();
+  const timeZone = useGuildTimeZone();
 
   if (wishes.isPending) return <Loading label="Loading your wishes…" />;
   if (wishes.isError) {
@@ -56,7 +58,7 @@ export function WishesList({ units, currency }: WishesListProps) {
                 <div>
                   <h3 className="text-xl font-bold">{wish.name}</h3>
                   <p className="text-lg">{describeShelfFilters(filters, { units, currency })}</p>
-                  <p className="text-thread-soft">Saved on {formatDate(wish.createdAt)}</p>
+                  <p className="text-thread-soft">Saved on {formatDate(wish.createdAt, timeZone)}</p>
                 </div>
                 <div className="flex flex-wrap gap-3">
                   <ButtonLink to={paths.app.shelf.getHref(shelfSearchParams({ filters }).toString())} variant="secondary">

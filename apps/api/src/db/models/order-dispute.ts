@@ -1,0 +1,36 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+/** The cardholder's bank questioning an order's payment, as the card service reports it (one per order). */
+export class OrderDispute extends Model<InferAttributes<OrderDispute>, InferCreationAttributes<OrderDispute>> {
+  declare id: CreationOptional<string>;
+  declare orderId: string;
+  declare stripeDisputeId: string;
+  /** The card service's status (`needs_response`, `under_review`, `won`, `lost`, …); `disputeStage` reads it. */
+  declare status: string;
+  declare reason: string;
+  declare amountMinor: number;
+  declare currency: string;
+  declare evidenceDueBy: Date | null;
+  declare openedAt: Date;
+  declare closedAt: CreationOptional<Date | null>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    OrderDispute.init(
+      {
+        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        orderId: { type: DataTypes.UUID, allowNull: false },
+        stripeDisputeId: { type: DataTypes.TEXT, allowNull: false },
+        status: { type: DataTypes.TEXT, allowNull: false },
+        reason: { type: DataTypes.TEXT, allowNull: false },
+        amountMinor: { type: DataTypes.INTEGER, allowNull: false },
+        currency: { type: DataTypes.CHAR(3), allowNull: false },
+        evidenceDueBy: { type: DataTypes.DATE, allowNull: true },
+        openedAt: { type: DataTypes.DATE, allowNull: false },
+        closedAt: { type: DataTypes.DATE, allowNull: true },
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'order_disputes', createdAt: false },
+    );
+  }
+}

@@ -1,0 +1,147 @@
+import type Stripe from 'stripe';
+import { Op, type Transaction } from 'sequelize';
+import { disputeLostEntries, disputeReasonLabel, disputeStage, formatMoney, type LedgerEntry as DomainEntry } from '@scrap-relay/shared';
+import { LedgerEntry, Member, Order, OrderDispute, OrderItem, type Guild } from '../../db/models/index.ts';
+import { disputeKept, disputeLost, disputeOpened } from '../../emails/disputes.ts';
+import { formatWhen } from '../../emails/format.ts';
+import type { RenderedEmail } from '../../emails/render.ts';
+import { authorize, type Actor } from '../../policies/index.ts';
+import type { AppContext } from '../../context.ts';
+import { guildTimeZone, loadGuild } from '../guild/guild.service.ts';
+import { sellerBalanceSplits, writeLedger } from './ledger-writer.ts';
+import { ORDER_INCLUDE } from './orders.service.ts';
+
+/** The card service's dispute as the order keeps it. `due_by` 0 means the bank allows no answer. */
+function disputeFields(dispute: Stripe.Dispute) {
+  const dueBy = dispute.evidence_details?.due_by;
+  return {
+    status: dispute.status,
+    reason: dispute.reason,
+    amountMinor: dispute.amount,
+    currency: dispute.currency.toUpperCase(),
+    evidenceDueBy: dueBy ? new Date(dueBy * 1000) : null,
+  };
+}
+
+const idOf = (value: string | { id: string } | null) => (typeof value === 'string' ? value : (value?.id ?? null));
+
+/**
+ * `charge.dispute.*` events: the dispute is recorded on the order whose payment it questions, in the transaction
+ * that records the event. The first news of an open dispute tells every treasurer; its decision is told once: a
+ * lost one is booked in the ledger (the seller's credit and the guild's fee for the order taken back), a won one
+ * changes nothing. A decided dispute is not reopened by news arriving late or twice. A dispute about a payment no
+ * order knows is logged and left: the event is still acknowledged, so the card service stops sending it.
+ */
+export async function recordDispute(ctx: AppContext, dispute: Stripe.Dispute, transaction: Transaction): Promise<void> {
+  const paymentIntentId = idOf(dispute.payment_intent);
+  // The order's row is locked first, as everything that changes its money does.
+  const order = paymentIntentId ? await Order.findOne({ where: { stripePaymentIntentId: paymentIntentId }, transaction, lock: transaction.LOCK.UPDATE }) : null;
+  if (!order) {
+    ctx.logger.warn({ disputeId: dispute.id, paymentIntentId, chargeId: idOf(dispute.charge) }, 'a dispute about a payment no order knows; nothing recorded');
+    return;
+  }
+  const existing = await OrderDispute.findOne({ where: { orderId: order.id }, transaction });
+  if (existing && existing.stripeDisputeId !== dispute.id) {
+    // The card service allows one dispute per payment; a second id means the data is not what this code expects.
+    ctx.logger.error({ orderId: order.id, recorded: existing.stripeDisputeId, disputeId: dispute.id }, 'a second dispute on one order; nothing recorded');
+    return;
+  }
+  if (existing && disputeStage(existing.status) !== 'open') return;
+
+  const stage = disputeStage(dispute.status);
+  const fields = { ...disputeFields(dispute), closedAt: stage === 'open' ? null : ctx.now() };
+  const record = existing
+    ? await existing.update(fields, { transaction })
+    : await OrderDispute.create({ orderId: order.id, stripeDisputeId: dispute.id, openedAt: new Date(dispute.created * 1000), ...fields }, { transaction });
+
+  const guild = await loadGuild();
+  const mail = { guildName: guild.name, reference: order.reference, link: `${ctx.config.appUrl}/orders/${order.id}`, amount: formatMoney(record.amountMinor, order.currency) };
+  if (stage === 'open') {
+    if (!existing) await tellTreasurers(ctx, transaction, await openedMail(guild, order, record, transaction, mail));
+    return;
+  }
+  if (stage === 'lost') {
+    const share = await bookLostDispute(ctx, order, record.amountMinor, transaction);
+    // As with a refund, the seller owes only what was paid out with no delivered bag behind it any more: credit
+    // still waiting for a bag to go out may be taken back too, so it does not cover the debt.
+    const [split] = await sellerBalanceSplits(ctx.sequelize, [order.sellerId], transaction);
+    const balance = split?.payableMinor ?? 0;
+    const seller = (await Member.findByPk(order.sellerId, { transaction }))!;
+    const money = (minor: number) => (minor > 0 ? formatMoney(minor, order.currency) : null);
+    await tellTreasurers(ctx, transaction, (name) =>
+      disputeLost({ ...mail, name, sellerName: seller.name, share: money(share), owing: money(-balance), notYetPosted: order.state === 'confirmed' }),
+    );
+    return;
+  }
+  await tellTreasurers(ctx, transaction, (name) => disputeKept({ ...mail, name, how: stage }));
+}
+
+/** Writes the lost dispute's entries; returns the seller's credit it took back. */
+async function bookLostDispute(ctx: AppContext, order: Order, amountMinor: number, transaction: Transaction): Promise<number> {
+  const standing = await LedgerEntry.findAll({ where: { orderId: order.id }, transaction });
+  const entries = disputeLostEntries({
+    sellerId: order.sellerId,
+    amountMinor,
+    orderEntries: standing.map((e) => ({
+      kind: e.kind,
+      account: e.account as DomainEntry['account'],
+      amountMinor: e.amountMinor,
+      ...(e.reverses ? { reverses: e.reverses as DomainEntry['reverses'] } : {}),
+    })),
+  });
+  await writeLedger(entries, { orderId: order.id, currency: order.currency, at: ctx.now() }, transaction);
+  return -entries.filter((e) => e.reverses === 'seller_credit').reduce((sum, e) => sum + e.amountMinor, 0);
+}
+
+async function openedMail(
+  guild: Guild,
+  order: Order,
+  record: OrderDispute,
+  transaction: Transaction,
+  mail: { guildName: string; reference: string; link: string; amount: string },
+): Promise<(name: string) => RenderedEmail> {
+  const timeZone = guildTimeZone(guild);
+  const [buyer, seller, items] = await Promise.all([
+    Member.findByPk(order.buyerId, { transaction }),
+    Member.findByPk(order.sellerId, { transaction }),
+    OrderItem.findAll({ where: { orderId: order.id }, transaction }),
+  ]);
+  const details = {
+    ...mail,
+    buyerName: buyer!.name,
+    sellerName: seller!.name,
+    titles: items.map((i) => (i.quantity > 1 ? `${i.title} × ${i.quantity}` : i.title)),
+    reason: disputeReasonLabel(record.reason),
+    dueBy: record.evidenceDueBy ? formatWhen(record.evidenceDueBy, timeZone) : null,
+    fulfilment: fulfilmentLine(order, timeZone),
+  };
+  return (name) => disputeOpened({ ...details, name });
+}
+
+/** What the order says about the bag changing hands: the evidence the bank usually asks for. */
+function fulfilmentLine(order: Order, timeZone: string): string {
+  if (order.handedOverAt) return `It was handed over at a guild meeting on ${formatWhen(order.handedOverAt, timeZone)}.`;
+  if (order.postedAt) {
+    const tracking = order.trackingNumber ? `, tracking number ${order.trackingNumber}` : ', without a tracking number';
+    const received = order.receivedAt ? ` It is marked received since ${formatWhen(order.receivedAt, timeZone)}.` : '';
+    return `The seller marked it posted on ${formatWhen(order.postedAt, timeZone)}${tracking}.${received}`;
+  }
+  if (order.state === 'confirmed') return order.fulfilment === 'post' ? 'The seller has not marked it posted yet.' : 'It has not been handed over yet.';
+  return `The order is ${order.state.replace('_', ' ')}.`;
+}
+
+/** Every active treasurer, each in their own name; queued in the caller's transaction, so mail goes only if the record commits. */
+async function tellTreasurers(ctx: AppContext, transaction: Transaction, render: (name: string) => RenderedEmail): Promise<void> {
+  const treasurers = await Member.findAll({ where: { active: true, roles: { [Op.contains]: ['treasurer' as const] } }, transaction });
+  for (const treasurer of treasurers) await ctx.queue.enqueueEmail({ to: treasurer.email, ...render(treasurer.name) }, transaction);
+}
+
+/** The treasurer's list: orders whose payment a bank is disputing now, the nearest deadline for evidence first. */
+export async function ordersWithOpenDisputes(actor: Actor): Promise<Order[]> {
+  authorize(actor, 'ledger.view');
+  const open = await OrderDispute.findAll({ where: { closedAt: null }, attributes: ['orderId'], limit: 200 });
+  if (open.length === 0) return [];
+  const orders = await Order.findAll({ where: { id: open.map((d) => d.orderId) }, include: ORDER_INCLUDE });
+  const due = (o: Order) => o.dispute?.evidenceDueBy?.getTime() ?? Number.POSITIVE_INFINITY;
+  return orders.sort((a, b) => due(a) - due(b));
+}
