@@ -1,7 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
-import type { GuildSummary, SessionResponse } from '@scrap-relay/shared';
+import { canShowTimeZone, type GuildSummary, type SessionResponse } from '@scrap-relay/shared';
 import { api } from '../lib/api-client.ts';
-import { isKnownTimeZone } from './zoned-time.ts';
 
 /**
  * The guild facts every screen may need (its time zone, the countries it posts to), read from the session the
@@ -26,7 +25,7 @@ const selectGuild = (session: SessionResponse): GuildSummary => session.guild;
 /** The guild's IANA time zone (its meetings' and e-mails' zone); UTC until the session says otherwise, as the API does. */
 export function useGuildTimeZone(): string {
   const zone = useGuildSummary()?.timeZone;
-  return zone && isKnownTimeZone(zone) ? zone : 'UTC';
+  return zone && canShowTimeZone(zone) ? zone : 'UTC';
 }
 
 /** Two-letter codes of the countries the guild's postage table covers; empty when it quotes any address. */

@@ -1,5 +1,4 @@
-import type { MeetingView } from '@scrap-relay/shared';
-import { instantOfWallTime, isCalendarWallTime, offsetMinutesAt, shortZoneName, wallTimeAt, type WallTime } from './zoned-time.ts';
+import { instantOfWallTime, isCalendarWallTime, type MeetingView, offsetMinutesAt, shortZoneName, type WallTime, wallTimeAt } from '@scrap-relay/shared';
 
 /**
  * Dates with times (meetings, offer deadlines, ticks at the door, ledger entries). The API sends instants; people

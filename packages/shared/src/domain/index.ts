@@ -13,3 +13,4 @@ export * from './shelf-filters.ts';
 export * from './shelf-address.ts';
 export * from './photo-sizes.ts';
 export * from './countries.ts';
+export * from './zoned-time.ts';

@@ -1,4 +1,4 @@
-import { currencyMinorUnits } from '@scrap-relay/shared';
+import { currencyMinorUnits, wallClockAt } from '@scrap-relay/shared';
 
 /**
  * Integer minor units as a plain decimal in the currency's own units, for spreadsheets: (5170, "USD") → "51.70",
@@ -19,31 +19,15 @@ export function decimalAmount(minor: number, currency: string): string {
 export const IN_CURRENCY_UNITS = 'in_currency_units';
 export const AMOUNT_COLUMN = `amount_${IN_CURRENCY_UNITS}`;
 
-const wallClockFormats = new Map<string, Intl.DateTimeFormat>();
-
 /**
  * An instant as a clock in `timeZone` shows it, written the way spreadsheets read a date and time without being
  * told a format: "2026-11-30 23:30:00". The zone goes in the column's header (`timeColumn`), as the currency
  * goes beside amounts.
  */
 export function wallClockText(instant: Date, timeZone: string): string {
-  let format = wallClockFormats.get(timeZone);
-  if (!format) {
-    format = new Intl.DateTimeFormat('en-US', {
-      timeZone,
-      hourCycle: 'h23',
-      year: 'numeric',
-      month: '2-digit',
-      day: '2-digit',
-      hour: '2-digit',
-      minute: '2-digit',
-      second: '2-digit',
-    });
-    wallClockFormats.set(timeZone, format);
-  }
-  const part: Record<string, string> = {};
-  for (const { type, value } of format.formatToParts(instant)) part[type] = value;
-  return `${part.year}-${part.month}-${part.day} ${part.hour}:${part.minute}:${part.second}`;
+  const t = wallClockAt(instant, timeZone);
+  const two = (n: number) => String(n).padStart(2, '0');
+  return `${t.year}-${two(t.month)}-${two(t.day)} ${two(t.hour)}:${two(t.minute)}:${two(t.second)}`;
 }
 
 /** The header of a column of times: "time_in_Pacific/Auckland", so whoever opens the file knows whose clock it is. */

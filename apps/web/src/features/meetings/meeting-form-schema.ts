@@ -1,7 +1,6 @@
-import { meetingSchema } from '@scrap-relay/shared';
+import { describeTimeZone, meetingSchema } from '@scrap-relay/shared';
 import { z } from 'zod';
 import { localInputToIso } from '../../utils/meetings.ts';
-import { describeTimeZone } from '../../utils/zoned-time.ts';
 
 /**
  * The API's meeting schema, fed from a datetime-local input: the form holds the wall-clock time the officer

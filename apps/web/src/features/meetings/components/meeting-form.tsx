@@ -1,4 +1,4 @@
-import type { MeetingInput, MeetingView } from '@scrap-relay/shared';
+import { describeTimeZone, type MeetingInput, type MeetingView } from '@scrap-relay/shared';
 import { useMemo } from 'react';
 import { get, useFormContext, useFormState, type FieldError } from 'react-hook-form';
 import { Button } from '../../../components/ui/button.tsx';
@@ -6,7 +6,6 @@ import { controlClass, FieldShell } from '../../../components/ui/field.tsx';
 import { Form, SubmitButton, TextField } from '../../../components/ui/form.tsx';
 import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { isoToLocalInput } from '../../../utils/meetings.ts';
-import { describeTimeZone } from '../../../utils/zoned-time.ts';
 import { meetingFormSchemaFor, type MeetingFormValues } from '../meeting-form-schema.ts';
 
 export interface MeetingFormProps {

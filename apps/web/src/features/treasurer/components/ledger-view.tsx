@@ -1,4 +1,4 @@
-import { formatMoney, ledgerQuerySchema, LEDGER_ENTRY_KINDS, type LedgerEntryView, type LedgerQuery } from '@scrap-relay/shared';
+import { describeTimeZone, formatMoney, LEDGER_ENTRY_KINDS, type LedgerEntryView, type LedgerQuery, ledgerQuerySchema } from '@scrap-relay/shared';
 import { useId, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Alert } from '../../../components/ui/alert.tsx';
@@ -10,7 +10,6 @@ import { paths } from '../../../config/paths.ts';
 import { cn } from '../../../utils/cn.ts';
 import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { formatCompactTimestamp } from '../../../utils/meetings.ts';
-import { describeTimeZone } from '../../../utils/zoned-time.ts';
 import { ledgerCsvHref, useLedger } from '../api/get-ledger.ts';
 import { LEDGER_KIND_LABELS, ledgerDirection, ledgerKindText } from '../utils/labels.ts';
 import { OpenDisputes } from './open-disputes.tsx';

@@ -1,7 +1,7 @@
 /**
  * Wall-clock time in a named (IANA) time zone, with Intl only. The guild keeps its meetings in its own zone,
  * which need not be the zone of the device someone reads them on, so nothing here uses the device's zone
- * unless asked to.
+ * unless asked to. Shared: the web app draws times with it, the API writes the ledger's CSV with it.
  */
 
 /** A date and time as a clock on the wall shows it: month 1–12, hour 0–23. */
@@ -37,7 +37,7 @@ function partsFormat(timeZone: string): Intl.DateTimeFormat {
 }
 
 /** Whether Intl knows the zone (a guild setting saved by an older build, or a typo, must not break a page). */
-export function isKnownTimeZone(timeZone: string): boolean {
+export function canShowTimeZone(timeZone: string): boolean {
   try {
     partsFormat(timeZone);
     return true;
@@ -46,7 +46,8 @@ export function isKnownTimeZone(timeZone: string): boolean {
   }
 }
 
-function fieldsAt(instant: Date, timeZone: string): WallTime & { second: number } {
+/** What a clock in `timeZone` shows at `instant`, to the second. */
+export function wallClockAt(instant: Date, timeZone: string): WallTime & { second: number } {
   const fields: Record<string, number> = {};
   for (const part of partsFormat(timeZone).formatToParts(instant)) {
     if (part.type !== 'literal') fields[part.type] = Number(part.value);
@@ -64,13 +65,13 @@ function fieldsAt(instant: Date, timeZone: string): WallTime & { second: number 
 
 /** What a clock in `timeZone` shows at `instant`. */
 export function wallTimeAt(instant: Date, timeZone: string): WallTime {
-  const { year, month, day, hour, minute } = fieldsAt(instant, timeZone);
+  const { year, month, day, hour, minute } = wallClockAt(instant, timeZone);
   return { year, month, day, hour, minute };
 }
 
 /** The zone's offset from UTC at `instant`, in minutes east of UTC (as written in "+01:00"): −480 for 8 hours behind. */
 export function offsetMinutesAt(instant: Date, timeZone: string): number {
-  const wall = fieldsAt(instant, timeZone);
+  const wall = wallClockAt(instant, timeZone);
   const asUtc = Date.UTC(wall.year, wall.month - 1, wall.day, wall.hour, wall.minute, wall.second);
   const wholeSeconds = Math.floor(instant.getTime() / 1000) * 1000;
   return Math.round((asUtc - wholeSeconds) / MINUTE);
