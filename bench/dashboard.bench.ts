@@ -18,6 +18,7 @@ import { BENCH_TREASURER, loadOrders } from './lib/orders-data.ts';
 import { listeningPid, parentPid } from './lib/processes.ts';
 import { BEHIND_TLS_PROXY, signIn } from './lib/session.ts';
 import { loadShelf } from './lib/shelf-data.ts';
+import { DEMO_GUILD } from '../apps/api/src/db/seed.ts';
 
 const CONNECTIONS = 10;
 const MEASURE_SECONDS = 8;
@@ -44,7 +45,7 @@ function endpoints(month: string): Endpoint[] {
   const dashboard = (period: 'month' | 'year' | 'all'): Endpoint => ({
     label: `dashboard, period=${period}`,
     path: `/api/dashboard?period=${period}`,
-    statements: (now) => dashboardStatements(`period=${period}`, now),
+    statements: (now) => dashboardStatements(`period=${period}`, now, DEMO_GUILD.timeZone),
     check: (body) => ((body as { figures?: { money?: unknown } }).figures?.money ? null : 'no money figures (not signed in as a treasurer?)'),
   });
   return [
@@ -54,7 +55,7 @@ function endpoints(month: string): Endpoint[] {
     {
       label: `statement, month=${month}`,
       path: `/api/reports/statement?month=${month}`,
-      statements: () => statementStatements(month),
+      statements: () => statementStatements(month, DEMO_GUILD.timeZone),
       check: (body) => {
         const statement = (body as { statement?: { closingBalances?: unknown[]; chargesMinor?: number } }).statement;
         return statement && (statement.chargesMinor ?? 0) > 0 ? null : 'a statement with no charges: the month holds no orders';

@@ -227,7 +227,7 @@ describe('office tallies', () => {
         expect(row!.fast, `${from} to ${to}, ${row!.n} reviews`).toBe(row!.full);
       }
       // The chart's monthly medians, worked out for all months at once in the dashboard's own statement, on the same times.
-      const { statement } = dashboardStatement({ period: 'all' }, new Date());
+      const { statement } = dashboardStatement({ period: 'all' }, new Date(), 'UTC');
       const [chart] = await sequelize.query<{ review_by_month: unknown }>(statement.text, { bind: statement.values, type: QueryTypes.SELECT, transaction });
       const [full] = await sequelize.query<{ by_month: unknown }>(
         `SELECT json_agg(json_build_object('month', month, 'medianHours', median_hours) ORDER BY month) AS by_month

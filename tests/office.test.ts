@@ -1,5 +1,6 @@
 import { processingCost } from '@scrap-relay/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { QueryTypes } from 'sequelize';
 import { Bundle, Guild, Meeting, Member, Order, Payout } from '../apps/api/src/db/models/index.ts';
 import { expireBundles, SHELF_WARNING_DAYS, warnBundlesLeavingShelf } from '../apps/api/src/jobs/scheduled.ts';
 import { createMember, listenOnApiPort, signedInClient, startTestApi, type Client, type TestApi } from './support/api.ts';
@@ -171,6 +172,73 @@ describe('the dashboard and the month-end statement', () => {
     expect(res.status).toBe(200);
     expect(res.body.report.review.approved).toBeGreaterThanOrEqual(4);
     expect(res.body.report.starter.claims).toBeGreaterThanOrEqual(1);
+  });
+});
+
+describe('the office’s days and months are the guild’s', () => {
+  /** The guild's settings with another time zone, saved as an admin saves them (which rebuilds the tallies). */
+  async function saveGuildZone(admin: Client, timeZone: string) {
+    const current = (await admin.get('/api/guild/settings')).body.settings;
+    const res = await admin.send('put', '/api/guild/settings', { ...current, timeZone });
+    expect(res.status).toBe(200);
+    expect(res.body.settings.timeZone).toBe(timeZone);
+  }
+  const statementOf = async (month: string) => (await treasurerClient.get(`/api/reports/statement?month=${month}`)).body.statement;
+  /** Card payments the ledger shows for 1–30 November 2025 (its days are the guild's). */
+  async function ledgerCardPaymentsInNovember(): Promise<number> {
+    const res = await treasurerClient.get('/api/ledger?from=2025-11-01&to=2025-11-30&kind=charge');
+    expect(res.status).toBe(200);
+    return res.body.items.reduce((sum: number, e: { amountMinor: number }) => sum - e.amountMinor, 0);
+  }
+  const tallyDifferences = async () =>
+    api.runtime.ctx.sequelize.query(
+      `WITH kept AS (SELECT grain, day, figure, key, sum(amount)::bigint AS amount FROM office_tallies GROUP BY 1, 2, 3, 4 HAVING sum(amount) <> 0)
+       (SELECT * FROM kept EXCEPT SELECT * FROM office_tallies_expected()) UNION ALL (SELECT * FROM office_tallies_expected() EXCEPT SELECT * FROM kept)`,
+      { type: QueryTypes.SELECT },
+    );
+
+  it('count a payment at 23:30 on 30 November in Los Angeles in November, as the ledger does, and move it when the zone changes', async () => {
+    const admin = await signedInClient(api.runtime.app, await createMember({ roles: ['member', 'admin'] }));
+    const original = (await admin.get('/api/guild/settings')).body.settings.timeZone as string;
+    await saveGuildZone(admin, 'America/Los_Angeles');
+    try {
+      const novemberBefore = await statementOf('2025-11');
+      const decemberBefore = await statementOf('2025-12');
+      const novemberDays = async () => (await treasurerClient.get('/api/dashboard?period=custom&from=2025-11-01&to=2025-11-30')).body.figures;
+      const daysBefore = await novemberDays();
+      // 1930 = 1200 + 730 postage, as in the known history above.
+      const order = await paidOrder(await shelved({ title: 'Last-evening sale', priceMinor: 1200, weightGrams: 454 }));
+      // Paid at 23:30 on 30 November in Los Angeles, which is 07:30 UTC on 1 December (Pacific Standard Time is
+      // UTC−8 from 2 November 2025, when summer time ended: the US rule of the first Sunday in November, from memory).
+      const paidAt = '2025-12-01T07:30:00Z';
+      await api.runtime.ctx.sequelize.query(`UPDATE orders SET paid_at = $1 WHERE id = $2`, { bind: [paidAt, order] });
+      await api.runtime.ctx.sequelize.query(`UPDATE ledger_entries SET created_at = $1 WHERE order_id = $2`, { bind: [paidAt, order] });
+
+      const november = await statementOf('2025-11');
+      expect(november.chargesMinor - novemberBefore.chargesMinor).toBe(1930);
+      expect((await statementOf('2025-12')).chargesMinor).toBe(decemberBefore.chargesMinor);
+      // The ledger filtered to 1–30 November and November's statement add up the same card payments.
+      expect(await ledgerCardPaymentsInNovember()).toBe(november.chargesMinor);
+      // The dashboard's custom days are the guild's too: 1 November begins at 07:00 UTC (still summer time, UTC−7).
+      const days = await novemberDays();
+      expect(days.period).toMatchObject({ from: '2025-11-01T07:00:00.000Z', to: '2025-12-01T08:00:00.000Z' });
+      expect(days.money.postagePaidMinor - daysBefore.money.postagePaidMinor).toBe(730);
+      expect(days.weightRehomedGrams - daysBefore.weightRehomedGrams).toBe(454);
+      expect(await tallyDifferences()).toEqual([]);
+
+      // On UTC the same payment falls on 1 December: the tallies are rebuilt with the setting, so it moves month.
+      await saveGuildZone(admin, 'UTC');
+      expect((await statementOf('2025-11')).chargesMinor).toBe(novemberBefore.chargesMinor);
+      expect((await statementOf('2025-12')).chargesMinor - decemberBefore.chargesMinor).toBe(1930);
+      expect(await ledgerCardPaymentsInNovember()).toBe((await statementOf('2025-11')).chargesMinor);
+      expect(await tallyDifferences()).toEqual([]);
+
+      await saveGuildZone(admin, 'America/Los_Angeles');
+      expect((await statementOf('2025-11')).chargesMinor).toBe(november.chargesMinor);
+      expect(await tallyDifferences()).toEqual([]);
+    } finally {
+      await saveGuildZone(admin, original);
+    }
   });
 });
 

@@ -21,13 +21,13 @@ function labelled(statement: NamedStatement): OfficeStatement {
   return { ...statement, label: `${statement.name}: ${folded.length > LABEL_LENGTH ? `${folded.slice(0, LABEL_LENGTH - 1)}…` : folded}` };
 }
 
-/** What GET /api/dashboard?<queryString> sends (the same statement whether or not the member sees the money figures). */
-export function dashboardStatements(queryString: string, now: Date): OfficeStatement[] {
+/** What GET /api/dashboard?<queryString> sends for a guild in `timeZone` (the same statement whether or not the member sees the money figures). */
+export function dashboardStatements(queryString: string, now: Date, timeZone: string): OfficeStatement[] {
   const query = dashboardQuerySchema.parse(Object.fromEntries(new URLSearchParams(queryString)));
-  return [labelled(dashboardStatement(query, now).statement)];
+  return [labelled(dashboardStatement(query, now, timeZone).statement)];
 }
 
 /** What GET /api/reports/statement?month=<month> sends. */
-export function statementStatements(month: string): OfficeStatement[] {
-  return [labelled(monthStatementStatement(month))];
+export function statementStatements(month: string, timeZone: string): OfficeStatement[] {
+  return [labelled(monthStatementStatement(month, timeZone))];
 }

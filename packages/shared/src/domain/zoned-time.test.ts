@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { canShowTimeZone, describeTimeZone, instantOfWallTime, offsetMinutesAt, shortZoneName, wallTimeAt } from './zoned-time.ts';
+import { canShowTimeZone, describeTimeZone, instantOfWallTime, offsetMinutesAt, shortZoneName, startOfDayIn, wallTimeAt } from './zoned-time.ts';
 
 /*
  * Offsets and summer-time dates below are facts of the IANA tz database (zones America/Los_Angeles,
@@ -97,5 +97,17 @@ describe('naming the zone', () => {
   it('knows which zones exist', () => {
     expect(canShowTimeZone(LA)).toBe(true);
     expect(canShowTimeZone('Ferncombe/Village_Hall')).toBe(false);
+  });
+});
+
+describe('the instant a day begins in a zone', () => {
+  it('is that day’s midnight there, on either side of a change of the clocks, and steps over months and years', () => {
+    // 1 November 2026 is the day summer time ends in Los Angeles (see above): it begins at 00:00 PDT, UTC−7.
+    expect(startOfDayIn(2026, 11, 1, LA).toISOString()).toBe('2026-11-01T07:00:00.000Z');
+    expect(startOfDayIn(2026, 11, 2, LA).toISOString()).toBe('2026-11-02T08:00:00.000Z');
+    expect(startOfDayIn(2026, 7, 12, 'Asia/Kolkata').toISOString()).toBe('2026-07-11T18:30:00.000Z');
+    // Month 13 is January of the next year; day 31 of November is 1 December.
+    expect(startOfDayIn(2026, 13, 1, 'UTC').toISOString()).toBe('2027-01-01T00:00:00.000Z');
+    expect(startOfDayIn(2026, 11, 31, LA).toISOString()).toBe('2026-12-01T08:00:00.000Z');
   });
 });

@@ -136,3 +136,18 @@ export function describeTimeZone(timeZone: string, at: Date = new Date()): strin
   const iana = timeZone.replaceAll('_', ' ');
   return generic && generic !== timeZone && generic !== iana ? `${generic} (${iana})` : iana;
 }
+
+/**
+ * The instant a calendar day begins in `timeZone`: its midnight, or the first hour that happens when the clocks
+ * skip midnight (as PostgreSQL reads a skipped time). Month and day may run over (month 13 is January of the
+ * next year, day 32 the 1st or 2nd of the next month), so callers can step by months and days.
+ */
+export function startOfDayIn(year: number, month: number, day: number, timeZone: string): Date {
+  const date = new Date(Date.UTC(year, month - 1, day));
+  const wall = { year: date.getUTCFullYear(), month: date.getUTCMonth() + 1, day: date.getUTCDate(), minute: 0 };
+  for (let hour = 0; hour < 24; hour++) {
+    const at = instantOfWallTime({ ...wall, hour }, timeZone);
+    if (at) return at;
+  }
+  throw new RangeError(`No hour of ${date.toISOString().slice(0, 10)} happens in ${timeZone}.`);
+}

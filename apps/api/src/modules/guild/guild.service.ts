@@ -4,7 +4,7 @@ import type { InferCreationAttributes } from 'sequelize';
 import { modelColumns } from '../../db/model-columns.ts';
 import { Guild } from '../../db/models/index.ts';
 import { runNamedStatement, type NamedStatement } from '../../db/named-statement.ts';
-import { AppError } from '../../errors/index.ts';
+import { AppError, unprocessable } from '../../errors/index.ts';
 
 const CODE_ALPHABET = 'ABCDEFGHJKLMNPQRSTUVWXYZ23456789';
 
@@ -60,7 +60,21 @@ export async function updateSettings(input: GuildSettings): Promise<GuildSetting
         });
       }
     }
+    const zoneChanged = (settings.timeZone ?? 'UTC') !== guildTimeZone(guild);
+    if (zoneChanged) {
+      // The office's days are read by PostgreSQL: a zone its time zone data lacks would stop every write being tallied.
+      const [[{ known }]] = (await Guild.sequelize!.query(`SELECT EXISTS (SELECT 1 FROM pg_timezone_names WHERE name = $1) AS known`, {
+        bind: [settings.timeZone ?? 'UTC'],
+        transaction,
+      })) as unknown as [[{ known: boolean }]];
+      if (!known) {
+        throw unprocessable(`The database does not know the time zone ${settings.timeZone}.`, { timeZone: 'Choose another time zone from the list.' });
+      }
+    }
     await guild.update({ name, town, currency, defaultUnits, settings }, { transaction });
+    // The office's days and months are the guild's: bucket every tally by the new zone in this same transaction,
+    // so no figure ever mixes two zones (office_tallies_rebuild, migration 20261204030000, says how it locks).
+    if (zoneChanged) await Guild.sequelize!.query('SELECT office_tallies_rebuild()', { transaction });
     return settingsOf(guild);
   });
 }

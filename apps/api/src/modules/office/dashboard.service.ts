@@ -1,26 +1,35 @@
 import type { Sequelize } from 'sequelize';
-import type { DashboardFigures, DashboardQuery } from '@scrap-relay/shared';
+import { startOfDayIn, wallTimeAt, type DashboardFigures, type DashboardQuery } from '@scrap-relay/shared';
 import { AppError } from '../../errors/index.ts';
 import { runNamedStatement, type NamedStatement } from '../../db/named-statement.ts';
 import { decimalAmount, IN_CURRENCY_UNITS } from '../ledger/csv.ts';
+import { guildTimeZone, loadGuild } from '../guild/guild.service.ts';
 
-/** The period as [from, to) timestamps; null ends are open. Months and years are the calendar's, in UTC. */
-export function periodBounds(q: DashboardQuery, now: Date): { from: Date | null; to: Date | null; label: string } {
+/**
+ * The period as [from, to) timestamps; null ends are open. Days, months and years are the guild's calendar, in its
+ * time zone (the days office_tallies are kept in, migration 20261204030000), so a month here is the statement's month.
+ */
+export function periodBounds(q: DashboardQuery, now: Date, timeZone: string): { from: Date | null; to: Date | null; label: string } {
   if (q.period === 'all') return { from: null, to: null, label: 'All time' };
   if (q.period === 'custom') {
-    const to = new Date(`${q.to!}T00:00:00Z`);
-    to.setUTCDate(to.getUTCDate() + 1);
-    return { from: new Date(`${q.from!}T00:00:00Z`), to, label: `${q.from} to ${q.to}` };
+    const [fy, fm, fd] = q.from!.split('-').map(Number) as [number, number, number];
+    const [ty, tm, td] = q.to!.split('-').map(Number) as [number, number, number];
+    return { from: startOfDayIn(fy, fm, fd, timeZone), to: startOfDayIn(ty, tm, td + 1, timeZone), label: `${q.from} to ${q.to}` };
   }
-  const y = now.getUTCFullYear();
-  if (q.period === 'year') return { from: new Date(Date.UTC(y, 0, 1)), to: new Date(Date.UTC(y + 1, 0, 1)), label: `${y}` };
-  const m = now.getUTCMonth();
-  return { from: new Date(Date.UTC(y, m, 1)), to: new Date(Date.UTC(y, m + 1, 1)), label: new Date(Date.UTC(y, m, 1)).toISOString().slice(0, 7) };
+  const { year: y, month: m } = wallTimeAt(now, timeZone);
+  if (q.period === 'year') return { from: startOfDayIn(y, 1, 1, timeZone), to: startOfDayIn(y + 1, 1, 1, timeZone), label: `${y}` };
+  return { from: startOfDayIn(y, m, 1, timeZone), to: startOfDayIn(y, m + 1, 1, timeZone), label: `${y}-${String(m).padStart(2, '0')}` };
 }
 
-/** The first day (UTC) of the month eleven months before now's: where the twelve-month charts start. */
-function chartStart(now: Date): string {
-  return new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth() - 11, 1)).toISOString().slice(0, 10);
+/** The period of a dashboard query in the guild's calendar. */
+export async function guildPeriodBounds(q: DashboardQuery, now: Date): Promise<ReturnType<typeof periodBounds>> {
+  return periodBounds(q, now, guildTimeZone(await loadGuild()));
+}
+
+/** The first day of the guild's month eleven months before now's: where the twelve-month charts start. */
+function chartStart(now: Date, timeZone: string): string {
+  const { year, month } = wallTimeAt(now, timeZone);
+  return new Date(Date.UTC(year, month - 12, 1)).toISOString().slice(0, 10);
 }
 
 interface FiguresRow {
@@ -41,7 +50,7 @@ interface FiguresRow {
  * exact in the same transaction as each change), so a period is a sum over at most a few
  * hundred rows whatever the guild's history. The rule is the one the figures always had: a
  * unit is rehomed when its order is paid (or confirmed free) and not cancelled or refunded,
- * or when a starter claim for it stands; dated when paid or claimed, by UTC day.
+ * or when a starter claim for it stands; dated when paid or claimed, by the guild's day (its time zone).
  * New quilters served (distinct members) and bundles waiting for review are counted live
  * from small partial indexes; the median review time comes from review counts by bucket and by
  * tenth of an hour (office_review_median_hours, migration 20261202130000). The twelve monthly
@@ -51,10 +60,10 @@ interface FiguresRow {
  * where the middle two round to different tenths, the last review time of the lower tenth and
  * the first of the higher, interpolated as percentile_cont does.
  */
-export function dashboardStatement(q: DashboardQuery, now: Date): { statement: NamedStatement; period: DashboardFigures['period'] } {
-  const { from, to, label } = periodBounds(q, now);
+export function dashboardStatement(q: DashboardQuery, now: Date, timeZone: string): { statement: NamedStatement; period: DashboardFigures['period'] } {
+  const { from, to, label } = periodBounds(q, now, timeZone);
   return {
-    statement: { name: 'office-dashboard-figures', text: DASHBOARD_SQL, values: [from, to, chartStart(now)] },
+    statement: { name: 'office-dashboard-figures', text: DASHBOARD_SQL, values: [from, to, chartStart(now, timeZone)] },
     period: { from: from?.toISOString() ?? null, to: to?.toISOString() ?? null, label },
   };
 }
@@ -84,10 +93,10 @@ const DASHBOARD_SQL = `SELECT
                                 FROM unnest(ARRAY[
                                   (SELECT max(extract(epoch FROM reviewed_at - submitted_at)::double precision) FROM bundles
                                    WHERE review_time_tenths(submitted_at, reviewed_at) = lo AND reviewed_at IS NOT NULL AND submitted_at IS NOT NULL
-                                     AND reviewed_at >= day::timestamp AT TIME ZONE 'UTC' AND reviewed_at < (day + interval '1 month') AT TIME ZONE 'UTC'),
+                                     AND reviewed_at >= day::timestamp AT TIME ZONE office_zone() AND reviewed_at < (day + interval '1 month') AT TIME ZONE office_zone()),
                                   (SELECT min(extract(epoch FROM reviewed_at - submitted_at)::double precision) FROM bundles
                                    WHERE review_time_tenths(submitted_at, reviewed_at) = hi AND reviewed_at IS NOT NULL AND submitted_at IS NOT NULL
-                                     AND reviewed_at >= day::timestamp AT TIME ZONE 'UTC' AND reviewed_at < (day + interval '1 month') AT TIME ZONE 'UTC')
+                                     AND reviewed_at >= day::timestamp AT TIME ZONE office_zone() AND reviewed_at < (day + interval '1 month') AT TIME ZONE office_zone())
                                 ]) AS x) END AS hours
               FROM (SELECT p.day, min(t.tenth) AS lo, max(t.tenth) AS hi
                     FROM (SELECT day, bucket, n, sum(n) OVER (PARTITION BY day ORDER BY bucket) - n AS below, sum(n) OVER (PARTITION BY day) AS total
@@ -105,7 +114,7 @@ const DASHBOARD_SQL = `SELECT
                     GROUP BY p.day) mid) r) AS review_by_month`;
 
 export async function dashboardFigures(sequelize: Sequelize, q: DashboardQuery, now: Date, withMoney: boolean): Promise<DashboardFigures> {
-  const { statement, period } = dashboardStatement(q, now);
+  const { statement, period } = dashboardStatement(q, now, guildTimeZone(await loadGuild()));
   const [row] = await runNamedStatement<FiguresRow>(sequelize, statement);
   if (row!.currency === null) throw new AppError(503, 'service_unavailable', 'The guild has not been set up yet: run the migrations and the set-up.');
   const tallies = row!.tallies ?? [];

@@ -6,7 +6,7 @@ import { parseInput } from '../../middleware/validate.ts';
 import { authorize, can } from '../../policies/index.ts';
 import type { AppContext } from '../../context.ts';
 import { actorOf } from '../members/members.presenter.ts';
-import { dashboardFigures, dashboardRows, periodBounds } from './dashboard.service.ts';
+import { dashboardFigures, dashboardRows, guildPeriodBounds } from './dashboard.service.ts';
 import { librarianReport, monthStatement } from './reports.service.ts';
 import { AMOUNT_COLUMN, decimalAmount } from '../ledger/csv.ts';
 
@@ -58,7 +58,7 @@ export function officeRoutes(ctx: AppContext): Router {
   router.get('/reports/librarian', async (req, res) => {
     authorize(actorOf(requireMember(req)), 'starter.manage');
     const query = parseInput(dashboardQuerySchema, req.query);
-    const { from, to } = periodBounds(query, ctx.now());
+    const { from, to } = await guildPeriodBounds(query, ctx.now());
     res.json({ report: await librarianReport(ctx.sequelize, from, to, ctx.now()) });
   });
 

@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { MonthStatement } from '@scrap-relay/shared';
+import { startOfDayIn, type MonthStatement } from '@scrap-relay/shared';
+import { guildTimeZone, loadGuild } from '../guild/guild.service.ts';
 import { AppError } from '../../errors/index.ts';
 import { runNamedStatement, type NamedStatement } from '../../db/named-statement.ts';
 
@@ -29,11 +30,15 @@ const STATEMENT_SQL = `SELECT
               HAVING sum(r.amount) <> 0) b
         JOIN members m ON m.id = substring(b.account from 8)::uuid) AS balances`;
 
-/** The statement GET /api/reports/statement sends for a month (YYYY-MM), named (see db/named-statement.ts). */
-export function monthStatementStatement(month: string): NamedStatement {
-  const from = new Date(`${month}-01T00:00:00Z`);
-  const to = new Date(Date.UTC(from.getUTCFullYear(), from.getUTCMonth() + 1, 1));
-  return { name: 'office-month-statement', text: STATEMENT_SQL, values: [from, to, to.toISOString().slice(0, 10)] };
+/**
+ * The statement GET /api/reports/statement sends for a month (YYYY-MM) of the guild's calendar, named (see
+ * db/named-statement.ts): from its first midnight in the guild's time zone to the next month's.
+ */
+export function monthStatementStatement(month: string, timeZone: string): NamedStatement {
+  const [year, m] = month.split('-').map(Number) as [number, number];
+  const next = new Date(Date.UTC(year, m, 1)).toISOString().slice(0, 10);
+  const values = [startOfDayIn(year, m, 1, timeZone), startOfDayIn(year, m + 1, 1, timeZone), next];
+  return { name: 'office-month-statement', text: STATEMENT_SQL, values };
 }
 
 /**
@@ -45,7 +50,7 @@ export function monthStatementStatement(month: string): NamedStatement {
  * currency comes in the same statement.
  */
 export async function monthStatement(sequelize: Sequelize, month: string): Promise<MonthStatement> {
-  const [row] = await runNamedStatement<StatementRow>(sequelize, monthStatementStatement(month));
+  const [row] = await runNamedStatement<StatementRow>(sequelize, monthStatementStatement(month, guildTimeZone(await loadGuild())));
   if (row!.currency === null) throw new AppError(503, 'service_unavailable', 'The guild has not been set up yet: run the migrations and the set-up.');
   const total = (key: string) => row!.totals?.find((t) => t.key === key)?.amount ?? 0;
   const balances = row!.balances ?? [];

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { gramsInChartUnit, lastTwelveMonths, reviewTrend, shelfByCut, shelfByValue, weightByMonth, formatHours } from './chart-data.ts';
-import { csvHref, periodFromSearch, periodToSearch } from './period.ts';
+import { csvHref, guildMonthOf, periodFromSearch, periodToSearch } from './period.ts';
 
 const now = new Date('2026-03-15T10:00:00Z');
 
@@ -10,6 +10,13 @@ describe('weight rehomed per month', () => {
     expect(months).toHaveLength(12);
     expect(months[0]).toBe('2025-04');
     expect(months.at(-1)).toBe('2026-03');
+  });
+
+  it('counts months on the guild’s calendar: 07:30 UTC on 1 December is still November in Los Angeles (UTC−8 then, from memory)', () => {
+    const lateNovember = new Date('2025-12-01T07:30:00Z');
+    expect(lastTwelveMonths(lateNovember, 'America/Los_Angeles').at(-1)).toBe('2025-11');
+    expect(lastTwelveMonths(lateNovember, 'UTC').at(-1)).toBe('2025-12');
+    expect(guildMonthOf(lateNovember, 'America/Los_Angeles')).toBe('2025-11');
   });
 
   it('stacks by offer and fills quiet months with zeros', () => {

@@ -9,15 +9,16 @@ import {
   type Offer,
   type UnitSystem,
 } from '@scrap-relay/shared';
-import { formatShortMonth } from './period.ts';
+import { formatShortMonth, guildMonthOf } from './period.ts';
 
 type Charts = DashboardFigures['charts'];
 
-/** The twelve calendar months (UTC, as the API groups them) ending with the month `now` falls in, oldest first. */
-export function lastTwelveMonths(now: Date): string[] {
+/** The twelve months of the guild's calendar (its time zone, as the API groups them) ending with the month `now` falls in, oldest first. */
+export function lastTwelveMonths(now: Date, timeZone = 'UTC'): string[] {
+  const [year, month] = guildMonthOf(now, timeZone).split('-').map(Number) as [number, number];
   const months: string[] = [];
   for (let back = 11; back >= 0; back--) {
-    months.push(new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth() - back, 1)).toISOString().slice(0, 7));
+    months.push(new Date(Date.UTC(year, month - 1 - back, 1)).toISOString().slice(0, 7));
   }
   return months;
 }
@@ -30,8 +31,8 @@ export interface WeightMonth {
 }
 
 /** Weight rehomed per month and offer, every month present (a quiet month is a zero, not a gap). */
-export function weightByMonth(rows: Charts['weightByMonth'], now: Date): WeightMonth[] {
-  return lastTwelveMonths(now).map((month) => {
+export function weightByMonth(rows: Charts['weightByMonth'], now: Date, timeZone = 'UTC'): WeightMonth[] {
+  return lastTwelveMonths(now, timeZone).map((month) => {
     const grams = Object.fromEntries(OFFERS.map((offer) => [offer, 0])) as Record<Offer, number>;
     for (const row of rows) {
       if (row.month === month && (OFFERS as readonly string[]).includes(row.offer)) grams[row.offer as Offer] += row.grams;
@@ -78,8 +79,8 @@ export interface ReviewMonth {
   medianHours: number | null;
 }
 
-export function reviewTrend(rows: Charts['reviewHoursByMonth'], now: Date): ReviewMonth[] {
-  return lastTwelveMonths(now).map((month) => ({
+export function reviewTrend(rows: Charts['reviewHoursByMonth'], now: Date, timeZone = 'UTC'): ReviewMonth[] {
+  return lastTwelveMonths(now, timeZone).map((month) => ({
     month,
     label: formatShortMonth(month),
     medianHours: rows.find((row) => row.month === month)?.medianHours ?? null,

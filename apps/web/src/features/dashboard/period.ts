@@ -1,4 +1,4 @@
-import { dashboardQuerySchema, type DashboardQuery } from '@scrap-relay/shared';
+import { dashboardQuerySchema, wallTimeAt, type DashboardQuery } from '@scrap-relay/shared';
 import type { z } from 'zod';
 
 export type Period = DashboardQuery['period'];
@@ -38,8 +38,11 @@ export function periodToSearch(query: DashboardQuery): URLSearchParams {
 
 export const csvHref = (path: '/api/dashboard.csv' | '/api/reports/statement.csv', params: URLSearchParams): string => `${path}?${params.toString()}`;
 
-/** "2026-03" for the month a date falls in, in UTC — the statement's months are the ledger's, which are UTC. */
-export const utcMonthOf = (date: Date): string => date.toISOString().slice(0, 7);
+/** "2026-03" for the month a date falls in on the guild's calendar (its time zone), which the statement and dashboard count in. */
+export function guildMonthOf(date: Date, timeZone: string): string {
+  const { year, month } = wallTimeAt(date, timeZone);
+  return `${year}-${String(month).padStart(2, '0')}`;
+}
 
 const monthFormat = new Intl.DateTimeFormat('en', { month: 'long', year: 'numeric', timeZone: 'UTC' });
 const shortMonthFormat = new Intl.DateTimeFormat('en', { month: 'short', year: 'numeric', timeZone: 'UTC' });

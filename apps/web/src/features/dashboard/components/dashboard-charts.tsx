@@ -2,6 +2,7 @@ import { formatWeight, OFFER_LABELS, OFFERS, type DashboardFigures, type Offer, 
 import { Bar, BarChart, CartesianGrid, Legend, Line, LineChart, Tooltip, XAxis, YAxis } from 'recharts';
 import { chartWeightUnit, formatHours, gramsInChartUnit, reviewTrend, shelfByCut, shelfByValue, weightByMonth } from '../chart-data.ts';
 import { ChartFigure, ChartTable } from './chart-figure.tsx';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 
 /*
  * Series colours from the app's palette, picked so they also differ in lightness
@@ -26,18 +27,19 @@ export interface DashboardChartsProps {
 
 /** The dashboard's four charts; loaded on its own (React.lazy) so the chart library stays out of other pages. */
 export default function DashboardCharts({ charts, units, now = new Date() }: DashboardChartsProps) {
+  const timeZone = useGuildTimeZone();
   return (
     <div className="grid gap-6 lg:grid-cols-2">
-      <WeightChart charts={charts} units={units} now={now} />
-      <ReviewChart charts={charts} now={now} />
+      <WeightChart charts={charts} units={units} now={now} timeZone={timeZone} />
+      <ReviewChart charts={charts} now={now} timeZone={timeZone} />
       <ShelfValueChart charts={charts} />
       <ShelfCutChart charts={charts} />
     </div>
   );
 }
 
-function WeightChart({ charts, units, now }: { charts: DashboardFigures['charts']; units: UnitSystem; now: Date }) {
-  const months = weightByMonth(charts.weightByMonth, now);
+function WeightChart({ charts, units, now, timeZone }: { charts: DashboardFigures['charts']; units: UnitSystem; now: Date; timeZone: string }) {
+  const months = weightByMonth(charts.weightByMonth, now, timeZone);
   const unit = chartWeightUnit(units);
   const data = months.map((m) => ({ label: m.label, ...Object.fromEntries(OFFERS.map((offer) => [offer, gramsInChartUnit(m.grams[offer], units)])) }));
   const total = months.reduce((sum, m) => sum + m.totalGrams, 0);
@@ -84,8 +86,8 @@ function WeightChart({ charts, units, now }: { charts: DashboardFigures['charts'
   );
 }
 
-function ReviewChart({ charts, now }: { charts: DashboardFigures['charts']; now: Date }) {
-  const trend = reviewTrend(charts.reviewHoursByMonth, now);
+function ReviewChart({ charts, now, timeZone }: { charts: DashboardFigures['charts']; now: Date; timeZone: string }) {
+  const trend = reviewTrend(charts.reviewHoursByMonth, now, timeZone);
   const known = trend.filter((m): m is typeof m & { medianHours: number } => m.medianHours !== null);
   const latest = known.at(-1);
   const summary = latest

@@ -1,10 +1,11 @@
-import { formatMoney, formatWeight, OFFER_LABELS, type DashboardFigures, type DashboardQuery, type Offer, type UnitSystem } from '@scrap-relay/shared';
+import { describeTimeZone, formatMoney, formatWeight, OFFER_LABELS, type DashboardFigures, type DashboardQuery, type Offer, type UnitSystem } from '@scrap-relay/shared';
 import { lazy, Suspense, type ReactNode } from 'react';
 import { Panel } from '../../../components/layouts/page.tsx';
 import { Alert } from '../../../components/ui/alert.tsx';
 import { Button, buttonClass } from '../../../components/ui/button.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { formatCalendarDate } from '../../../utils/format.ts';
+import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { useDashboard } from '../api/get-dashboard.ts';
 import { formatHours } from '../chart-data.ts';
 import { csvHref, formatMonth, periodToSearch } from '../period.ts';
@@ -29,6 +30,7 @@ export interface DashboardViewProps {
 /** What the exchange has done in a period: the figures (money only for officers), the charts, and the CSV. */
 export function DashboardView({ query, onQueryChange, units }: DashboardViewProps) {
   const dashboard = useDashboard(query);
+  const timeZone = useGuildTimeZone();
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-end justify-between gap-4 print:hidden">
@@ -42,6 +44,7 @@ export function DashboardView({ query, onQueryChange, units }: DashboardViewProp
           </Button>
         </div>
       </div>
+      <p className="text-thread-soft">Days, months and years run from midnight to midnight in the guild’s time zone, {describeTimeZone(timeZone)}.</p>
       {dashboard.isPending ? <Loading label="Loading the figures…" /> : null}
       {dashboard.isError ? (
         <Alert tone="error" title="The figures could not be loaded">

@@ -1,4 +1,4 @@
-import { formatMoney, statementQuerySchema, type MonthStatement } from '@scrap-relay/shared';
+import { describeTimeZone, formatMoney, statementQuerySchema, type MonthStatement } from '@scrap-relay/shared';
 import { useState } from 'react';
 import { Panel } from '../../../components/layouts/page.tsx';
 import { Alert } from '../../../components/ui/alert.tsx';
@@ -8,7 +8,7 @@ import { Loading } from '../../../components/ui/loading.tsx';
 import { formatDate } from '../../../utils/format.ts';
 import { useGuildTimeZone } from '../../../utils/guild-session.ts';
 import { useStatement } from '../api/get-statement.ts';
-import { csvHref, formatMonth, utcMonthOf } from '../period.ts';
+import { csvHref, formatMonth, guildMonthOf } from '../period.ts';
 
 export interface StatementViewProps {
   month: string;
@@ -49,6 +49,7 @@ export function StatementView({ month, onMonthChange, guildName }: StatementView
 function MonthPicker({ month, onChange }: { month: string; onChange: (month: string) => void }) {
   const [draft, setDraft] = useState(month);
   const [error, setError] = useState<string | undefined>();
+  const timeZone = useGuildTimeZone();
   const show = () => {
     const parsed = statementQuerySchema.safeParse({ month: draft });
     if (!parsed.success) {
@@ -66,8 +67,8 @@ function MonthPicker({ month, onChange }: { month: string; onChange: (month: str
         show();
       }}
     >
-      <FieldShell label="Month" hint="Months are the ledger’s, in UTC." error={error} className="w-full sm:w-56">
-        {(control) => <Input {...control} type="month" value={draft} max={utcMonthOf(new Date())} placeholder="2026-03" onChange={(event) => setDraft(event.target.value)} />}
+      <FieldShell label="Month" hint={`Months run from midnight to midnight in the guild’s time zone, ${describeTimeZone(timeZone)}.`} error={error} className="w-full sm:w-72">
+        {(control) => <Input {...control} type="month" value={draft} max={guildMonthOf(new Date(), timeZone)} placeholder="2026-03" onChange={(event) => setDraft(event.target.value)} />}
       </FieldShell>
       <Button type="submit">Show the statement</Button>
     </form>
@@ -76,8 +77,8 @@ function MonthPicker({ month, onChange }: { month: string; onChange: (month: str
 
 function Statement({ statement: s, guildName }: { statement: MonthStatement; guildName: string }) {
   const money = (minor: number) => formatMoney(minor, s.currency);
-  const inProgress = s.month === utcMonthOf(new Date());
   const timeZone = useGuildTimeZone();
+  const inProgress = s.month === guildMonthOf(new Date(), timeZone);
   const lines: Array<[string, number, string]> = [
     ['Card payments received', s.chargesMinor, 'Everything buyers paid: prices and postage.'],
     ['Refunds to buyers', s.refundsMinor, 'Paid back on cancelled or refunded orders.'],
@@ -150,7 +151,8 @@ function Statement({ statement: s, guildName }: { statement: MonthStatement; gui
         )}
       </Panel>
       <p className="text-thread-soft">
-        Every figure is the sum of the ledger’s entries dated in the month (UTC); the balances add up every seller’s entries to the month’s end. The
+        Every figure is the sum of the ledger’s entries dated in the month in the guild’s time zone, {describeTimeZone(timeZone)}, the same days the
+        ledger filters by; the balances add up every seller’s entries to the month’s end. The
         guild is the merchant: fees and refunds follow the guild’s own rules and local law.
       </p>
     </div>
