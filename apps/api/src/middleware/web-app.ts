@@ -35,7 +35,15 @@ const SESSION_LINK = '</api/session>; rel=preload; as=fetch; crossorigin';
 export function webApp(dist: string, { signedIn, shelfPage, logger }: WebAppOptions): Router {
   const router = express.Router();
   const session = express.Router().use(signedIn);
-  const withSession: RequestHandler = (req, res, next) => (hasSessionCookie(req) ? session(req, res, next) : next());
+  // A session that cannot be read (PostgreSQL restarting) costs only the head start: the page is still served,
+  // and the app shows its own word about the service once it asks for the session itself.
+  const withSession: RequestHandler = (req, res, next) => {
+    if (!hasSessionCookie(req)) return next();
+    session(req, res, (err?: unknown) => {
+      if (err) logger.warn({ err }, 'could not read the session for the shelf page’s head start');
+      next();
+    });
+  };
   const manifest = readManifest(dist);
   const shelfModules = manifest ? routeOnlyFiles(manifest, SHELF_ROUTE_MODULE) : [];
   const indexFile = path.join(dist, 'index.html');
