@@ -71,10 +71,9 @@ export async function updateSettings(input: GuildSettings): Promise<GuildSetting
         throw unprocessable(`The database does not know the time zone ${settings.timeZone}.`, { timeZone: 'Choose another time zone from the list.' });
       }
     }
+    // A new zone rebuilds the office's tallies in this same transaction (the guild's trigger, migration
+    // 20261204040000), so no figure ever mixes two zones.
     await guild.update({ name, town, currency, defaultUnits, settings }, { transaction });
-    // The office's days and months are the guild's: bucket every tally by the new zone in this same transaction,
-    // so no figure ever mixes two zones (office_tallies_rebuild, migration 20261204030000, says how it locks).
-    if (zoneChanged) await Guild.sequelize!.query('SELECT office_tallies_rebuild()', { transaction });
     return settingsOf(guild);
   });
 }
