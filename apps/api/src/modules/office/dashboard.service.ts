@@ -63,7 +63,7 @@ interface FiguresRow {
 export function dashboardStatement(q: DashboardQuery, now: Date, timeZone: string): { statement: NamedStatement; period: DashboardFigures['period'] } {
   const { from, to, label } = periodBounds(q, now, timeZone);
   return {
-    statement: { name: 'office-dashboard-figures', text: DASHBOARD_SQL, values: [from, to, chartStart(now, timeZone)] },
+    statement: { name: 'office-dashboard-figures', text: DASHBOARD_SQL, values: [from, to, chartStart(now, timeZone), timeZone] },
     period: { from: from?.toISOString() ?? null, to: to?.toISOString() ?? null, label },
   };
 }
@@ -93,10 +93,10 @@ const DASHBOARD_SQL = `SELECT
                                 FROM unnest(ARRAY[
                                   (SELECT max(extract(epoch FROM reviewed_at - submitted_at)::double precision) FROM bundles
                                    WHERE review_time_tenths(submitted_at, reviewed_at) = lo AND reviewed_at IS NOT NULL AND submitted_at IS NOT NULL
-                                     AND reviewed_at >= day::timestamp AT TIME ZONE office_zone() AND reviewed_at < (day + interval '1 month') AT TIME ZONE office_zone()),
+                                     AND reviewed_at >= day::timestamp AT TIME ZONE $4::text AND reviewed_at < (day + interval '1 month') AT TIME ZONE $4::text),
                                   (SELECT min(extract(epoch FROM reviewed_at - submitted_at)::double precision) FROM bundles
                                    WHERE review_time_tenths(submitted_at, reviewed_at) = hi AND reviewed_at IS NOT NULL AND submitted_at IS NOT NULL
-                                     AND reviewed_at >= day::timestamp AT TIME ZONE office_zone() AND reviewed_at < (day + interval '1 month') AT TIME ZONE office_zone())
+                                     AND reviewed_at >= day::timestamp AT TIME ZONE $4::text AND reviewed_at < (day + interval '1 month') AT TIME ZONE $4::text)
                                 ]) AS x) END AS hours
               FROM (SELECT p.day, min(t.tenth) AS lo, max(t.tenth) AS hi
                     FROM (SELECT day, bucket, n, sum(n) OVER (PARTITION BY day ORDER BY bucket) - n AS below, sum(n) OVER (PARTITION BY day) AS total
