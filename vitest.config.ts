@@ -7,6 +7,16 @@ import { defineConfig } from 'vitest/config';
  */
 export default defineConfig({
   test: {
+    /*
+     * tests/database-restart.test.ts restarts PostgreSQL on purpose, which ends every connection with code 57P01.
+     * pg-boss 10.4 marks a finished job complete without handling that call's promise (its src/manager.js), so a
+     * job finishing at that moment leaves one unhandled rejection. The API logs it and carries on (server.ts), and
+     * the job runs again once it is back; only that error, from pg-boss, is not counted against the run.
+     */
+    onUnhandledError(error) {
+      const { code, stack } = error as { code?: unknown; stack?: unknown };
+      if (code === '57P01' && String(stack ?? '').includes('pg-boss')) return false;
+    },
     projects: [
       {
         test: {
