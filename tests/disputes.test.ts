@@ -37,6 +37,12 @@ const CHARGE = 1930;
 const FEE = 120;
 const CREDIT = 1810;
 const PROCESSING = 86;
+/** The stand-in's dispute fee when none is named: $15.00, Stripe's published US dispute fee (from memory). */
+const DISPUTE_FEE = 1500;
+const feeEntries = (amount: number): [string, string, number, string | null][] => [
+  ['dispute_fee', 'processor', amount, null],
+  ['dispute_fee', 'guild', -amount, null],
+];
 
 beforeAll(async () => {
   api = await startTestApi();
@@ -79,8 +85,8 @@ async function disputed(sessionId: string, reason = 'product_not_received'): Pro
   return opened.body.id;
 }
 
-async function decided(disputeId: string, outcome: 'won' | 'lost') {
-  expect((await closeDispute(disputeId, outcome)).status).toBe(200);
+async function decided(disputeId: string, outcome: 'won' | 'lost', feeReturned?: boolean) {
+  expect((await closeDispute(disputeId, outcome, feeReturned)).status).toBe(200);
   return deliveredEvent('charge.dispute.closed', disputeId);
 }
 
@@ -124,10 +130,17 @@ describe('a buyer’s bank disputes a card payment', () => {
     expect(mail.text).toContain(`evidence by ${new Intl.DateTimeFormat('en-US', { timeZone: zone, dateStyle: 'full' }).format(row.evidenceDueBy!)}`);
     expect(mail.text).toContain('tracking number FERN-4410');
     expect(mail.text).toContain('in the card service’s own dashboard, not in Scrap Relay');
+    expect(mail.text).toContain('The card service charged a dispute fee of $15.00: it is in the ledger as the guild’s cost.');
+    // The card service's fee came with the dispute: booked at once, the guild's cost, the seller's credit untouched.
+    expect(await orderEntries(order.id)).toEqual([...ledgerBefore, ...feeEntries(DISPUTE_FEE)]);
     // The seller's title is theirs: escaped in the HTML, never markup.
     expect(mail.html).toContain('Dark &amp; light &lt;fat quarters&gt;');
     expect(mail.html).not.toContain('<fat quarters>');
     await waitForMail({ to: otherTreasurer.email, subjectIncludes: `disputing the payment for order ${order.reference}` });
+    // The seller hears too: not the bank's reasons, but to keep the proof of posting.
+    const toSeller = await waitForMail({ to: seller.email, subjectIncludes: `questioning the payment for order ${order.reference}` });
+    expect(toSeller.text).toContain('keep your proof that the bag went out');
+    expect(toSeller.text).not.toContain('never arrived');
 
     const forTreasurer = (await treasurerClient.get(`/api/orders/${order.id}`)).body.order;
     expect(forTreasurer.dispute).toEqual({
@@ -137,11 +150,12 @@ describe('a buyer’s bank disputes a card payment', () => {
       reason: 'product_not_received',
       openedAt: row.openedAt.toISOString(),
       evidenceDueBy: row.evidenceDueBy!.toISOString(),
+      feeMinor: DISPUTE_FEE,
       closedAt: null,
     });
     expect(forTreasurer.abilities.refund).toBe(false);
     const forSeller = (await sellerClient.get(`/api/orders/${order.id}`)).body.order;
-    expect(forSeller.dispute).toEqual({ stage: 'open', status: null, amountMinor: null, reason: null, evidenceDueBy: null, openedAt: row.openedAt.toISOString(), closedAt: null });
+    expect(forSeller.dispute).toEqual({ stage: 'open', status: null, amountMinor: null, reason: null, evidenceDueBy: null, feeMinor: null, openedAt: row.openedAt.toISOString(), closedAt: null });
     expect((await buyerClient.get(`/api/orders/${order.id}`)).body.order.dispute).toBeNull();
 
     const open = await treasurerClient.get('/api/orders?as=treasurer&disputes=open');
@@ -152,7 +166,7 @@ describe('a buyer’s bank disputes a card payment', () => {
     // While the bank decides, the card service refuses a refund, and so does the guild's own rule: nothing changes.
     const refund = await treasurerClient.send('post', `/api/orders/${order.id}/refund`);
     expect(refund.status).toBe(403);
-    expect(await orderEntries(order.id)).toEqual(ledgerBefore);
+    expect(await orderEntries(order.id)).toEqual([...ledgerBefore, ...feeEntries(DISPUTE_FEE)]);
     expect((await Order.findByPk(order.id))!.state).toBe('posted');
   });
 
@@ -167,6 +181,8 @@ describe('a buyer’s bank disputes a card payment', () => {
     expect(again.body.attempt.status).toBe(200);
     expect(await OrderDispute.count({ where: { orderId: order.id } })).toBe(1);
     expect(await queuedMail(treasurer.email, subject)).toBe(1);
+    expect(await queuedMail(seller.email, `questioning the payment for order ${order.reference}`)).toBe(1);
+    expect((await orderEntries(order.id)).filter(([kind]) => kind === 'dispute_fee')).toEqual(feeEntries(DISPUTE_FEE));
     expect(await sql(`SELECT id FROM stripe_events WHERE id = $1`, [created.id])).toHaveLength(1);
   });
 
@@ -211,8 +227,10 @@ describe('the bank decides', () => {
     expect(transaction).toEqual({ n: 1, total: 0 });
     const balance = (account: string) => entries.filter(([, a]) => a === account).reduce((sum, [, , amount]) => sum + amount, 0);
     expect(balance(sellerAccount)).toBe(0);
-    expect(balance('processor')).toBe(PROCESSING + CHARGE);
-    expect(balance('guild')).toBe(-PROCESSING);
+    expect(balance('processor')).toBe(PROCESSING + CHARGE + DISPUTE_FEE);
+    expect(balance('guild')).toBe(-PROCESSING - DISPUTE_FEE);
+    // The fee was booked when the dispute opened, once.
+    expect(entries.filter(([kind]) => kind === 'dispute_fee')).toEqual(feeEntries(DISPUTE_FEE));
 
     const row = (await OrderDispute.findOne({ where: { orderId: order.id } }))!;
     expect(row.status).toBe('lost');
@@ -220,6 +238,10 @@ describe('the bank decides', () => {
     const mail = await waitForMail({ to: treasurer.email, subjectIncludes: `took back the payment for order ${order.reference}` });
     expect(mail.text).toContain('$19.30 went back to the buyer’s card');
     expect(mail.text).toContain('Hester Quill’s credit of $18.10 for this order is taken back');
+    expect(mail.text).toContain('dispute fee of $15.00 stays the guild’s cost');
+    const toSeller = await waitForMail({ to: seller.email, subjectIncludes: `took back the payment for order ${order.reference}` });
+    expect(toSeller.text).toContain('Your credit of $18.10 for this order is taken back.');
+    expect(toSeller.text).not.toContain('owe the guild');
 
     const view = (await treasurerClient.get(`/api/orders/${order.id}`)).body.order;
     expect(view.dispute).toMatchObject({ stage: 'lost', status: 'lost', closedAt: row.closedAt!.toISOString() });
@@ -229,11 +251,13 @@ describe('the bank decides', () => {
     // The month's statement shows the money taken back on its own line, not as a card processing cost.
     const statementAfter = await statement();
     expect(statementAfter.disputesLostMinor - statementBefore.disputesLostMinor).toBe(CHARGE);
+    expect(statementAfter.disputeFeesMinor - statementBefore.disputeFeesMinor).toBe(DISPUTE_FEE);
     expect(statementAfter.processingCostMinor).toBe(statementBefore.processingCostMinor);
     expect(statementAfter.guildFeesMinor - statementBefore.guildFeesMinor).toBe(-FEE);
     const csv = (await treasurerClient.get(`/api/reports/statement.csv?month=${thisMonth()}`)).text.trim().split('\n');
     // The test guild's USD has two decimals: 1930 cents is written 19.30.
     expect(csv).toContain(`disputes_lost,,${(statementAfter.disputesLostMinor / 100).toFixed(2)},USD`);
+    expect(csv).toContain(`dispute_fees,,${(statementAfter.disputeFeesMinor / 100).toFixed(2)},USD`);
 
     // The same decision delivered again, or the opening arriving late, changes nothing.
     expect((await resendEvent(closed.id)).body.attempt.status).toBe(200);
@@ -259,6 +283,8 @@ describe('the bank decides', () => {
     await decided(await disputed(sent.sessionId), 'lost');
     const owing = await waitForMail({ to: treasurer.email, subjectIncludes: `took back the payment for order ${sent.order.reference}` });
     expect(owing.text).toContain('Hester Quill had been paid out already and now owes the guild $18.10.');
+    const sellerOwing = await waitForMail({ to: seller.email, subjectIncludes: `took back the payment for order ${sent.order.reference}` });
+    expect(sellerOwing.text).toContain('You had been paid out already, so you now owe the guild $18.10');
     expect(await payable()).toBe(-CREDIT);
 
     // Not yet posted: its credit was never payable, so taking it back leaves what is payable, and the debt, as they were.
@@ -266,6 +292,8 @@ describe('the bank decides', () => {
     await decided(await disputed(unsent.sessionId), 'lost');
     const same = await waitForMail({ to: treasurer.email, subjectIncludes: `took back the payment for order ${unsent.order.reference}` });
     expect(same.text).toContain('now owes the guild $18.10.');
+    const unsentMail = await waitForMail({ to: seller.email, subjectIncludes: `took back the payment for order ${unsent.order.reference}` });
+    expect(unsentMail.text).toContain('please do not send it until the treasurer tells you what to do');
     expect(await payable()).toBe(-CREDIT);
   });
 
@@ -281,12 +309,41 @@ describe('the bank decides', () => {
     expect(row.closedAt).not.toBeNull();
     const mail = await waitForMail({ to: treasurer.email, subjectIncludes: `won the dispute on order ${order.reference}` });
     expect(mail.text).toContain('the $19.30 stays with the guild');
-    expect(mail.text).toContain('Nothing changes in the ledger.');
+    expect(mail.text).toContain('The seller’s credit and the guild’s fee for the order stand.');
+    expect(mail.text).toContain('dispute fee of $15.00 stays the guild’s cost');
+    const toSeller = await waitForMail({ to: seller.email, subjectIncludes: `The payment for order ${order.reference} stands` });
+    expect(toSeller.text).toContain('Your credit for this order stands');
 
     const view = (await treasurerClient.get(`/api/orders/${order.id}`)).body.order;
     expect(view.dispute).toMatchObject({ stage: 'won', status: 'won' });
     expect(view.abilities.refund).toBe(true);
     expect((await sellerClient.get(`/api/orders/${order.id}`)).body.order.dispute).toMatchObject({ stage: 'won', status: null });
+  });
+});
+
+describe('the card service’s dispute fee', () => {
+  it('is booked at the figure the card service reports, and given back in the ledger when a win gives it back', async () => {
+    const { order, sessionId } = await paidOrder();
+    const statementBefore = await statement();
+    const opened = await openDispute(sessionId, 'fraudulent', undefined, 2000);
+    await deliveredEvent('charge.dispute.created', opened.body.id);
+    expect((await orderEntries(order.id)).filter(([kind]) => kind === 'dispute_fee')).toEqual(feeEntries(2000));
+
+    await decided(opened.body.id, 'won', true);
+    expect((await orderEntries(order.id)).filter(([kind]) => kind === 'dispute_fee')).toEqual([...feeEntries(2000), ...feeEntries(-2000)]);
+    const mail = await waitForMail({ to: treasurer.email, subjectIncludes: `won the dispute on order ${order.reference}` });
+    expect(mail.text).toContain('The card service gave back its dispute fee of $20.00');
+    expect((await statement()).disputeFeesMinor).toBe(statementBefore.disputeFeesMinor);
+  });
+
+  it('books nothing when the card service charges no fee', async () => {
+    const { order, sessionId } = await paidOrder();
+    const opened = await openDispute(sessionId, 'general', undefined, 0);
+    await deliveredEvent('charge.dispute.created', opened.body.id);
+    await decided(opened.body.id, 'lost');
+    expect((await orderEntries(order.id)).some(([kind]) => kind === 'dispute_fee')).toBe(false);
+    const mail = await waitForMail({ to: treasurer.email, subjectIncludes: `took back the payment for order ${order.reference}` });
+    expect(mail.text).toContain('The card service charged no fee for this dispute.');
   });
 });
 

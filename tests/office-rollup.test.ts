@@ -153,8 +153,10 @@ describe('office tallies', () => {
            (SELECT count(*)::int FROM bundles WHERE state = 'expired' AND ${inPeriod('expires_at')}) AS expired,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'guild' AND (kind = 'guild_fee' OR reverses = 'guild_fee')), 0)::int
             FROM ledger_entries WHERE ${inPeriod('created_at')}) AS fees,
-           -- A lost dispute's money leaves through the processor too, but is no card cost.
-           (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'processor' AND kind <> 'dispute'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS processing,
+           -- A lost dispute's money leaves through the processor too, but is no card cost; the processor's dispute fees
+           -- are a card cost with a line of their own.
+           (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'processor' AND kind NOT IN ('dispute', 'dispute_fee')), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS processing,
+           (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'processor' AND kind = 'dispute_fee'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS dispute_fees,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account LIKE 'seller:%' AND kind <> 'payout'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS credits,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'payouts'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS payouts,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'buyer' AND kind = 'refund'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS refunds,
@@ -177,9 +179,10 @@ describe('office tallies', () => {
       expect(figures.medianReviewHours, query).toBe(expected!.median);
       expect(figures.bundlesExpired, query).toBe(expected!.expired);
       expect(figures.money, query).toMatchObject({
-        fundsRaisedMinor: (expected!.fees as number) - (expected!.processing as number),
+        fundsRaisedMinor: (expected!.fees as number) - (expected!.processing as number) - (expected!.dispute_fees as number),
         guildFeesMinor: expected!.fees,
         processingCostMinor: expected!.processing,
+        disputeFeesMinor: expected!.dispute_fees,
         sellerCreditsMinor: expected!.credits,
         payoutsMinor: expected!.payouts,
         refundsMinor: expected!.refunds,

@@ -93,7 +93,7 @@ describe('the dashboard and the month-end statement', () => {
     expect(after.money.guildFeesMinor - before.money.guildFeesMinor).toBe(120);
     // The guild's default card rate (2.9 % + 30¢) on the two charges of 1930 and 2730.
     expect(after.money.processingCostMinor - before.money.processingCostMinor).toBe(processingCost(1930) + processingCost(2730));
-    expect(after.money.fundsRaisedMinor).toBe(after.money.guildFeesMinor - after.money.processingCostMinor);
+    expect(after.money.fundsRaisedMinor).toBe(after.money.guildFeesMinor - after.money.processingCostMinor - after.money.disputeFeesMinor);
     // Seller credits: 1200 − 120 + 730 = 1810 kept; the refunded order's 2000 − 200 + 730 = 2530 came and went.
     expect(after.money.sellerCreditsMinor - before.money.sellerCreditsMinor).toBe(1810);
     expect(after.money.payoutsMinor - before.money.payoutsMinor).toBe(500);

@@ -49,12 +49,17 @@ export interface FakeDispute {
   evidence_details: { due_by: number | null };
 }
 
-/** The cardholder's bank opens a dispute on a paid session's payment (the whole of it unless `amount` is given). */
-export const openDispute = (sessionId: string, reason: string, amount?: number) =>
-  control<FakeDispute>('POST', `/checkout/sessions/${sessionId}/dispute`, { reason, amount });
+/**
+ * The cardholder's bank opens a dispute on a paid session's payment (the whole of it unless `amount` is given);
+ * `fee` is the card service's dispute fee in minor units (the stand-in's default when left out).
+ */
+export const openDispute = (sessionId: string, reason: string, amount?: number, fee?: number) =>
+  control<FakeDispute>('POST', `/checkout/sessions/${sessionId}/dispute`, { reason, amount, fee });
 /** The guild answers it (in Stripe, in the dashboard): the bank reviews it. */
 export const answerDispute = (id: string) => control<FakeDispute>('POST', `/disputes/${id}/answer`, {});
-export const closeDispute = (id: string, outcome: 'won' | 'lost') => control<FakeDispute>('POST', `/disputes/${id}/close`, { outcome });
+/** `feeReturned`: a win gives the dispute fee back, as some processors do. */
+export const closeDispute = (id: string, outcome: 'won' | 'lost', feeReturned?: boolean) =>
+  control<FakeDispute>('POST', `/disputes/${id}/close`, { outcome, feeReturned });
 export const stripeSession = (id: string) =>
   stripeGet<{ id: string; status: string; payment_status: string; payment_intent: string | null }>(`/checkout/sessions/${id}`);
 async function stripeGet<T>(path: string): Promise<T> {

@@ -91,7 +91,7 @@ export function controlRouter(ctx: FakeContext, onReset: () => void): Router {
   });
 
   router.post('/checkout/sessions/:id/dispute', async (req, res) => {
-    const { reason, amount } = jsonBody(req.body);
+    const { reason, amount, fee } = jsonBody(req.body);
     if (typeof reason !== 'string' || !(DISPUTE_REASONS as readonly string[]).includes(reason)) {
       throw invalidRequest(
         `Send a JSON body { "reason": "product_not_received" } with one of Stripe's dispute reasons: ${DISPUTE_REASONS.join(', ')}.`,
@@ -100,7 +100,8 @@ export function controlRouter(ctx: FakeContext, onReset: () => void): Router {
       );
     }
     if (amount !== undefined && typeof amount !== 'number') throw invalidRequest('amount is a whole number of minor units.', 'parameter_invalid', 'amount');
-    res.json(await openDispute(ctx, req.params.id, { reason: reason as DisputeReason, amount }));
+    if (fee !== undefined && typeof fee !== 'number') throw invalidRequest('fee is a whole number of minor units.', 'parameter_invalid', 'fee');
+    res.json(await openDispute(ctx, req.params.id, { reason: reason as DisputeReason, amount, fee }));
   });
 
   router.post('/disputes/:id/answer', async (req, res) => {
@@ -108,11 +109,12 @@ export function controlRouter(ctx: FakeContext, onReset: () => void): Router {
   });
 
   router.post('/disputes/:id/close', async (req, res) => {
-    const { outcome } = jsonBody(req.body);
+    const { outcome, feeReturned } = jsonBody(req.body);
     if (outcome !== 'won' && outcome !== 'lost') {
       throw invalidRequest('Send a JSON body { "outcome": "won" } or { "outcome": "lost" }.', 'parameter_invalid', 'outcome');
     }
-    res.json(await closeDispute(ctx, req.params.id, outcome));
+    if (feeReturned !== undefined && typeof feeReturned !== 'boolean') throw invalidRequest('feeReturned is true or false.', 'parameter_invalid', 'feeReturned');
+    res.json(await closeDispute(ctx, req.params.id, outcome, feeReturned));
   });
 
   router.post('/reset', (_req, res) => {

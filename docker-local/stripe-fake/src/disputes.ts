@@ -8,7 +8,7 @@ import type { FakeContext } from './context.ts';
 import { invalidRequest, parameterInvalid, resourceMissing } from './errors.ts';
 import { newId } from './ids.ts';
 import { formatMoney } from './money.ts';
-import type { Charge, Dispute, DisputeReason, RequestContext } from './types.ts';
+import type { BalanceTransaction, Charge, Dispute, DisputeReason, RequestContext } from './types.ts';
 
 const DAY_SECONDS = 24 * 60 * 60;
 /**
@@ -16,6 +16,32 @@ const DAY_SECONDS = 24 * 60 * 60;
  * weeks; from memory); Stripe's sample Dispute sets `due_by` to the last second of a UTC day, and so does this.
  */
 const EVIDENCE_WINDOW_DAYS = 7;
+/**
+ * The card service's fee for a dispute, in the charge's minor units, when a test does not name one: 15.00, Stripe's
+ * published fee for a US card dispute (from memory; processors and countries differ, so tests may set their own).
+ */
+export const DEFAULT_DISPUTE_FEE = 1500;
+
+/** One movement of the merchant's balance caused by a dispute; `fee` is charged on top of `amount`. */
+function balanceMovement(ctx: FakeContext, dispute: Dispute, amount: number, fee: number): BalanceTransaction {
+  const created = ctx.clock();
+  return {
+    id: newId('txn_test'),
+    object: 'balance_transaction',
+    amount,
+    available_on: created,
+    created,
+    currency: dispute.currency,
+    description: amount < 0 ? `Chargeback withdrawal for ${dispute.charge}` : `Chargeback reversal for ${dispute.charge}`,
+    fee,
+    fee_details: fee === 0 ? [] : [{ amount: fee, application: null, currency: dispute.currency, description: 'Dispute fee', type: 'stripe_fee' }],
+    net: amount - fee,
+    reporting_category: amount < 0 ? 'dispute' : 'dispute_reversal',
+    source: dispute.id,
+    status: 'available',
+    type: 'adjustment',
+  };
+}
 
 export function findDispute(ctx: FakeContext, id: string): Dispute {
   const dispute = ctx.store.disputes.get(id);
@@ -29,8 +55,11 @@ function disputeEvents(ctx: FakeContext, dispute: Dispute): RequestContext {
   return record ? eventContext(record, SYSTEM_REQUEST) : SYSTEM_REQUEST;
 }
 
-/** The bank opens a dispute on a paid session's charge: by default for the whole payment. */
-export async function openDispute(ctx: FakeContext, sessionId: string, input: { reason: DisputeReason; amount?: number }): Promise<Dispute> {
+/**
+ * The bank opens a dispute on a paid session's charge: by default for the whole payment. The amount leaves the
+ * merchant's balance at once, with the dispute fee (`fee`, default `DEFAULT_DISPUTE_FEE`), as one movement.
+ */
+export async function openDispute(ctx: FakeContext, sessionId: string, input: { reason: DisputeReason; amount?: number; fee?: number }): Promise<Dispute> {
   const { session } = findSession(ctx, sessionId, 'id');
   if (session.payment_status !== 'paid' || session.payment_intent === null) {
     throw invalidRequest(`Checkout Session ${session.id} has no payment to dispute (status: ${session.status}).`, 'checkout_session_not_paid');
@@ -43,6 +72,8 @@ export async function openDispute(ctx: FakeContext, sessionId: string, input: { 
   if (!Number.isSafeInteger(amount) || amount < 1 || amount > charge.amount) {
     throw parameterInvalid('amount', `A dispute's amount is between 1 and the charge's ${formatMoney(charge.amount, charge.currency)}, in minor units.`);
   }
+  const fee = input.fee ?? DEFAULT_DISPUTE_FEE;
+  if (!Number.isSafeInteger(fee) || fee < 0) throw parameterInvalid('fee', 'A dispute fee is a whole number of minor units, 0 or more.');
   const created = ctx.clock();
   const dueDay = Math.floor((created + EVIDENCE_WINDOW_DAYS * DAY_SECONDS) / DAY_SECONDS);
   const dispute: Dispute = {
@@ -62,6 +93,7 @@ export async function openDispute(ctx: FakeContext, sessionId: string, input: { 
     reason: input.reason,
     status: 'needs_response',
   };
+  dispute.balance_transactions.push(balanceMovement(ctx, dispute, -amount, fee));
   ctx.store.disputes.set(dispute.id, dispute);
   charge.disputed = true;
   await ctx.webhooks.emit('charge.dispute.created', dispute, disputeEvents(ctx, dispute));
@@ -88,11 +120,18 @@ export async function answerDispute(ctx: FakeContext, id: string): Promise<Dispu
   return dispute;
 }
 
-/** The bank decides: `won` leaves the money with the merchant, `lost` returns it to the cardholder. */
-export async function closeDispute(ctx: FakeContext, id: string, outcome: 'won' | 'lost'): Promise<Dispute> {
+/**
+ * The bank decides: `won` gives the amount back to the merchant, `lost` leaves it with the cardholder. Whether the
+ * dispute fee comes back with a win depends on the processor and the country; `feeReturned` says it does.
+ */
+export async function closeDispute(ctx: FakeContext, id: string, outcome: 'won' | 'lost', feeReturned = false): Promise<Dispute> {
   const dispute = findDispute(ctx, id);
   checkOpen(dispute);
   dispute.status = outcome;
+  if (outcome === 'won') {
+    const withdrawn = dispute.balance_transactions[0]!;
+    dispute.balance_transactions.push(balanceMovement(ctx, dispute, -withdrawn.amount, feeReturned ? -withdrawn.fee : 0));
+  }
   await ctx.webhooks.emit('charge.dispute.closed', dispute, disputeEvents(ctx, dispute));
   return dispute;
 }

@@ -167,8 +167,8 @@ export interface Dispute {
   id: string;
   object: 'dispute';
   amount: number;
-  /** Stripe lists the balance movements here; the stand-in keeps no balance, so it stays empty. */
-  balance_transactions: [];
+  /** The money the dispute moved: withdrawn when it opens (with the dispute fee), reinstated if the merchant wins. */
+  balance_transactions: BalanceTransaction[];
   charge: string;
   created: number;
   currency: string;
@@ -179,6 +179,28 @@ export interface Dispute {
   payment_intent: string;
   reason: DisputeReason;
   status: DisputeStatus;
+}
+
+/**
+ * A movement of the merchant's balance, as a dispute lists them (Stripe's BalanceTransaction object, the fields a
+ * dispute's movements carry). `amount` is signed (negative leaves the balance), `fee` is what the card service
+ * charged on top, and `net` = `amount` − `fee`.
+ */
+export interface BalanceTransaction {
+  id: string;
+  object: 'balance_transaction';
+  amount: number;
+  available_on: number;
+  created: number;
+  currency: string;
+  description: string;
+  fee: number;
+  fee_details: { amount: number; application: null; currency: string; description: string; type: 'stripe_fee' }[];
+  net: number;
+  reporting_category: 'dispute' | 'dispute_reversal';
+  source: string;
+  status: 'available';
+  type: 'adjustment';
 }
 
 export type StripeObject = CheckoutSession | PaymentIntent | Charge | Refund | Dispute;

@@ -87,6 +87,47 @@ describe('disputes: the bank questions a paid charge', () => {
     expect(h.receiver.received.filter((r) => r.rawBody.includes('"charge.dispute.closed"'))).toHaveLength(1);
   });
 
+  it('lists the money it moved: the amount and the dispute fee withdrawn on opening, the amount given back on a win, the fee too when asked', async () => {
+    h = await startHarness({ now: () => new Date('2026-12-04T15:30:00Z') });
+    const session = await paidSession();
+    const opened = await control(`/checkout/sessions/${session.id}/dispute`, { reason: 'fraudulent' });
+    const disputeId = opened.body.id as string;
+    // No fee named: the default, 15.00 (Stripe's US dispute fee, from memory).
+    const withdrawal = {
+      object: 'balance_transaction',
+      amount: -1650,
+      fee: 1500,
+      net: -3150,
+      currency: 'usd',
+      reporting_category: 'dispute',
+      type: 'adjustment',
+      source: disputeId,
+      fee_details: [{ amount: 1500, currency: 'usd', type: 'stripe_fee', description: 'Dispute fee' }],
+    };
+    expect((await h.stripe.disputes.retrieve(disputeId)).balance_transactions).toMatchObject([withdrawal]);
+    expect((await deliveredEvent('charge.dispute.created', disputeId)).data.object).toMatchObject({ balance_transactions: [withdrawal] });
+
+    await control(`/disputes/${disputeId}/close`, { outcome: 'won' });
+    const reinstated = { amount: 1650, fee: 0, net: 1650, reporting_category: 'dispute_reversal', fee_details: [] };
+    expect((await deliveredEvent('charge.dispute.closed', disputeId)).data.object).toMatchObject({ balance_transactions: [withdrawal, reinstated] });
+
+    // A processor that gives the fee back with a win: the reinstatement's fee is negative.
+    const second = await paidSession();
+    const secondId = (await control(`/checkout/sessions/${second.id}/dispute`, { reason: 'general', fee: 2000 })).body.id as string;
+    const won = await control(`/disputes/${secondId}/close`, { outcome: 'won', feeReturned: true });
+    expect(won.body.balance_transactions).toMatchObject([{ amount: -1650, fee: 2000 }, { amount: 1650, fee: -2000, net: 3650 }]);
+
+    // A lost dispute keeps only the withdrawal; a fee that is no whole number, or a feeReturned that is no boolean, is refused.
+    const third = await paidSession();
+    const thirdId = (await control(`/checkout/sessions/${third.id}/dispute`, { reason: 'general', fee: 0 })).body.id as string;
+    expect((await control(`/disputes/${thirdId}/close`, { outcome: 'lost' })).body.balance_transactions).toMatchObject([{ amount: -1650, fee: 0, fee_details: [] }]);
+    const fourth = await paidSession();
+    expect(await control(`/checkout/sessions/${fourth.id}/dispute`, { reason: 'general', fee: 12.5 })).toMatchObject({ status: 400, body: { error: { param: 'fee' } } });
+    expect(await control(`/checkout/sessions/${fourth.id}/dispute`, { reason: 'general', fee: '1500' })).toMatchObject({ status: 400, body: { error: { param: 'fee' } } });
+    const fourthId = (await control(`/checkout/sessions/${fourth.id}/dispute`, { reason: 'general' })).body.id as string;
+    expect(await control(`/disputes/${fourthId}/close`, { outcome: 'won', feeReturned: 'yes' })).toMatchObject({ status: 400, body: { error: { param: 'feeReturned' } } });
+  });
+
   it('refuses to refund a charge under dispute or lost to one, and refunds again once the dispute is won', async () => {
     h = await startHarness();
     const session = await paidSession();

@@ -1,5 +1,6 @@
 /**
- * To the guild's treasurers, about a card payment the buyer's bank disputes. Money e-mails: always sent. Amounts
+ * To the guild's treasurers, and to the order's seller, about a card payment the buyer's bank disputes. Money
+ * e-mails: always sent. Amounts
  * come formatted in the order's currency, moments in the guild's time zone; names and titles are members' own
  * words and are escaped like everything else `html` interpolates.
  */
@@ -21,12 +22,16 @@ const LAW = 'How disputes run is set by the card networks’ rules and local law
 
 /** A dispute opened: what, why, by when, where the guild answers, and what the order shows as evidence. */
 export function disputeOpened(
-  p: DisputeMail & { buyerName: string; sellerName: string; titles: string[]; reason: string; dueBy: string | null; fulfilment: string },
+  p: DisputeMail & { buyerName: string; sellerName: string; titles: string[]; reason: string; dueBy: string | null; fulfilment: string; fee: string | null },
 ): RenderedEmail {
   const what = `The bank of ${p.buyerName}, who bought order ${p.reference} from ${p.sellerName}, has opened a dispute on the card payment: ${p.amount}.`;
   const due = p.dueBy ? `The bank wants the guild’s evidence by ${p.dueBy}.` : 'The bank has not asked the guild for evidence.';
-  const meanwhile =
-    'While the bank decides, the card service may already hold the amount back from the guild’s balance, and the order cannot be refunded. Scrap Relay changes the ledger only once the bank decides: if the guild loses, the seller’s credit for this order is taken back.';
+  const meanwhile = [
+    'While the bank decides, the card service may already hold the amount back from the guild’s balance, and the order cannot be refunded. Scrap Relay takes back the seller’s credit for this order only if the guild loses.',
+    p.fee ? `The card service charged a dispute fee of ${p.fee}: it is in the ledger as the guild’s cost.` : '',
+  ]
+    .filter(Boolean)
+    .join(' ');
   return layout({
     guildName: p.guildName,
     subject: `The buyer’s bank is disputing the payment for order ${p.reference}`,
@@ -42,7 +47,7 @@ export function disputeOpened(
  * seller owes the guild after it, when their sales had been paid out already (null when nothing is owed);
  * `notYetPosted`: the order had not gone out, so the seller needs telling whether to send it.
  */
-export function disputeLost(p: DisputeMail & { sellerName: string; share: string | null; owing: string | null; notYetPosted: boolean }): RenderedEmail {
+export function disputeLost(p: DisputeMail & { sellerName: string; share: string | null; owing: string | null; notYetPosted: boolean; fee: DisputeFee }): RenderedEmail {
   const what = `The buyer’s bank decided the dispute on order ${p.reference} for the buyer: ${p.amount} went back to the buyer’s card through the card service.`;
   const ledger = [
     'Scrap Relay has written it in the ledger.',
@@ -52,7 +57,7 @@ export function disputeLost(p: DisputeMail & { sellerName: string; share: string
   ]
     .filter(Boolean)
     .join(' ');
-  const fees = 'Any fee the card service charged for the dispute is in its dashboard, not in Scrap Relay’s ledger.';
+  const fees = feeLine(p.fee);
   return layout({
     guildName: p.guildName,
     subject: `The buyer’s bank took back the payment for order ${p.reference}`,
@@ -61,17 +66,78 @@ export function disputeLost(p: DisputeMail & { sellerName: string; share: string
   });
 }
 
+/** The card service's dispute fee as the ledger holds it after this news: what stands, and what came back with it. */
+export interface DisputeFee {
+  standing: string | null;
+  returned: string | null;
+}
+
+function feeLine(fee: DisputeFee): string {
+  if (fee.returned) return `The card service gave back its dispute fee of ${fee.returned}; the ledger shows it returned.`;
+  if (fee.standing) return `The card service’s dispute fee of ${fee.standing} stays the guild’s cost, as the ledger shows.`;
+  return 'The card service charged no fee for this dispute.';
+}
+
 /** The bank decided for the guild (`won`), or closed its questions without a dispute (`closed`): the money stays. */
-export function disputeKept(p: DisputeMail & { how: 'won' | 'closed' }): RenderedEmail {
+export function disputeKept(p: DisputeMail & { how: 'won' | 'closed'; fee: DisputeFee }): RenderedEmail {
   const what =
     p.how === 'won'
       ? `The buyer’s bank decided the dispute on order ${p.reference} for the guild: the ${p.amount} stays with the guild.`
       : `The buyer’s bank closed its questions about the payment for order ${p.reference} without disputing it: the ${p.amount} stays with the guild.`;
-  const after = 'Nothing changes in the ledger. If the card service held the amount back while the bank decided, it returns it; its dashboard shows when.';
+  const after = `The seller’s credit and the guild’s fee for the order stand. If the card service held the amount back while the bank decided, it returns it; its dashboard shows when. ${feeLine(p.fee)}`;
   return layout({
     guildName: p.guildName,
     subject: p.how === 'won' ? `The guild won the dispute on order ${p.reference}` : `The bank closed its questions on order ${p.reference}`,
     text: `Hello ${p.name},\n\n${what}\n${after}\n${p.link}`,
     bodyHtml: html`<p>Hello ${p.name},</p><p>${what}</p><p>${after}</p>${button(p.link, 'Open the order')}`,
+  });
+}
+
+/** What the seller hears at each step: the news, what it means for their credit, and what to do with the bag. */
+export type SellerDisputeNews =
+  | { stage: 'open'; sent: boolean }
+  | { stage: 'lost'; share: string | null; owing: string | null; sent: boolean }
+  | { stage: 'won' | 'closed' };
+
+/**
+ * To the order's seller. They answer nothing themselves (the treasurer does, in the card service's dashboard), but
+ * their credit depends on the outcome, the treasurer may need their proof of posting, and a bag not yet sent
+ * should wait for the treasurer's word. The bank's reasons and deadlines stay with the treasurers.
+ */
+export function disputeForSeller(p: { guildName: string; name: string; reference: string; link: string; news: SellerDisputeNews }): RenderedEmail {
+  const { news } = p;
+  let subject: string;
+  let lines: string[];
+  if (news.stage === 'open') {
+    subject = `The buyer’s bank is questioning the payment for order ${p.reference}`;
+    lines = [
+      `The buyer’s bank has opened a dispute on the card payment for order ${p.reference}. The guild’s treasurer answers it with the card service.`,
+      news.sent
+        ? 'Please keep your proof that the bag went out (the tracking number or the post office’s receipt): the treasurer may ask you for it.'
+        : 'The bag has not gone out yet: please keep it until the treasurer tells you whether to send it.',
+      'Your credit for this order stays until the bank decides; if the buyer’s bank wins, it is taken back.',
+    ];
+  } else if (news.stage === 'lost') {
+    subject = `The buyer’s bank took back the payment for order ${p.reference}`;
+    lines = [
+      `The buyer’s bank decided the dispute on order ${p.reference} for the buyer, and the payment went back to the buyer’s card.`,
+      news.share ? `Your credit of ${news.share} for this order is taken back.` : 'None of your credit for this order was left to take back.',
+      news.owing ? `You had been paid out already, so you now owe the guild ${news.owing}; the treasurer will be in touch about settling it.` : '',
+      news.sent ? '' : 'The bag has not gone out: please do not send it until the treasurer tells you what to do.',
+    ].filter(Boolean);
+  } else {
+    subject = `The payment for order ${p.reference} stands`;
+    lines = [
+      news.stage === 'won'
+        ? `The buyer’s bank decided the dispute on order ${p.reference} for the guild.`
+        : `The buyer’s bank closed its questions about the payment for order ${p.reference} without disputing it.`,
+      'Your credit for this order stands; there is nothing for you to do.',
+    ];
+  }
+  return layout({
+    guildName: p.guildName,
+    subject,
+    text: `Hello ${p.name},\n\n${lines.join('\n')}\n${p.link}`,
+    bodyHtml: html`<p>Hello ${p.name},</p>${lines.map((line) => html`<p>${line}</p>`)}${button(p.link, 'Open the order')}`,
   });
 }

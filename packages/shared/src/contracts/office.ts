@@ -8,10 +8,12 @@ export interface DashboardFigures {
   bundlesExpired: number;
   /** Money figures are present only for officers who see the guild's money. */
   money: {
-    /** Guild fees after refunds, less the card processor's fees the guild bore: what the guild kept. */
+    /** Guild fees after refunds, less the card processor's fees the guild bore (processing and disputes): what the guild kept. */
     fundsRaisedMinor: number;
     guildFeesMinor: number;
     processingCostMinor: number;
+    /** The card processor's fees for handling disputes, less any it gave back. */
+    disputeFeesMinor: number;
     sellerCreditsMinor: number;
     payoutsMinor: number;
     postagePaidMinor: number;
@@ -35,6 +37,8 @@ export interface MonthStatement {
   processingCostMinor: number;
   /** Payments the buyers' banks took back through the card processor: disputes the guild lost. */
   disputesLostMinor: number;
+  /** The card processor's fees for handling disputes, less any it gave back with a won dispute. */
+  disputeFeesMinor: number;
   payoutsMinor: number;
   sellerCreditsMinor: number;
   closingBalances: { sellerId: string; name: string; balanceMinor: number }[];

@@ -78,6 +78,8 @@ export interface OrderDisputeView {
   reason: string | null;
   /** The date by which the bank wants the guild's evidence, when it asked for any. */
   evidenceDueBy: string | null;
+  /** The card service's fee for the dispute, the guild's cost, as the ledger holds it (0 when none stands). */
+  feeMinor: number | null;
 }
 
 /**

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { disputeReasonLabel, disputeStage, disputeStatusLabel } from './disputes.ts';
-import { accountBalances, disputeLostEntries, isBalanced, ledgerEntriesForPaidOrder, orderMoney, reversalEntries } from './money.ts';
+import { accountBalances, disputeFeeEntries, disputeLostEntries, isBalanced, ledgerEntriesForPaidOrder, orderMoney, reversalEntries } from './money.ts';
 
 describe('dispute stages (statuses as Stripe’s Dispute object lists them)', () => {
   it('reads the decided statuses, and everything else as still open', () => {
@@ -68,5 +68,40 @@ describe('a lost dispute in the ledger (design choice: mirrors a refund, the mon
     expect(() => disputeLostEntries({ sellerId: 'm-7', amountMinor: 18.5, orderEntries: paid })).toThrow(RangeError);
     const lost = disputeLostEntries({ sellerId: 'm-7', amountMinor: 1850, orderEntries: paid });
     expect(() => reversalEntries(lost)).toThrow('not reversed by a refund');
+  });
+});
+
+describe('the card processor’s dispute fee in the ledger (design choice: the guild bears it, at the figure the processor reports)', () => {
+  // $15.00: Stripe's published dispute fee for a US card payment (from memory); any figure works the same way.
+  const money = orderMoney({ lines: [{ priceMinor: 1200, quantity: 1 }], postageMinor: 650, guildFeeBasisPoints: 1000 });
+  const paid = ledgerEntriesForPaidOrder({ sellerId: 'm-7', money });
+
+  it('books the fee the processor charged when the dispute opened, borne by the guild', () => {
+    const fee = disputeFeeEntries({ chargedMinor: 1500, orderEntries: paid });
+    expect(fee).toEqual([
+      { kind: 'dispute_fee', account: 'processor', amountMinor: 1500 },
+      { kind: 'dispute_fee', account: 'guild', amountMinor: -1500 },
+    ]);
+    expect(isBalanced(fee)).toBe(true);
+    // The seller's balance is untouched: no seller chose to incur it.
+    expect(accountBalances([...paid, ...fee]).get('seller:m-7')).toBe(1730);
+  });
+
+  it('books nothing more when the same figure arrives again, and the difference when the processor gives the fee back', () => {
+    const opened = [...paid, ...disputeFeeEntries({ chargedMinor: 1500, orderEntries: paid })];
+    expect(disputeFeeEntries({ chargedMinor: 1500, orderEntries: opened })).toEqual([]);
+    // Won, fee returned: the movements' fees now sum to 1500 − 1500 = 0.
+    const returned = disputeFeeEntries({ chargedMinor: 0, orderEntries: opened });
+    expect(returned).toEqual([
+      { kind: 'dispute_fee', account: 'processor', amountMinor: -1500 },
+      { kind: 'dispute_fee', account: 'guild', amountMinor: 1500 },
+    ]);
+    expect(accountBalances([...opened, ...returned]).get('guild')).toBe(accountBalances(paid).get('guild'));
+  });
+
+  it('books nothing for a processor that charges no fee, refuses a fractional figure, and is never reversed by a refund', () => {
+    expect(disputeFeeEntries({ chargedMinor: 0, orderEntries: paid })).toEqual([]);
+    expect(() => disputeFeeEntries({ chargedMinor: 15.5, orderEntries: paid })).toThrow(RangeError);
+    expect(() => reversalEntries(disputeFeeEntries({ chargedMinor: 1500, orderEntries: paid }))).toThrow('not reversed by a refund');
   });
 });

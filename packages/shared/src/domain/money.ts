@@ -109,7 +109,7 @@ export function orderMoney(input: OrderMoneyInput): OrderMoney {
 
 /* ---------- ledger ---------- */
 
-export const LEDGER_ENTRY_KINDS = ['charge', 'guild_fee', 'seller_credit', 'processing_cost', 'refund', 'payout', 'dispute'] as const;
+export const LEDGER_ENTRY_KINDS = ['charge', 'guild_fee', 'seller_credit', 'processing_cost', 'refund', 'payout', 'dispute', 'dispute_fee'] as const;
 export type LedgerEntryKind = (typeof LEDGER_ENTRY_KINDS)[number];
 
 export type LedgerAccount = 'buyer' | 'guild' | 'processor' | 'payouts' | `seller:${string}`;
@@ -120,7 +120,7 @@ export interface LedgerEntry {
   /** Signed: positive adds to the account's balance, negative takes from it. */
   amountMinor: number;
   /** On refund and dispute entries, the kind of entry reversed. */
-  reverses?: Exclude<LedgerEntryKind, 'refund' | 'payout' | 'dispute'>;
+  reverses?: Exclude<LedgerEntryKind, 'refund' | 'payout' | 'dispute' | 'dispute_fee'>;
 }
 
 export const sellerAccount = (sellerId: string): LedgerAccount => `seller:${sellerId}`;
@@ -174,7 +174,7 @@ export function reversalEntries(entries: readonly LedgerEntry[], options: Revers
   return entries
     .filter((e) => !(keepProcessingCost && e.kind === 'processing_cost'))
     .map((e) => {
-      if (e.kind === 'refund' || e.kind === 'payout' || e.kind === 'dispute') throw new Error(`A ${e.kind} entry is not reversed by a refund`);
+      if (e.kind === 'refund' || e.kind === 'payout' || e.kind === 'dispute' || e.kind === 'dispute_fee') throw new Error(`A ${e.kind} entry is not reversed by a refund`);
       return { kind: 'refund', account: e.account, amountMinor: -e.amountMinor, reverses: e.kind };
     });
 }
@@ -211,6 +211,27 @@ export function disputeLostEntries({ sellerId, amountMinor, orderEntries }: { se
     { kind: 'dispute', account: 'guild', amountMinor: -(amountMinor - sellerShare - feeShare) },
   ];
   return entries.filter((e) => e.amountMinor !== 0);
+}
+
+/**
+ * The card processor's fee for handling a dispute, borne by the guild whatever the bank decides (design choice: the
+ * fee is the guild's cost of taking card payments, like the processing cost, and no seller chose to incur it).
+ * The processor reports what it charged on the dispute's balance movements, and a processor that gives the fee
+ * back with a won dispute reports a negative fee then; so the ledger follows the processor's figure: the entries
+ * book the difference between `chargedMinor` (the sum of the movements' fees) and the dispute fees already in
+ * `orderEntries`, nothing when they agree, which also makes news that arrives twice book once.
+ *   processor  +difference
+ *   guild      −difference
+ */
+export function disputeFeeEntries({ chargedMinor, orderEntries }: { chargedMinor: number; orderEntries: readonly LedgerEntry[] }): LedgerEntry[] {
+  if (!Number.isSafeInteger(chargedMinor)) throw new RangeError(`chargedMinor must be whole minor units, got ${chargedMinor}`);
+  const bookedMinor = orderEntries.filter((e) => e.kind === 'dispute_fee' && e.account === 'processor').reduce((sum, e) => sum + e.amountMinor, 0);
+  const differenceMinor = chargedMinor - bookedMinor;
+  if (differenceMinor === 0) return [];
+  return [
+    { kind: 'dispute_fee', account: 'processor', amountMinor: differenceMinor },
+    { kind: 'dispute_fee', account: 'guild', amountMinor: -differenceMinor },
+  ];
 }
 
 /** A payout the treasurer made to a seller: the guild owes them that much less. */

@@ -11,6 +11,8 @@ export class OrderDispute extends Model<InferAttributes<OrderDispute>, InferCrea
   declare amountMinor: number;
   declare currency: string;
   declare evidenceDueBy: Date | null;
+  /** The card service's fee for the dispute as it stands in the ledger (0 when none was charged or it came back). */
+  declare feeMinor: CreationOptional<number>;
   declare openedAt: Date;
   declare closedAt: CreationOptional<Date | null>;
   declare updatedAt: CreationOptional<Date>;
@@ -26,6 +28,7 @@ export class OrderDispute extends Model<InferAttributes<OrderDispute>, InferCrea
         amountMinor: { type: DataTypes.INTEGER, allowNull: false },
         currency: { type: DataTypes.CHAR(3), allowNull: false },
         evidenceDueBy: { type: DataTypes.DATE, allowNull: true },
+        feeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         openedAt: { type: DataTypes.DATE, allowNull: false },
         closedAt: { type: DataTypes.DATE, allowNull: true },
         updatedAt: DataTypes.DATE,

@@ -123,9 +123,11 @@ export async function dashboardFigures(sequelize: Sequelize, q: DashboardQuery, 
 
   const money: DashboardFigures['money'] = withMoney
     ? {
-        fundsRaisedMinor: total('money', 'fees') - total('money', 'processing'),
+        // Card costs: the processing cost of payments and the processor's fees for disputes.
+        fundsRaisedMinor: total('money', 'fees') - total('money', 'processing') - total('money', 'dispute_fees'),
         guildFeesMinor: total('money', 'fees'),
         processingCostMinor: total('money', 'processing'),
+        disputeFeesMinor: total('money', 'dispute_fees'),
         sellerCreditsMinor: total('money', 'credits'),
         payoutsMinor: total('money', 'payouts'),
         postagePaidMinor: total('postage'),
@@ -171,6 +173,7 @@ export function dashboardRows(f: DashboardFigures): [string, string | number][] 
       money('funds_raised', m.fundsRaisedMinor),
       money('guild_fees', m.guildFeesMinor),
       money('processing_cost', m.processingCostMinor),
+      money('dispute_fees', m.disputeFeesMinor),
       money('seller_credits', m.sellerCreditsMinor),
       money('payouts', m.payoutsMinor),
       money('postage_paid', m.postagePaidMinor),

@@ -47,6 +47,7 @@ export function officeRoutes(ctx: AppContext): Router {
       ['refunds', '', ...amount(s.refundsMinor)],
       ['processing_cost', '', ...amount(s.processingCostMinor)],
       ['disputes_lost', '', ...amount(s.disputesLostMinor)],
+      ['dispute_fees', '', ...amount(s.disputeFeesMinor)],
       ['payouts', '', ...amount(s.payoutsMinor)],
       ['seller_credits', '', ...amount(s.sellerCreditsMinor)],
       ...s.closingBalances.map((b) => ['closing_balance', b.name, ...amount(b.balanceMinor)]),

@@ -62,6 +62,7 @@ export async function monthStatement(sequelize: Sequelize, month: string): Promi
     refundsMinor: total('refunds'),
     processingCostMinor: total('processing'),
     disputesLostMinor: total('disputes'),
+    disputeFeesMinor: total('dispute_fees'),
     payoutsMinor: total('payouts'),
     sellerCreditsMinor: total('credits'),
     closingBalances: balances.map(([sellerId, name, balanceMinor]) => ({ sellerId, name, balanceMinor })),

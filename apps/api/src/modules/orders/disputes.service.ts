@@ -1,8 +1,8 @@
 import type Stripe from 'stripe';
 import { Op, type Transaction } from 'sequelize';
-import { disputeLostEntries, disputeReasonLabel, disputeStage, formatMoney, type LedgerEntry as DomainEntry } from '@scrap-relay/shared';
+import { disputeFeeEntries, disputeLostEntries, disputeReasonLabel, disputeStage, formatMoney, type LedgerEntry as DomainEntry } from '@scrap-relay/shared';
 import { LedgerEntry, Member, Order, OrderDispute, OrderItem, type Guild } from '../../db/models/index.ts';
-import { disputeKept, disputeLost, disputeOpened } from '../../emails/disputes.ts';
+import { disputeForSeller, disputeKept, disputeLost, disputeOpened, type DisputeFee, type SellerDisputeNews } from '../../emails/disputes.ts';
 import { formatWhen } from '../../emails/format.ts';
 import type { RenderedEmail } from '../../emails/render.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
@@ -27,9 +27,10 @@ const idOf = (value: string | { id: string } | null) => (typeof value === 'strin
 
 /**
  * `charge.dispute.*` events: the dispute is recorded on the order whose payment it questions, in the transaction
- * that records the event. The first news of an open dispute tells every treasurer; its decision is told once: a
- * lost one is booked in the ledger (the seller's credit and the guild's fee for the order taken back), a won one
- * changes nothing. A decided dispute is not reopened by news arriving late or twice. A dispute about a payment no
+ * that records the event. The card service's fee for the dispute is booked as it reports it (`bookDisputeFee`). The
+ * first news of an open dispute tells every treasurer and the seller; its decision is told once: a lost one is booked
+ * in the ledger (the seller's credit and the guild's fee for the order taken back), a won one leaves the order's
+ * money as it was. A decided dispute is not reopened by news arriving late or twice. A dispute about a payment no
  * order knows is logged and left: the event is still acknowledged, so the card service stops sending it.
  */
 export async function recordDispute(ctx: AppContext, dispute: Stripe.Dispute, transaction: Transaction): Promise<void> {
@@ -53,27 +54,56 @@ export async function recordDispute(ctx: AppContext, dispute: Stripe.Dispute, tr
   const record = existing
     ? await existing.update(fields, { transaction })
     : await OrderDispute.create({ orderId: order.id, stripeDisputeId: dispute.id, openedAt: new Date(dispute.created * 1000), ...fields }, { transaction });
+  const fee = await bookDisputeFee(ctx, order, dispute, transaction);
+  await record.update({ feeMinor: fee.standingMinor }, { transaction });
 
   const guild = await loadGuild();
   const mail = { guildName: guild.name, reference: order.reference, link: `${ctx.config.appUrl}/orders/${order.id}`, amount: formatMoney(record.amountMinor, order.currency) };
+  const seller = (await Member.findByPk(order.sellerId, { transaction }))!;
+  const sent = order.state !== 'confirmed';
+  const tellSeller = (news: SellerDisputeNews) =>
+    ctx.queue.enqueueEmail({ to: seller.email, ...disputeForSeller({ guildName: guild.name, name: seller.name, reference: order.reference, link: mail.link, news }) }, transaction);
+  const money = (minor: number) => (minor > 0 ? formatMoney(minor, order.currency) : null);
   if (stage === 'open') {
-    if (!existing) await tellTreasurers(ctx, transaction, await openedMail(guild, order, record, transaction, mail));
+    if (existing) return;
+    await tellTreasurers(ctx, transaction, await openedMail(guild, order, record, seller, money(fee.standingMinor), transaction, mail));
+    await tellSeller({ stage: 'open', sent });
     return;
   }
+  const feeNews: DisputeFee = { standing: money(fee.standingMinor), returned: money(-fee.bookedMinor) };
   if (stage === 'lost') {
     const share = await bookLostDispute(ctx, order, record.amountMinor, transaction);
     // As with a refund, the seller owes only what was paid out with no delivered bag behind it any more: credit
     // still waiting for a bag to go out may be taken back too, so it does not cover the debt.
     const [split] = await sellerBalanceSplits(ctx.sequelize, [order.sellerId], transaction);
-    const balance = split?.payableMinor ?? 0;
-    const seller = (await Member.findByPk(order.sellerId, { transaction }))!;
-    const money = (minor: number) => (minor > 0 ? formatMoney(minor, order.currency) : null);
+    const owing = money(-(split?.payableMinor ?? 0));
     await tellTreasurers(ctx, transaction, (name) =>
-      disputeLost({ ...mail, name, sellerName: seller.name, share: money(share), owing: money(-balance), notYetPosted: order.state === 'confirmed' }),
+      disputeLost({ ...mail, name, sellerName: seller.name, share: money(share), owing, notYetPosted: !sent, fee: feeNews }),
     );
+    await tellSeller({ stage: 'lost', share: money(share), owing, sent });
     return;
   }
-  await tellTreasurers(ctx, transaction, (name) => disputeKept({ ...mail, name, how: stage }));
+  await tellTreasurers(ctx, transaction, (name) => disputeKept({ ...mail, name, how: stage, fee: feeNews }));
+  await tellSeller({ stage });
+}
+
+/**
+ * Books the card service's fee for the dispute as its balance movements report it (their fees summed: charged when
+ * the money is withdrawn, negative if a win gives it back), less what is booked already. Returns the fee standing
+ * after this news and what this news booked (negative: given back). A movement in another currency than the
+ * order's is not the guild's to book here and is logged for the treasurer to look at.
+ */
+async function bookDisputeFee(ctx: AppContext, order: Order, dispute: Stripe.Dispute, transaction: Transaction): Promise<{ standingMinor: number; bookedMinor: number }> {
+  const movements = (dispute.balance_transactions ?? []).filter((m) => typeof m === 'object' && m !== null);
+  const ours = movements.filter((m) => m.currency.toUpperCase() === order.currency);
+  if (ours.length < movements.length) {
+    ctx.logger.error({ orderId: order.id, disputeId: dispute.id, currencies: movements.map((m) => m.currency) }, 'a dispute fee in another currency than the order’s; not booked');
+  }
+  const chargedMinor = ours.reduce((sum, m) => sum + m.fee, 0);
+  const standing = await LedgerEntry.findAll({ where: { orderId: order.id, kind: 'dispute_fee' }, transaction });
+  const entries = disputeFeeEntries({ chargedMinor, orderEntries: standing.map((e) => ({ kind: e.kind, account: e.account as DomainEntry['account'], amountMinor: e.amountMinor })) });
+  await writeLedger(entries, { orderId: order.id, currency: order.currency, at: ctx.now() }, transaction);
+  return { standingMinor: chargedMinor, bookedMinor: entries.find((e) => e.account === 'processor')?.amountMinor ?? 0 };
 }
 
 /** Writes the lost dispute's entries; returns the seller's credit it took back. */
@@ -97,19 +127,18 @@ async function openedMail(
   guild: Guild,
   order: Order,
   record: OrderDispute,
+  seller: Member,
+  fee: string | null,
   transaction: Transaction,
   mail: { guildName: string; reference: string; link: string; amount: string },
 ): Promise<(name: string) => RenderedEmail> {
   const timeZone = guildTimeZone(guild);
-  const [buyer, seller, items] = await Promise.all([
-    Member.findByPk(order.buyerId, { transaction }),
-    Member.findByPk(order.sellerId, { transaction }),
-    OrderItem.findAll({ where: { orderId: order.id }, transaction }),
-  ]);
+  const [buyer, items] = await Promise.all([Member.findByPk(order.buyerId, { transaction }), OrderItem.findAll({ where: { orderId: order.id }, transaction })]);
   const details = {
     ...mail,
+    fee,
     buyerName: buyer!.name,
-    sellerName: seller!.name,
+    sellerName: seller.name,
     titles: items.map((i) => (i.quantity > 1 ? `${i.title} × ${i.quantity}` : i.title)),
     reason: disputeReasonLabel(record.reason),
     dueBy: record.evidenceDueBy ? formatWhen(record.evidenceDueBy, timeZone) : null,

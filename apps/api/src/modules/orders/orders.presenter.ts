@@ -27,6 +27,7 @@ function presentDispute(order: Order, viewer: Actor): OrderDisputeView | null {
     amountMinor: details ? dispute.amountMinor : null,
     reason: details ? dispute.reason : null,
     evidenceDueBy: details ? iso(dispute.evidenceDueBy) : null,
+    feeMinor: details ? dispute.feeMinor : null,
   };
 }
 

@@ -103,6 +103,9 @@ function Figures({ title, figures, units, busy }: { title: string; figures: Dash
             <Figure term="Funds raised" value={formatMoney(money.fundsRaisedMinor, money.currency)} detail="Guild fees less card costs: what the guild kept." />
             <Figure term="Guild fees" value={formatMoney(money.guildFeesMinor, money.currency)} detail="After refunds." />
             <Figure term="Card costs" value={formatMoney(money.processingCostMinor, money.currency)} detail="The card processor’s fees, kept even on refunds." />
+            {money.disputeFeesMinor !== 0 ? (
+              <Figure term="Dispute fees" value={formatMoney(money.disputeFeesMinor, money.currency)} detail="The card processor’s fees for handling disputes." />
+            ) : null}
             <Figure term="Credited to sellers" value={formatMoney(money.sellerCreditsMinor, money.currency)} />
             <Figure term="Paid out to sellers" value={formatMoney(money.payoutsMinor, money.currency)} />
             <Figure term="Postage paid by buyers" value={formatMoney(money.postagePaidMinor, money.currency)} />

@@ -85,6 +85,7 @@ function Statement({ statement: s, guildName }: { statement: MonthStatement; gui
     ['Guild fees kept', s.guildFeesMinor, 'The guild’s fees, less fees given back with refunds.'],
     ['Card processing cost', s.processingCostMinor, 'What the card processor kept.'],
     ['Taken back by buyers’ banks', s.disputesLostMinor, 'Disputes the guild lost: payments the card processor returned to the buyer’s card.'],
+    ['Dispute fees', s.disputeFeesMinor, 'What the card processor charged for handling disputes, less fees it gave back.'],
     ['Credited to sellers', s.sellerCreditsMinor, 'Sellers’ shares and postage, less refunds.'],
     ['Paid out to sellers', s.payoutsMinor, 'Payouts the treasurer recorded.'],
   ];

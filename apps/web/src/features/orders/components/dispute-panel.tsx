@@ -23,6 +23,8 @@ export function DisputePanel({ order, dispute }: { order: OrderView; dispute: Or
       <dl className="grid gap-x-6 sm:grid-cols-[12rem_1fr] sm:gap-y-2 max-sm:[&>dd]:mb-3">
         <dt className="font-semibold text-thread-soft">Amount disputed</dt>
         <dd className="font-bold">{dispute.amountMinor === null ? '—' : formatMoney(dispute.amountMinor, order.currency)}</dd>
+        <dt className="font-semibold text-thread-soft">Card service’s dispute fee</dt>
+        <dd>{dispute.feeMinor ? `${formatMoney(dispute.feeMinor, order.currency)}, the guild’s cost` : 'None'}</dd>
         <dt className="font-semibold text-thread-soft">Reason the bank gave</dt>
         <dd>{dispute.reason === null ? '—' : disputeReasonLabel(dispute.reason)}</dd>
         <dt className="font-semibold text-thread-soft">Opened</dt>
@@ -61,16 +63,16 @@ export function DisputePanel({ order, dispute }: { order: OrderView; dispute: Or
 }
 
 const STAGE_NOTES: Record<OrderDisputeView['stage'], string> = {
-  open: 'While the bank decides, the order cannot be refunded or cancelled, and the ledger stays as it is.',
-  lost: 'The money went back to the buyer’s card. The ledger shows the seller’s credit and the guild’s fee for this order taken back.',
-  won: 'The money stays with the guild. Nothing changed in the ledger.',
-  closed: 'The bank closed its questions without taking the money back. Nothing changed in the ledger.',
+  open: 'While the bank decides, the order cannot be refunded or cancelled. The ledger holds the card service’s dispute fee as the guild’s cost; the order’s own money changes only if the guild loses.',
+  lost: 'The money went back to the buyer’s card. The ledger shows the seller’s credit and the guild’s fee for this order taken back, and the card service’s dispute fee as the guild’s cost.',
+  won: 'The money stays with the guild, and the seller’s credit with it. The ledger shows the card service’s dispute fee, and gives it back if the card service did.',
+  closed: 'The bank closed its questions without taking the money back. The seller’s credit stands.',
 };
 
 const SELLER_NOTES: Record<OrderDisputeView['stage'], { title: string; text: string }> = {
   open: {
     title: 'The buyer’s bank is looking into the card payment for this order',
-    text: 'The guild’s treasurer answers the bank. You need do nothing unless the treasurer asks you for something, such as proof of posting.',
+    text: 'The guild’s treasurer answers the bank. Keep your proof of posting: the treasurer may ask you for it. Your credit for this order stays unless the bank decides for the buyer.',
   },
   lost: {
     title: 'The buyer’s bank took the card payment back',
@@ -86,6 +88,7 @@ function SellerDisputeNote({ dispute, notSentYet }: { dispute: OrderDisputeView;
   return (
     <Alert tone={dispute.stage === 'lost' ? 'warning' : 'info'} title={note.title} announce={false}>
       <p>{note.text}</p>
+      {dispute.stage === 'open' && notSentYet ? <p className="font-semibold">The bundles have not gone out yet: keep them until the treasurer tells you whether to send them.</p> : null}
       {dispute.stage === 'lost' && notSentYet ? <p className="font-semibold">The bundles have not gone out yet: ask the treasurer before you send them.</p> : null}
     </Alert>
   );

@@ -86,6 +86,7 @@ const openForTreasurer: OrderDisputeView = {
   reason: 'product_not_received',
   openedAt: '2026-11-20T17:00:00.000Z',
   evidenceDueBy: '2026-11-27T23:59:59.000Z',
+  feeMinor: 1500,
   closedAt: null,
 };
 
@@ -131,7 +132,7 @@ describe('a disputed card payment on the order page', () => {
   });
 
   it('gives the seller a plain line and none of the bank’s details', async () => {
-    const forSeller: OrderDisputeView = { stage: 'open', status: null, amountMinor: null, reason: null, evidenceDueBy: null, openedAt: openForTreasurer.openedAt, closedAt: null };
+    const forSeller: OrderDisputeView = { stage: 'open', status: null, amountMinor: null, reason: null, evidenceDueBy: null, feeMinor: null, openedAt: openForTreasurer.openedAt, closedAt: null };
     const { container } = await orderPage(posted('seller', forSeller));
     expect(disputePanel(container)).toBeUndefined();
     const note = container.querySelector('[class*="border-l-8"]')?.textContent ?? '';
@@ -141,7 +142,7 @@ describe('a disputed card payment on the order page', () => {
   });
 
   it('asks the seller to check with the treasurer before sending bundles whose payment the bank took back', async () => {
-    const lost: OrderDisputeView = { stage: 'lost', status: null, amountMinor: null, reason: null, evidenceDueBy: null, openedAt: openForTreasurer.openedAt, closedAt: '2026-12-10T18:00:00.000Z' };
+    const lost: OrderDisputeView = { stage: 'lost', status: null, amountMinor: null, reason: null, evidenceDueBy: null, feeMinor: null, openedAt: openForTreasurer.openedAt, closedAt: '2026-12-10T18:00:00.000Z' };
     const unsent = await orderPage({ ...posted('seller', lost), state: 'confirmed', postedAt: null, trackingNumber: null });
     expect(unsent.container.textContent).toContain('The buyer’s bank took the card payment back');
     expect(unsent.container.textContent).toContain('ask the treasurer before you send them');

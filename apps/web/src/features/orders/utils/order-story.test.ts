@@ -139,6 +139,7 @@ describe('a disputed payment in the timeline', () => {
         reason: 'product_unacceptable',
         openedAt: '2026-11-20T17:00:00.000Z',
         evidenceDueBy: null,
+        feeMinor: 1500,
         closedAt: '2026-12-10T18:00:00.000Z',
       },
     };
@@ -157,7 +158,7 @@ describe('a disputed payment in the timeline', () => {
       ...paid,
       viewerIs: 'seller',
       postedAt: null,
-      dispute: { stage: 'open', status: null, amountMinor: null, reason: null, evidenceDueBy: null, openedAt: '2026-11-02T10:05:00.000Z', closedAt: null },
+      dispute: { stage: 'open', status: null, amountMinor: null, reason: null, evidenceDueBy: null, feeMinor: null, openedAt: '2026-11-02T10:05:00.000Z', closedAt: null },
     };
     expect(orderTimeline(order).map((e) => [e.title, e.detail])).toEqual([
       ['Order placed', undefined],

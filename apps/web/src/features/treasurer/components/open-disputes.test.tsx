@@ -30,6 +30,7 @@ const disputed: OrderView = makeOrderView({
     reason: 'product_unacceptable',
     openedAt: '2026-11-20T17:00:00.000Z',
     evidenceDueBy: '2026-11-27T23:59:59.000Z',
+    feeMinor: 1500,
     closedAt: null,
   },
 });
@@ -86,5 +87,12 @@ describe('a lost dispute in the ledger', () => {
     expect(ledgerKindText('dispute', null)).toBe('Dispute lost');
     expect(ledgerDirection('processor', 1930, 'dispute')).toBe('taken back through the card processor');
     expect(ledgerDirection('processor', 86, 'processing_cost')).toBe('kept by the card processor');
+  });
+
+  it('names the card processor’s dispute fee, charged and given back', () => {
+    expect(ledgerKindText('dispute_fee', null)).toBe('Dispute fee');
+    expect(ledgerDirection('processor', 1500, 'dispute_fee')).toBe('kept by the card processor');
+    expect(ledgerDirection('processor', -1500, 'dispute_fee')).toBe('returned by the card processor');
+    expect(ledgerDirection('guild', -1500, 'dispute_fee')).toBe('from the guild');
   });
 });

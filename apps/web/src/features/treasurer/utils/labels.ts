@@ -8,6 +8,7 @@ export const LEDGER_KIND_LABELS: Readonly<Record<LedgerEntryKind, string>> = {
   refund: 'Refund',
   payout: 'Payout',
   dispute: 'Dispute lost',
+  dispute_fee: 'Dispute fee',
 };
 
 export const PAYOUT_METHOD_LABELS: Readonly<Record<PayoutInput['method'], string>> = {
