@@ -1,7 +1,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
-import { csrfHeaders, latestMailTo, shelvedThroughApi, signedInPage, signIn, submittedThroughApi } from './support/index.ts';
+import { csrfHeaders, emptyBasketOf, latestMailTo, shelvedThroughApi, signedInPage, signIn, submittedThroughApi } from './support/index.ts';
 
 /**
  * Every page of the product through axe-core, against WCAG 2.0, 2.1 and 2.2 A and
@@ -110,6 +110,7 @@ test('signed-out pages, and the sign-in form with its errors', { tag: '@phone' }
 
 test('a member’s pages: shelf, bundles, listing, wishes, basket, orders, meetings, dashboard, profile', { tag: '@phone' }, async ({ browser }) => {
   test.setTimeout(180_000);
+  await emptyBasketOf(browser, GUS);
   const gus = await signedInPage(browser, GUS);
 
   await check(gus, paths.app.home.getHref(), 'Welcome, Gus Pennyworth', 'home');

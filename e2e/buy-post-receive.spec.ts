@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
-import { screenshot, shelvedThroughApi, signedInPage } from './support/index.ts';
+import { emptyBasketOf, screenshot, shelvedThroughApi, signedInPage } from './support/index.ts';
 
 /**
  * A sale by post from start to finish: Ruth's bundle is listed and approved
@@ -49,7 +49,8 @@ test('Gus buys Ruth’s bundle by post, Ruth posts it, Gus receives it, Tomas pa
   const title = `Green strips for a scrappy border (${test.info().project.name} ${Date.now()})`;
   const bundleId = await shelvedThroughApi(browser, { sellerEmail: RUTH.email, librarianEmail: LENA, listing: { ...listing, title }, photoRgb: [60, 120, 70], photoName: 'green-strips.jpg' });
 
-  // Gus: from the bundle page to the basket.
+  // Gus: from the bundle page to the basket, which he starts empty.
+  await emptyBasketOf(browser, GUS.email);
   const gus = await signedInPage(browser, GUS.email);
   await gus.goto(paths.app.bundle.getHref(bundleId));
   await gus.getByRole('link', { name: 'Add to basket' }).click();

@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
-import { screenshot, shelvedThroughApi, signedInPage } from './support/index.ts';
+import { emptyBasketOf, screenshot, shelvedThroughApi, signedInPage } from './support/index.ts';
 
 /**
  * A bag given away for the price of postage: Ruth offers it postage-only
@@ -37,6 +37,7 @@ test('Gus takes Ruth’s postage-only gift and pays only the postage', { tag: '@
   const title = `Light 5-inch squares, free for postage (${test.info().project.name} ${Date.now()})`;
   const bundleId = await shelvedThroughApi(browser, { sellerEmail: RUTH.email, librarianEmail: LENA, listing: { ...gift, title }, photoRgb: [225, 215, 195], photoName: 'light-squares.jpg' });
 
+  await emptyBasketOf(browser, GUS.email);
   const gus = await signedInPage(browser, GUS.email);
   await gus.goto(paths.app.basketAdd.getHref(bundleId));
   await expect(gus).toHaveURL((url) => url.pathname === paths.app.basket.path);

@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths.ts';
-import { screenshot, signIn } from './support/index.ts';
+import { emptyBasketOf, screenshot, signIn } from './support/index.ts';
 
 /**
  * Each demo account (from the demo guild seed) signs in and sees the menu its
@@ -110,7 +110,9 @@ async function mainMenu(page: Page) {
 }
 
 for (const account of accounts) {
-  test(`${account.who} ${account.name} signs in and sees the menu for their roles`, { tag: '@phone' }, async ({ page }) => {
+  test(`${account.who} ${account.name} signs in and sees the menu for their roles`, { tag: '@phone' }, async ({ page, browser }) => {
+    // An empty basket, so the menu's Basket carries no count from an earlier journey.
+    await emptyBasketOf(browser, account.email);
     await signIn(page, account.email, PASSWORD);
 
     await expect(page).toHaveURL((url) => url.pathname === paths.app.home.path);

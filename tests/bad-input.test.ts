@@ -7,7 +7,7 @@ let api: TestApi;
 let admin: Member;
 let adminClient: Client;
 let target: Member;
-const TABLES = ['members', 'member_tokens', 'guild', 'bundles', 'bundle_photos', 'orders', 'wishes', 'meetings', 'payouts', 'ledger_entries', 'waitlist_entries', 'starter_claims', 'order_problems'];
+const TABLES = ['members', 'member_tokens', 'guild', 'bundles', 'bundle_photos', 'orders', 'wishes', 'meetings', 'payouts', 'ledger_entries', 'waitlist_entries', 'starter_claims', 'order_problems', 'basket_items'];
 
 beforeAll(async () => {
   api = await startTestApi();
@@ -44,6 +44,8 @@ const routes: Route[] = [
   { method: 'post', path: () => `/api/bundles/${someId}/review`, field: 'decision', wrong: { decision: 'maybe', notes: 7 } },
   { method: 'post', path: () => '/api/estimates/yield', field: 'weightGrams', wrong: { weightGrams: 1e12, fibre: 'silk' } },
   { method: 'post', path: () => '/api/wishes', field: 'name', wrong: { name: 1, filters: 'all' } },
+  { method: 'post', path: () => '/api/basket/items', field: 'bundleId', wrong: { bundleId: 7, quantity: 'lots' } },
+  { method: 'patch', path: () => `/api/basket/items/${someId}`, field: 'quantity', wrong: { quantity: -1 } },
   { method: 'post', path: () => '/api/postage-quotes', field: 'items', wrong: { items: 'all', destination: 5 } },
   { method: 'post', path: () => '/api/orders', field: 'items', wrong: { items: [{ bundleId: 'x', quantity: 1e9 }], fulfilment: 'drone' } },
   { method: 'post', path: () => `/api/orders/${someId}/posted`, wrong: { trackingNumber: 5 } },

@@ -17,6 +17,31 @@ export async function signedInPage(browser: Browser, email: string, screen?: { w
   return page;
 }
 
+/**
+ * Empties a member's basket through the API, from a browser context of its own that is closed again. The basket
+ * is kept on the server and follows the member everywhere, so a journey that reads it starts from an empty one
+ * rather than from whatever an earlier journey (or the other screen size's run of this one) left in it.
+ */
+export async function emptyBasketOf(browser: Browser, email: string): Promise<void> {
+  const context = await browser.newContext({ baseURL: test.info().project.use.baseURL });
+  try {
+    const { request } = context;
+    const before = await request.get('/api/session');
+    const signedIn = await request.post('/api/session', {
+      headers: { 'X-CSRF-Token': ((await before.json()) as { csrfToken: string }).csrfToken },
+      data: { email, password: DEMO_PASSWORD },
+    });
+    expect(signedIn.status(), await signedIn.text()).toBe(200);
+    const headers = { 'X-CSRF-Token': ((await signedIn.json()) as { csrfToken: string }).csrfToken };
+    const basket = await request.get('/api/basket');
+    for (const item of ((await basket.json()) as { basket: { items: { bundleId: string }[] } }).basket.items) {
+      expect((await request.delete(`/api/basket/items/${item.bundleId}`, { headers })).status()).toBe(200);
+    }
+  } finally {
+    await context.close();
+  }
+}
+
 /** The CSRF header for API calls made from a signed-in page, as the web app sends it. */
 export async function csrfHeaders(page: Page): Promise<Record<string, string>> {
   const session = await page.request.get('/api/session');

@@ -19,6 +19,7 @@ import { sessionRoutes } from './modules/session/session.routes.ts';
 import { bundlesRoutes } from './modules/bundles/bundles.routes.ts';
 import { reviewRoutes } from './modules/review/review.routes.ts';
 import { wishesRoutes } from './modules/wishes/wishes.routes.ts';
+import { basketRoutes } from './modules/basket/basket.routes.ts';
 import { ordersRoutes } from './modules/orders/orders.routes.ts';
 import { webhookRoutes } from './modules/payments/webhook.routes.ts';
 import { postageRoutes } from './modules/postage/postage.routes.ts';
@@ -73,6 +74,7 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   api.use(reviewRoutes(ctx));
   api.use(bundlesRoutes(ctx));
   api.use(wishesRoutes());
+  api.use(basketRoutes(ctx));
   api.use(postageRoutes());
   api.use(ordersRoutes(ctx));
   api.use(ledgerRoutes(ctx));

@@ -1,10 +1,12 @@
+import { MAX_LINE_QUANTITY, type BasketAddInput, type BasketView } from '@scrap-relay/shared';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useSyncExternalStore } from 'react';
+import { api, isApiError } from './api-client.ts';
 
 /**
- * The basket lives in this browser (localStorage), not on the server: nothing is
- * held until checkout. It records whose basket it is, so on a shared tablet the
- * next member starts with an empty one. Shared because the menu shows its count
- * and the checkout feature fills and empties it.
+ * The member's basket lives on the server (`/api/basket`), so it follows them from the phone at a meeting to the
+ * computer at home; nothing is held for them until checkout. Shared because the menu shows its count and the
+ * checkout feature fills and empties it. Every change answers with the whole basket, which replaces the cached one.
  */
 
 export interface BasketItem {
@@ -12,125 +14,141 @@ export interface BasketItem {
   quantity: number;
 }
 
-export interface Basket {
-  memberId: string | null;
-  items: readonly BasketItem[];
-}
-
-/** The API takes at most 50 of one bundle and 20 bundles per order (orderCreateSchema). */
-export const MAX_BASKET_QUANTITY = 50;
-export const MAX_BASKET_ITEMS = 60;
-
-export const BASKET_STORAGE_KEY = 'scrap-relay.basket.v1';
+/** The most copies of one bundle a basket line (and an order) asks for. */
+export const MAX_BASKET_QUANTITY = MAX_LINE_QUANTITY;
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-const EMPTY: Basket = { memberId: null, items: [] };
 
 export const isBundleId = (value: unknown): value is string => typeof value === 'string' && UUID.test(value);
 
-const clampQuantity = (quantity: number): number => Math.min(MAX_BASKET_QUANTITY, Math.max(1, Math.trunc(quantity)));
+/** Per member, so a shared device never shows one member another's basket from the cache. */
+export const basketQueryKey = (memberId: string) => ['basket', memberId] as const;
 
-/** Reads what is stored, dropping anything malformed (an old version, a hand edit) rather than failing. */
-export function parseBasket(raw: string | null): Basket {
-  if (!raw) return EMPTY;
+/* ---------- the basket an earlier version kept in this browser ---------- */
+
+/** Where an earlier version kept the basket, in this browser only. */
+export const LEGACY_BASKET_KEY = 'scrap-relay.basket.v1';
+
+/**
+ * Reads a basket an earlier version left in this browser, dropping anything malformed (a hand edit, another
+ * member's basket on a shared device) rather than failing.
+ */
+export function parseLegacyBasket(raw: string | null, memberId: string): BasketItem[] {
+  if (!raw) return [];
   let value: unknown;
   try {
     value = JSON.parse(raw);
   } catch {
-    return EMPTY;
+    return [];
   }
-  if (typeof value !== 'object' || value === null) return EMPTY;
-  const { memberId, items } = value as { memberId?: unknown; items?: unknown };
+  if (typeof value !== 'object' || value === null) return [];
+  const { memberId: owner, items } = value as { memberId?: unknown; items?: unknown };
+  if (owner !== memberId || !Array.isArray(items)) return [];
   const seen = new Set<string>();
   const kept: BasketItem[] = [];
-  for (const item of Array.isArray(items) ? items : []) {
+  for (const item of items) {
     const { bundleId, quantity } = (item ?? {}) as { bundleId?: unknown; quantity?: unknown };
     if (!isBundleId(bundleId) || seen.has(bundleId) || typeof quantity !== 'number' || !Number.isFinite(quantity) || quantity < 1) continue;
     seen.add(bundleId);
-    kept.push({ bundleId, quantity: clampQuantity(quantity) });
+    kept.push({ bundleId, quantity: Math.min(MAX_BASKET_QUANTITY, Math.trunc(quantity)) });
   }
-  return { memberId: typeof memberId === 'string' ? memberId : null, items: kept.slice(0, MAX_BASKET_ITEMS) };
+  return kept;
 }
 
-/** The items of `memberId`'s basket: someone else's basket on this device counts as empty. */
-export const itemsFor = (basket: Basket, memberId: string): readonly BasketItem[] =>
-  basket.memberId === memberId ? basket.items : [];
-
-/** Puts a bundle in the basket. Asking twice keeps one line (a reload of the add link must not double it). */
-export function withItem(basket: Basket, memberId: string, bundleId: string, quantity = 1): Basket {
-  const items = itemsFor(basket, memberId);
-  const existing = items.find((item) => item.bundleId === bundleId);
-  if (existing) {
-    const wanted = Math.max(existing.quantity, clampQuantity(quantity));
-    return { memberId, items: items.map((item) => (item.bundleId === bundleId ? { bundleId, quantity: wanted } : item)) };
-  }
-  return { memberId, items: [...items, { bundleId, quantity: clampQuantity(quantity) }].slice(-MAX_BASKET_ITEMS) };
-}
-
-export function withQuantity(basket: Basket, memberId: string, bundleId: string, quantity: number): Basket {
-  const items = itemsFor(basket, memberId);
-  return { memberId, items: items.map((item) => (item.bundleId === bundleId ? { bundleId, quantity: clampQuantity(quantity) } : item)) };
-}
-
-export function withoutItems(basket: Basket, memberId: string, bundleIds: Iterable<string>): Basket {
-  const gone = new Set(bundleIds);
-  return { memberId, items: itemsFor(basket, memberId).filter((item) => !gone.has(item.bundleId)) };
-}
-
-/* ---------- the browser store ---------- */
-
-const listeners = new Set<() => void>();
-// Kept when storage is refused (private browsing, storage full), so the basket still works for this visit.
-let memoryCopy: string | null = null;
-let cached: { raw: string | null; basket: Basket } = { raw: null, basket: EMPTY };
-
-function readRaw(): string | null {
+/**
+ * Moves a basket an earlier version kept in this browser to the server, once: each bundle is added (a bundle
+ * already there keeps the larger quantity), one that can no longer be added is left out, and the browser's copy
+ * is removed once every line has had its answer. A line the server could not be asked about stays for next time.
+ */
+async function moveLegacyBasket(memberId: string): Promise<void> {
+  let raw: string | null;
   try {
-    return window.localStorage.getItem(BASKET_STORAGE_KEY) ?? memoryCopy;
+    raw = window.localStorage.getItem(LEGACY_BASKET_KEY);
   } catch {
-    return memoryCopy;
+    return;
   }
-}
-
-export function readBasket(): Basket {
-  const raw = readRaw();
-  if (raw !== cached.raw) cached = { raw, basket: parseBasket(raw) };
-  return cached.basket;
-}
-
-export function writeBasket(basket: Basket): void {
-  const raw = JSON.stringify({ memberId: basket.memberId, items: basket.items });
-  memoryCopy = raw;
+  const items = parseLegacyBasket(raw, memberId);
+  const unanswered: BasketItem[] = [];
+  for (const item of items) {
+    try {
+      await api.post('/basket/items', item);
+    } catch (error) {
+      // A 4xx is the server's answer (gone from the shelf, the member's own); anything else is asked again next time.
+      if (!isApiError(error) || error.status >= 500) unanswered.push(item);
+    }
+  }
   try {
-    window.localStorage.setItem(BASKET_STORAGE_KEY, raw);
+    if (unanswered.length === 0) window.localStorage.removeItem(LEGACY_BASKET_KEY);
+    else window.localStorage.setItem(LEGACY_BASKET_KEY, JSON.stringify({ memberId, items: unanswered }));
   } catch {
-    // The memory copy above carries on for this visit.
+    // Storage refused: the next visit tries again, and adding twice adds nothing.
   }
-  for (const listener of listeners) listener();
 }
 
-export const updateBasket = (change: (basket: Basket) => Basket): void => writeBasket(change(readBasket()));
+/* ---------- the server's basket ---------- */
 
-function subscribe(listener: () => void): () => void {
-  listeners.add(listener);
-  // Another tab changed the basket.
-  const onStorage = (event: StorageEvent) => {
-    if (event.key === BASKET_STORAGE_KEY || event.key === null) listener();
+export const getBasket = async (memberId: string, { signal }: { signal?: AbortSignal } = {}): Promise<BasketView> => {
+  await moveLegacyBasket(memberId);
+  return (await api.get<{ basket: BasketView }>('/basket', { signal })).basket;
+};
+
+/** The member's basket; `enabled: false` waits (the menu asks only once the page has loaded). */
+export const useBasket = (memberId: string, { enabled = true }: { enabled?: boolean } = {}) =>
+  useQuery({ queryKey: basketQueryKey(memberId), queryFn: ({ signal }) => getBasket(memberId, { signal }), enabled });
+
+/**
+ * Changes to the basket. Quantity changes and removals show at once and are put back if the server refuses;
+ * every answer replaces the cached basket with the server's.
+ */
+export function useBasketChanges(memberId: string) {
+  const queryClient = useQueryClient();
+  const key = basketQueryKey(memberId);
+  const settle = (basket: BasketView) => queryClient.setQueryData(key, basket);
+  const optimistic = (change: (items: BasketView['items']) => BasketView['items']) => async () => {
+    await queryClient.cancelQueries({ queryKey: key });
+    const before = queryClient.getQueryData<BasketView>(key);
+    if (before) queryClient.setQueryData<BasketView>(key, { items: change(before.items) });
+    return { before };
   };
-  window.addEventListener('storage', onStorage);
-  return () => {
-    listeners.delete(listener);
-    window.removeEventListener('storage', onStorage);
+  const putBack = (_error: unknown, _input: unknown, context: { before?: BasketView } | undefined) => {
+    if (context?.before) queryClient.setQueryData(key, context.before);
+    void queryClient.invalidateQueries({ queryKey: key });
   };
+
+  const add = useMutation({
+    mutationFn: async (input: BasketAddInput) => (await api.post<{ basket: BasketView }>('/basket/items', input)).basket,
+    onSuccess: settle,
+  });
+  const setQuantity = useMutation({
+    mutationFn: async ({ bundleId, quantity }: { bundleId: string; quantity: number }) =>
+      (await api.patch<{ basket: BasketView }>(`/basket/items/${bundleId}`, { quantity })).basket,
+    onMutate: ({ bundleId, quantity }) => optimistic((items) => items.map((i) => (i.bundleId === bundleId ? { ...i, quantity } : i)))(),
+    onSuccess: settle,
+    onError: putBack,
+  });
+  const remove = useMutation({
+    mutationFn: async (bundleId: string) => (await api.delete<{ basket: BasketView }>(`/basket/items/${bundleId}`)).basket,
+    onMutate: (bundleId) => optimistic((items) => items.filter((i) => i.bundleId !== bundleId))(),
+    onSuccess: settle,
+    onError: putBack,
+  });
+  return { add, setQuantity, remove };
 }
 
-const serverSnapshot = () => EMPTY;
+/* ---------- the menu's count ---------- */
 
-/** The stored basket, re-rendering when it changes here or in another tab. */
-export const useStoredBasket = (): Basket => useSyncExternalStore(subscribe, readBasket, serverSnapshot);
+function subscribeToLoad(listener: () => void): () => void {
+  window.addEventListener('load', listener);
+  return () => window.removeEventListener('load', listener);
+}
+const pageLoaded = () => document.readyState === 'complete';
 
-/** How many bundles (counting copies) are in the basket; for the menu. */
-export function useBasketCount(): number {
-  const basket = useStoredBasket();
-  return basket.items.reduce((sum, item) => sum + item.quantity, 0);
+/**
+ * How many bundles (counting copies) are in the basket; for the menu. It asks the server only once the page has
+ * loaded, so the count never competes with the page's own first requests on a slow connection.
+ */
+export function useBasketCount(memberId: string | null): number {
+  const loaded = useSyncExternalStore(subscribeToLoad, pageLoaded, () => false);
+  const basket = useBasket(memberId ?? '', { enabled: loaded && memberId !== null }).data;
+  return basket ? basket.items.reduce((sum, item) => sum + item.quantity, 0) : 0;
 }

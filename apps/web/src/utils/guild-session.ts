@@ -22,6 +22,20 @@ export function useGuildSummary(): GuildSummary | undefined {
 
 const selectGuild = (session: SessionResponse): GuildSummary => session.guild;
 
+/** The signed-in member's id from the cached session, or null when nobody is signed in (or it has not loaded). */
+export function useSignedInMemberId(): string | null {
+  return (
+    useQuery<SessionResponse, Error, string | null>({
+      queryKey: SESSION_CACHE_KEY,
+      queryFn: ({ signal }) => api.getSession({ signal }),
+      enabled: false,
+      select: selectMemberId,
+    }).data ?? null
+  );
+}
+
+const selectMemberId = (session: SessionResponse): string | null => session.user?.id ?? null;
+
 /** The guild's IANA time zone (its meetings' and e-mails' zone); UTC until the session says otherwise, as the API does. */
 export function useGuildTimeZone(): string {
   const zone = useGuildSummary()?.timeZone;

@@ -66,6 +66,11 @@ export interface OrderView {
   abilities: OrderAbilities;
 }
 
+/** The signed-in member's basket, on the server so it follows them from device to device; oldest line first. */
+export interface BasketView {
+  items: { bundleId: string; quantity: number; addedAt: string }[];
+}
+
 export interface OrderDisputeView {
   stage: DisputeStage;
   openedAt: string;

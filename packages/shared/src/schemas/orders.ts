@@ -21,10 +21,30 @@ export const postalAddressSchema = z.strictObject({
 });
 export type PostalAddress = z.infer<typeof postalAddressSchema>;
 
+/** Copies of one bundle an order, or a basket line, asks for at most. */
+export const MAX_LINE_QUANTITY = 50;
+/** Lines a member's basket holds at most (an order takes up to 20, so a basket can feed three). */
+export const MAX_BASKET_LINES = 60;
+
+const lineQuantity = z
+  .int({ error: 'Enter a whole number.' })
+  .min(1, { error: 'At least 1.' })
+  .max(MAX_LINE_QUANTITY, { error: `At most ${MAX_LINE_QUANTITY}.` });
+
 const orderItemSchema = z.strictObject({
   bundleId: z.uuid({ error: 'Not a bundle id.' }),
-  quantity: z.int({ error: 'Enter a whole number.' }).min(1, { error: 'At least 1.' }).max(50, { error: 'At most 50.' }),
+  quantity: lineQuantity,
 });
+
+/** Puts a bundle in the basket: a bundle already there keeps the larger quantity, so adding twice adds nothing. */
+export const basketAddSchema = z.strictObject({
+  bundleId: z.uuid({ error: 'Not a bundle id.' }),
+  quantity: lineQuantity.default(1),
+});
+export type BasketAddInput = z.input<typeof basketAddSchema>;
+
+export const basketQuantitySchema = z.strictObject({ quantity: lineQuantity });
+export type BasketQuantityInput = z.infer<typeof basketQuantitySchema>;
 
 const items = z
   .array(orderItemSchema, { error: 'List the bundles.' })

@@ -6,6 +6,7 @@ import { Guild } from './guild.ts';
 import { Member } from './member.ts';
 import { MemberToken } from './member-token.ts';
 import { Wish } from './wish.ts';
+import { BasketItem } from './basket-item.ts';
 import { Meeting } from './meeting.ts';
 import { Order } from './order.ts';
 import { OrderItem } from './order-item.ts';
@@ -16,13 +17,13 @@ import { LedgerEntry } from './ledger-entry.ts';
 import { StarterClaim } from './starter-claim.ts';
 import { WaitlistEntry, WaitlistOffer } from './waitlist.ts';
 
-export { Bundle, BundlePhoto, BundleReview, Guild, LedgerEntry, Meeting, Member, MemberToken, Order, OrderDispute, OrderItem, OrderProblem, Payout, StarterClaim, WaitlistEntry, WaitlistOffer, Wish };
+export { BasketItem, Bundle, BundlePhoto, BundleReview, Guild, LedgerEntry, Meeting, Member, MemberToken, Order, OrderDispute, OrderItem, OrderProblem, Payout, StarterClaim, WaitlistEntry, WaitlistOffer, Wish };
 export { DEFAULT_GUILD_SETTINGS, type GuildSettingsDocument } from './guild.ts';
 export type { TokenPurpose as TokenPurposeType } from './member-token.ts';
 
 /** Initialises every model on one connection and wires the associations in one place. */
 export function initModels(sequelize: Sequelize) {
-  for (const model of [Guild, Member, MemberToken, Bundle, BundlePhoto, BundleReview, Wish, Meeting, Order, OrderItem, OrderProblem, OrderDispute, Payout, LedgerEntry, StarterClaim, WaitlistEntry, WaitlistOffer]) {
+  for (const model of [Guild, Member, MemberToken, Bundle, BundlePhoto, BundleReview, Wish, Meeting, Order, OrderItem, OrderProblem, OrderDispute, Payout, LedgerEntry, StarterClaim, WaitlistEntry, WaitlistOffer, BasketItem]) {
     model.initModel(sequelize);
   }
 

@@ -11,6 +11,7 @@ import {
   type LedgerEntry as DomainEntry,
   type OrderCreateInput,
 } from '@scrap-relay/shared';
+import { removeFromBasket } from '../basket/basket.service.ts';
 import { Bundle, LedgerEntry, Meeting, Member, Order, OrderDispute, OrderItem, OrderProblem, StarterClaim, type Guild } from '../../db/models/index.ts';
 import { eligibilityOf, ineligible, leaveWaitlistWithClaim, offerToNextInLine } from '../starter/starter.service.ts';
 import { badRequest, conflict, forbidden, notFound, serviceUnavailable, unprocessable } from '../../errors/index.ts';
@@ -284,6 +285,8 @@ export async function placeOrder(ctx: AppContext, buyer: Member, input: OrderCre
       { transaction },
     );
     await settleBundleStates(ids, transaction);
+    // What is ordered leaves the buyer's basket on every device, with the order.
+    await removeFromBasket(buyer, ids, transaction);
     if (starter) {
       await StarterClaim.create({ bundleId: lines[0]!.bundle.id, memberId: buyer.id, meetingId: null, orderId: created.id, claimedAt: now }, { transaction });
       await leaveWaitlistWithClaim(ctx, buyer.id, transaction);

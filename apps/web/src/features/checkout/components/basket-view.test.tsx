@@ -3,7 +3,6 @@ import type { BundleView, MeetingView } from '@scrap-relay/shared';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { BASKET_STORAGE_KEY } from '../../../lib/basket-store.ts';
 import { createQueryClient } from '../../../lib/react-query.ts';
 import { jsonResponse, makeBundleView, makeSession, makeUser } from '../../../testing/fixtures.ts';
 import { makePostageQuote } from '../../../testing/postage.ts';
@@ -40,9 +39,15 @@ interface ApiScript {
   orderAnswer: Response;
 }
 
-/** The API as the basket sees it; each GET of the bundle takes the next answer (the last one repeats). */
+/**
+ * The API as the basket sees it; each GET of the bundle takes the next answer (the last one repeats). The basket
+ * starts with one copy of the bundle; `basket` is what the server holds as the page changes it, and placing an
+ * order takes its bundles out, as the API does.
+ */
 function serveApi(script: ApiScript) {
   const orders: unknown[] = [];
+  let basket = [{ bundleId: BUNDLE_ID, quantity: 1, addedAt: '2026-12-01T09:00:00.000Z' }];
+  const server = { orders, basket: () => basket };
   let bundleCalls = 0;
   vi.stubGlobal(
     'fetch',
@@ -56,18 +61,24 @@ function serveApi(script: ApiScript) {
       if (path === '/api/me/address') return jsonResponse(200, { address: savedAddress });
       if (path === '/api/meetings') return jsonResponse(200, { items: [meeting] });
       if (path === '/api/postage-quotes') return jsonResponse(200, quote);
+      if (path === '/api/basket') return jsonResponse(200, { basket: { items: basket } });
+      if (path === `/api/basket/items/${BUNDLE_ID}` && init?.method === 'DELETE') {
+        basket = basket.filter((item) => item.bundleId !== BUNDLE_ID);
+        return jsonResponse(200, { basket: { items: basket } });
+      }
       if (path === '/api/orders' && init?.method === 'POST') {
-        orders.push(JSON.parse(String(init.body)));
+        const order = JSON.parse(String(init.body)) as { items: { bundleId: string }[] };
+        orders.push(order);
+        if (script.orderAnswer.status === 201) basket = basket.filter((item) => !order.items.some((ordered) => ordered.bundleId === item.bundleId));
         return script.orderAnswer;
       }
       return jsonResponse(404, { error: { code: 'not_found', message: 'Not here.' } });
     }),
   );
-  return { orders };
+  return server;
 }
 
 async function openBasket() {
-  window.localStorage.setItem(BASKET_STORAGE_KEY, JSON.stringify({ memberId: member.id, items: [{ bundleId: BUNDLE_ID, quantity: 1 }] }));
   const router = createMemoryRouter(
     [
       { path: '/basket', element: <BasketView member={{ id: member.id, units: 'metric', emailVerified: true }} guild={{ name: 'Larkhollow Quilting Circle', currency: 'GBP' }} /> },
@@ -86,12 +97,11 @@ async function openBasket() {
 afterEach(() => {
   cleanup();
   vi.unstubAllGlobals();
-  window.localStorage.clear();
 });
 
 describe('checking out the basket', () => {
   it('quotes the postage to the saved address, and keeps the basket when the payment service is down', async () => {
-    const { orders } = serveApi({ bundleAnswers: [bundle()], orderAnswer: jsonResponse(503, { error: { code: 'service_unavailable', message: 'The card payment service is not answering just now.' } }) });
+    const server = serveApi({ bundleAnswers: [bundle()], orderAnswer: jsonResponse(503, { error: { code: 'service_unavailable', message: 'The card payment service is not answering just now.' } }) });
     const { container } = await openBasket();
 
     const pay = await waitFor(() => buttonNamed(container, 'Pay £19.30 by card'), 3000);
@@ -103,13 +113,13 @@ describe('checking out the basket', () => {
 
     await waitFor(() => expect(container.querySelector('[role="alert"]')?.textContent).toContain('The card payment service is not answering just now.'));
     expect(container.textContent).toContain('Nothing was taken from your card and nothing is held.');
-    expect(orders).toEqual([{ items: [{ bundleId: BUNDLE_ID, quantity: 1 }], fulfilment: 'post', address: savedAddress, saveAddress: false }]);
+    expect(server.orders).toEqual([{ items: [{ bundleId: BUNDLE_ID, quantity: 1 }], fulfilment: 'post', address: savedAddress, saveAddress: false }]);
     // Nothing was held, so the bundle stays in the basket to try again.
-    expect(JSON.parse(window.localStorage.getItem(BASKET_STORAGE_KEY) ?? '{}').items).toHaveLength(1);
+    expect(server.basket()).toHaveLength(1);
   });
 
   it('takes out a bundle someone else bought first, says why, charges nothing, and points the empty basket to the shelf', async () => {
-    serveApi({
+    const server = serveApi({
       bundleAnswers: [bundle(), bundle({ state: 'rehomed', quantityAvailable: 0 })],
       orderAnswer: jsonResponse(409, { error: { code: 'conflict', message: '“Dark batik 2½-inch strips” is no longer available.', fields: { items: 'No longer available.' } } }),
     });
@@ -121,11 +131,12 @@ describe('checking out the basket', () => {
     expect(container.textContent).toContain('Your basket is empty.');
     const shelfLink = [...container.querySelectorAll('a')].find((a) => a.textContent === 'Browse the shelf');
     expect(shelfLink?.getAttribute('href')).toBe('/shelf');
-    expect(JSON.parse(window.localStorage.getItem(BASKET_STORAGE_KEY) ?? '{}').items).toEqual([]);
+    // Taken out on the server too, so every device shows it gone.
+    expect(server.basket()).toEqual([]);
   });
 
   it('confirms a free meeting handover at once and opens the order, with nothing to pay', async () => {
-    const { orders } = serveApi({
+    const server = serveApi({
       bundleAnswers: [bundle({ offer: 'meeting', priceMinor: null })],
       orderAnswer: jsonResponse(201, { order: { id: 'order-77', reference: 'SR-7QK2' }, checkoutUrl: null }),
     });
@@ -138,7 +149,7 @@ describe('checking out the basket', () => {
     await click(confirm);
 
     await waitFor(() => expect(router.state.location.pathname).toBe('/orders/order-77'));
-    expect(orders).toEqual([{ items: [{ bundleId: BUNDLE_ID, quantity: 1 }], fulfilment: 'meeting', meetingId: MEETING_ID }]);
-    expect(JSON.parse(window.localStorage.getItem(BASKET_STORAGE_KEY) ?? '{}').items).toEqual([]);
+    expect(server.orders).toEqual([{ items: [{ bundleId: BUNDLE_ID, quantity: 1 }], fulfilment: 'meeting', meetingId: MEETING_ID }]);
+    expect(server.basket()).toEqual([]);
   });
 });

@@ -9,7 +9,7 @@ import { Alert } from '../../../components/ui/alert.tsx';
 import { Button } from '../../../components/ui/button.tsx';
 import { Loading } from '../../../components/ui/loading.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
-import { itemsFor, updateBasket, useStoredBasket, withoutItems, withQuantity, writeBasket } from '../../../lib/basket-store.ts';
+import { basketQueryKey, useBasket, useBasketChanges } from '../../../lib/basket-store.ts';
 import { useMeetings } from '../../../lib/meetings.ts';
 import { basketBundleQueryKey, getBundleQueryOptions } from '../api/get-bundle.ts';
 import { useMyAddress } from '../../../lib/my-address.ts';
@@ -31,15 +31,20 @@ export interface BasketViewProps {
   guild: { name: string; currency: string };
   /** Just added from a bundle page: named at the top once it has loaded. */
   addedBundleId?: string | null;
+  /** Why the bundle a link asked to add could not go in the basket, in the server's words. */
+  notAdded?: string | null;
 }
+
+const NO_ITEMS: readonly { bundleId: string; quantity: number }[] = [];
 
 /**
  * The basket: re-checked against the shelf on every visit (what is gone is taken
  * out, with the reason), grouped by seller, each group checking out as one order.
  */
-export function BasketView({ member, guild, addedBundleId }: BasketViewProps) {
-  const stored = useStoredBasket();
-  const items = itemsFor(stored, member.id);
+export function BasketView({ member, guild, addedBundleId, notAdded }: BasketViewProps) {
+  const basket = useBasket(member.id);
+  const items = basket.data?.items ?? NO_ITEMS;
+  const changes = useBasketChanges(member.id);
   const queryClient = useQueryClient();
   const navigate = useNavigate();
   const [removed, setRemoved] = useState<BasketRemoval[]>([]);
@@ -47,11 +52,6 @@ export function BasketView({ member, guild, addedBundleId }: BasketViewProps) {
   const [placed, setPlaced] = useState<PlacedOrder | null>(null);
   const address = useMyAddress();
   const meetingsQuery = useMeetings('upcoming');
-
-  // Someone else's basket on this shared device: this member starts with an empty one.
-  useEffect(() => {
-    if (stored.memberId !== member.id) writeBasket({ memberId: member.id, items: [] });
-  }, [stored.memberId, member.id]);
 
   const results = useQueries({ queries: items.map((item) => getBundleQueryOptions(item.bundleId)) });
   const lookups = useMemo(() => {
@@ -71,18 +71,16 @@ export function BasketView({ member, guild, addedBundleId }: BasketViewProps) {
   // Take out what is gone and lower what has fewer copies left, keeping a note of each for the member.
   useEffect(() => {
     if (review.removals.length === 0 && review.reductions.length === 0) return;
-    updateBasket((basket) => {
-      let next = withoutItems(basket, member.id, review.removals.map((removal) => removal.bundleId));
-      for (const reduction of review.reductions) next = withQuantity(next, member.id, reduction.bundleId, reduction.quantity);
-      return next;
-    });
+    for (const removal of review.removals) changes.remove.mutate(removal.bundleId);
+    for (const reduction of review.reductions) changes.setQuantity.mutate({ bundleId: reduction.bundleId, quantity: reduction.quantity });
     const byId = <T extends { bundleId: string }>(older: T[], newer: T[]) => [
       ...older.filter((old) => !newer.some((entry) => entry.bundleId === old.bundleId)),
       ...newer,
     ];
     if (review.removals.length > 0) setRemoved((older) => byId(older, review.removals));
     if (review.reductions.length > 0) setReduced((older) => byId(older, review.reductions));
-  }, [review, member.id]);
+    // The review alone decides when this runs: the mutation objects change with every state they pass through.
+  }, [review]);
 
   // An order is placed: card payments continue on the payment page, a free handover is already confirmed.
   useEffect(() => {
@@ -107,15 +105,33 @@ export function BasketView({ member, guild, addedBundleId }: BasketViewProps) {
     );
   }
 
-  const remove = (bundleId: string) => updateBasket((basket) => withoutItems(basket, member.id, [bundleId]));
-  const changeQuantity = (bundleId: string, quantity: number) => updateBasket((basket) => withQuantity(basket, member.id, bundleId, quantity));
+  const remove = (bundleId: string) => changes.remove.mutate(bundleId);
+  const changeQuantity = (bundleId: string, quantity: number) => changes.setQuantity.mutate({ bundleId, quantity });
   const recheck = (bundleIds: string[]) => {
     for (const bundleId of bundleIds) void queryClient.invalidateQueries({ queryKey: basketBundleQueryKey(bundleId) });
   };
 
+  if (basket.isPending) return <Loading label="Opening your basket…" />;
+  if (basket.isError) {
+    return (
+      <Alert tone="error" title="Your basket could not be opened">
+        <p>Scrap Relay did not answer. Your basket is kept; try again in a moment.</p>
+        <Button variant="secondary" onClick={() => void basket.refetch()}>
+          Try again
+        </Button>
+      </Alert>
+    );
+  }
+
   return (
     <div className="space-y-6">
       {added ? <Alert tone="success" title={`“${added.bundle.title}” is in your basket`} /> : null}
+      {notAdded ? <Alert tone="warning" title="That bundle is not in your basket">{notAdded}</Alert> : null}
+      {changes.add.isError || changes.remove.isError || changes.setQuantity.isError ? (
+        <Alert tone="error" title="Your basket could not be changed">
+          <p>Scrap Relay did not take the change; your basket shows what it holds.</p>
+        </Alert>
+      ) : null}
 
       {removed.length > 0 || reduced.length > 0 ? (
         <Alert tone="warning" title="Your basket changed since you last looked">
@@ -144,7 +160,7 @@ export function BasketView({ member, guild, addedBundleId }: BasketViewProps) {
       {items.length === 0 ? (
         <EmptyWithShelfLink>
           <p className="text-lg">Your basket is empty.</p>
-          <p>Add bundles from their pages on the shelf; they wait here until you check out. Nothing is held for you until then.</p>
+          <p>Add bundles from their pages on the shelf; they wait here, on every device you sign in on, until you check out. Nothing is held for you until then.</p>
         </EmptyWithShelfLink>
       ) : null}
 
@@ -182,8 +198,9 @@ export function BasketView({ member, guild, addedBundleId }: BasketViewProps) {
               canOrder={member.emailVerified}
               onQuantityChange={changeQuantity}
               onRemove={remove}
-              onPlaced={(order, bundleIds) => {
-                updateBasket((basket) => withoutItems(basket, member.id, bundleIds));
+              onPlaced={(order) => {
+                // The order took its bundles out of the basket on the server; the next read shows it.
+                void queryClient.invalidateQueries({ queryKey: basketQueryKey(member.id) });
                 setPlaced(order);
               }}
               onConflict={recheck}
