@@ -35,12 +35,17 @@ async function startMaildev() {
 async function mailTo(address: string, timeoutMs: number) {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
-    const all = (await fetch(`http://127.0.0.1:${webPort}/api/email`).then((r) => r.json())) as { subject: string; to: { address: string }[] }[];
+    const all = (await fetch(`http://127.0.0.1:${webPort}/api/email`).then((r) => r.json())) as { id: string; subject: string; to: { address: string }[] }[];
     const found = all.filter((m) => m.to.some((t) => t.address.toLowerCase() === address.toLowerCase()));
     if (found.length) return found;
     await new Promise((r) => setTimeout(r, 500));
   }
   return [];
+}
+
+async function jobState(id: string): Promise<string | undefined> {
+  const [rows] = await api.runtime.ctx.sequelize.query(`SELECT state FROM pgboss.job WHERE id = $1`, { bind: [id] });
+  return (rows as { state: string }[])[0]?.state;
 }
 
 describe('mail server down during an approval', () => {
@@ -65,5 +70,17 @@ describe('mail server down during an approval', () => {
     await startMaildev();
     const delivered = await mailTo(seller.email, 45_000);
     expect(delivered.map((m) => m.subject)).toEqual(['On the shelf: Linen offcuts for a patient day']);
+
+    // Recorded as sent, and sent under a Message-ID made from the job, so a second sending (the queue could not
+    // record the first) reaches the recipient's mail system as the same message.
+    const [[job]] = (await api.runtime.ctx.sequelize.query(`SELECT id, state FROM pgboss.job WHERE name = 'email-send' AND data->>'to' = $1`, {
+      bind: [seller.email],
+    })) as [{ id: string; state: string }[], unknown];
+    const domain = /@([A-Za-z0-9.-]+)/.exec(api.runtime.ctx.config.smtp.from)![1];
+    // maildev's list leaves the headers out; the message itself has them.
+    const message = (await fetch(`http://127.0.0.1:${webPort}/api/email/${delivered[0]!.id}`).then((r) => r.json())) as { headers: Record<string, string> };
+    expect(message.headers['message-id']).toBe(`<${job!.id}@${domain}>`);
+    for (let i = 0; i < 20 && (await jobState(job!.id)) !== 'completed'; i++) await new Promise((r) => setTimeout(r, 250));
+    expect(await jobState(job!.id)).toBe('completed');
   }, 70_000);
 });

@@ -12,8 +12,18 @@ export interface OutgoingMail {
 }
 
 export interface Mailer {
-  send(mail: OutgoingMail): Promise<void>;
+  /**
+   * Sends one e-mail. `id` (the queued job's) makes its Message-ID, so a mail sent twice, because the queue could
+   * not record the first sending, reaches the recipient's mail system as the same message, which most drop.
+   */
+  send(mail: OutgoingMail, id?: string): Promise<void>;
   close(): void;
+}
+
+/** `<id@domain>` with the domain of the sender's address (RFC 5322 section 3.6.4); a made-up one when it has none. */
+export function messageIdFor(id: string, from: string): string {
+  const domain = /@([A-Za-z0-9.-]+)/.exec(from)?.[1] ?? 'scrap-relay.invalid';
+  return `<${id}@${domain}>`;
 }
 
 export function createMailer(smtp: Config['smtp']): Mailer {
@@ -27,8 +37,8 @@ export function createMailer(smtp: Config['smtp']): Mailer {
     greetingTimeout: 5_000,
   });
   return {
-    async send({ kind: _kind, ...mail }) {
-      await transport.sendMail({ from: smtp.from, ...mail });
+    async send({ kind: _kind, ...mail }, id) {
+      await transport.sendMail({ from: smtp.from, ...mail, ...(id ? { messageId: messageIdFor(id, smtp.from) } : {}) });
     },
     close: () => transport.close(),
   };

@@ -65,18 +65,22 @@ export async function createJobQueue(opts: {
       await boss.send(queue, data, { ...RETRY, db: transactionDb(transaction) });
     },
     async startWorkers() {
-      // A batch per poll keeps a burst of wish e-mails moving; each job succeeds or fails on its own,
-      // so one bad address never makes the others go twice.
+      // A batch per poll keeps a burst of wish e-mails moving; each job succeeds or fails on its own, and is
+      // recorded as done the moment it is sent, so one bad address, or the process stopping half-way through a
+      // batch, never makes the others go twice.
       await boss.work<OutgoingMail>(EMAIL_QUEUE, { batchSize: 20, pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 2 }, async (jobs) => {
         for (const job of jobs) {
           try {
             if (opts.wanted && !(await opts.wanted(job.data))) continue;
-            await opts.mailer.send(job.data);
-            opts.logger.info({ to: job.data.to, subject: job.data.subject }, 'e-mail sent');
+            await opts.mailer.send(job.data, job.id);
           } catch (err) {
             opts.logger.warn({ err, to: job.data.to }, 'e-mail not sent; it will be retried');
             await boss.fail(EMAIL_QUEUE, job.id, { message: err instanceof Error ? err.message : String(err) });
+            continue;
           }
+          opts.logger.info({ to: job.data.to, subject: job.data.subject }, 'e-mail sent');
+          // Sent: a failure to record it (PostgreSQL restarting) only means it may go again, with the same Message-ID.
+          await boss.complete(EMAIL_QUEUE, job.id).catch((err: unknown) => opts.logger.warn({ err, jobId: job.id }, 'e-mail sent, but not yet recorded as sent'));
         }
       });
     },
