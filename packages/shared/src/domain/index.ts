@@ -14,3 +14,4 @@ export * from './shelf-address.ts';
 export * from './photo-sizes.ts';
 export * from './countries.ts';
 export * from './zoned-time.ts';
+export * from './order-limits.ts';

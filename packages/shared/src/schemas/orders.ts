@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { isCountryCode } from '../domain/countries.ts';
 import { LEDGER_ENTRY_KINDS } from '../domain/money.ts';
+import { MAX_LINE_QUANTITY } from '../domain/order-limits.ts';
 
 const text = (label: string, max: number) =>
   z.string({ error: `Enter ${label}.` }).trim().min(1, { error: `Enter ${label}.` }).max(max, { error: `Use at most ${max} characters.` });
@@ -20,11 +21,6 @@ export const postalAddressSchema = z.strictObject({
     .refine(isCountryCode, { error: 'That is not a country code; choose the country from the list (the United Kingdom is GB).' }),
 });
 export type PostalAddress = z.infer<typeof postalAddressSchema>;
-
-/** Copies of one bundle an order, or a basket line, asks for at most. */
-export const MAX_LINE_QUANTITY = 50;
-/** Lines a member's basket holds at most (an order takes up to 20, so a basket can feed three). */
-export const MAX_BASKET_LINES = 60;
 
 const lineQuantity = z
   .int({ error: 'Enter a whole number.' })
