@@ -560,7 +560,14 @@ describe('cancelling, refunds and the treasurer', () => {
     expect(treasurerView.status).toBe(200);
     expect(treasurerView.body.order.address).toBeNull();
     expect((await treasurerClient.get(`/api/orders/${orderId}/packing-slip`)).status).toBe(403);
-    await waitForMail({ to: treasurer.email, subjectIncludes: 'A problem was reported' });
+    expect((await waitForMail({ to: treasurer.email, subjectIncludes: 'A problem was reported' })).text).toContain('The bag arrived soaked.');
+    // The seller learns there is a problem, not what the buyer wrote: that is for the treasurer.
+    const toSeller = await waitForMail({ to: seller.email, subjectIncludes: 'The buyer reported a problem' });
+    expect(toSeller.text).toContain('The guild’s treasurer is looking into it.');
+    expect(toSeller.text).not.toContain('soaked');
+    const sellerView = (await sellerClient.get(`/api/orders/${orderId}`)).body.order;
+    expect(sellerView.problems).toEqual([{ id: expect.any(String), message: null, createdAt: expect.any(String), resolvedAt: null }]);
+    expect(treasurerView.body.order.problems[0].message).toBe('The bag arrived soaked.');
     expect((await sellerClient.send('post', `/api/orders/${orderId}/refund`)).status).toBe(403);
     const refunded = await treasurerClient.send('post', `/api/orders/${orderId}/refund`);
     expect(refunded.body.order).toMatchObject({ state: 'refunded' });

@@ -153,6 +153,21 @@ export function problemReported(p: Base & { message: string }): RenderedEmail {
   });
 }
 
+/**
+ * To the seller: the buyer reported a problem with the order. What the buyer wrote stays with the treasurer, who
+ * decides about refunds; the seller learns that there is something to look into, and what may be asked of them.
+ */
+export function problemReportedToSeller(p: Omit<Base, 'titles'>): RenderedEmail {
+  const what = `The buyer of order ${p.reference} reported a problem with it. The guild’s treasurer is looking into it.`;
+  const ask = 'They may ask you about it, for example for the tracking number or how the bundles were packed. Please do not contact the buyer about it yourself unless the treasurer asks you to.';
+  return layout({
+    guildName: p.guildName,
+    subject: `The buyer reported a problem with order ${p.reference}`,
+    text: `Hello ${p.name},\n\n${what}\n\n${ask}\n${p.link}`,
+    bodyHtml: html`<p>Hello ${p.name},</p><p>${what}</p><p>${ask}</p>${button(p.link, 'Open the order')}`,
+  });
+}
+
 /** To treasurers: the automatic refund of a late payment failed on every try. */
 export function lateRefundFailed(p: Base & { paid: string }): RenderedEmail {
   const what = `A payment of ${p.paid} for order ${p.reference} came in after the order had been cancelled. Scrap Relay tried to refund it for several hours, and the card payment service refused or did not answer every time, so the buyer has not been refunded yet.`;

@@ -57,7 +57,8 @@ export interface OrderView {
   cancelledAt: string | null;
   cancelReason: string | null;
   refundedAt: string | null;
-  problems: { id: string; message: string; createdAt: string; resolvedAt: string | null }[];
+  /** Problems the buyer reported; `message` is null for the seller, who sees only that one was reported and when. */
+  problems: { id: string; message: string | null; createdAt: string; resolvedAt: string | null }[];
   createdAt: string;
   /** Only for a viewer who may refund the order (abilities.refund): what a refund would take back from the seller. */
   refundEffect: RefundEffectView | null;

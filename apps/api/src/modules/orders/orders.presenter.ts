@@ -79,10 +79,13 @@ export function presentOrder(order: Order, viewer: Actor, { thumbs = new Map(), 
     cancelledAt: iso(order.cancelledAt),
     cancelReason: order.cancelReason,
     refundedAt: iso(order.refundedAt),
-    problems:
-      viewerIs === 'seller' && !viewer.roles.includes('treasurer')
-        ? []
-        : (order.problems ?? []).map((p) => ({ id: p.id, message: p.message, createdAt: p.createdAt.toISOString(), resolvedAt: iso(p.resolvedAt) })),
+    // The seller sees that a problem was reported and when, not what the buyer wrote: that is for the treasurer.
+    problems: (order.problems ?? []).map((p) => ({
+      id: p.id,
+      message: viewerIs === 'seller' && !viewer.roles.includes('treasurer') ? null : p.message,
+      createdAt: p.createdAt.toISOString(),
+      resolvedAt: iso(p.resolvedAt),
+    })),
     createdAt: order.createdAt.toISOString(),
     refundEffect: can(viewer, 'order.refund', order) ? (refundEffects.get(order.id) ?? null) : null,
     dispute: presentDispute(order, viewer),

@@ -28,6 +28,7 @@ import {
   orderTakenAsReceivedToBuyer,
   postReminderToSeller,
   problemReported,
+  problemReportedToSeller,
 } from '../../emails/orders.ts';
 import { emailChoicesUrl, type RenderedEmail } from '../../emails/render.ts';
 import { isUnreachable } from '../../integrations/payments.ts';
@@ -632,7 +633,10 @@ export async function markReceived(ctx: AppContext, actor: Actor, orderId: strin
   });
 }
 
-/** The buyer reports a problem; every treasurer is told, since refunds are theirs to decide. */
+/**
+ * The buyer reports a problem: every treasurer is told what the buyer wrote, since refunds are theirs to decide; the
+ * seller is told that there is a problem, not what the buyer wrote.
+ */
 export async function reportProblem(ctx: AppContext, actor: Actor, orderId: string, message: string): Promise<void> {
   const guild = await loadGuild();
   await ctx.sequelize.transaction(async (transaction) => {
@@ -643,6 +647,11 @@ export async function reportProblem(ctx: AppContext, actor: Actor, orderId: stri
     for (const treasurer of treasurers) {
       const mail = problemReported({ guildName: guild.name, name: treasurer.name, reference: order.reference, titles: [], link: `${ctx.config.appUrl}/orders/${order.id}`, message });
       await ctx.queue.enqueueEmail({ to: treasurer.email, ...mail }, transaction);
+    }
+    const seller = await Member.findByPk(order.sellerId, { transaction });
+    if (seller?.active) {
+      const link = `${ctx.config.appUrl}/orders/${order.id}`;
+      await ctx.queue.enqueueEmail({ to: seller.email, ...problemReportedToSeller({ guildName: guild.name, name: seller.name, reference: order.reference, link }) }, transaction);
     }
   });
 }

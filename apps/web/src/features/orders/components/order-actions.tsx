@@ -120,6 +120,7 @@ function ReportProblemAction({ order }: { order: OrderView }) {
       <div className="space-y-3 pt-2">
         <p className="text-thread-soft">
           Something missing, damaged or not as described? Tell the guild’s treasurer here: they see it on this order and can refund the payment.
+          The seller is told that you reported a problem, not what you wrote.
         </p>
         <Form
           schema={orderProblemSchema}

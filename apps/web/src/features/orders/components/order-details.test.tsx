@@ -158,3 +158,28 @@ describe('a disputed card payment on the order page', () => {
     expect(container.textContent).not.toContain('bank');
   });
 });
+
+describe('a problem the buyer reported, on the order page', () => {
+  const reported = (viewerIs: OrderView['viewerIs'], message: string | null) =>
+    makeOrderView({
+      state: 'posted',
+      viewerIs,
+      paidAt: '2026-11-02T10:05:00.000Z',
+      postedAt: '2026-11-03T09:00:00.000Z',
+      problems: [{ id: 'p-1', message, createdAt: '2026-11-06T17:00:00.000Z', resolvedAt: null }],
+    });
+
+  it('shows the treasurer what the buyer wrote', async () => {
+    const { container } = await orderPage(reported('officer', 'The bag arrived soaked.'));
+    expect(container.textContent).toContain('The buyer reported a problem');
+    expect(container.textContent).toContain('“The bag arrived soaked.”');
+  });
+
+  it('tells the seller a problem was reported and who is looking into it, without the buyer’s words', async () => {
+    const { container } = await orderPage(reported('seller', null));
+    expect(container.textContent).toContain('The buyer reported a problem with this order');
+    expect(container.textContent).toContain('The guild’s treasurer is looking into it');
+    const history = [...container.querySelectorAll('li')].map((item) => item.textContent ?? '');
+    expect(history.some((line) => line.startsWith('Problem reported') && line.includes('The buyer wrote to the guild’s treasurer.'))).toBe(true);
+  });
+});

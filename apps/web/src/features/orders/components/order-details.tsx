@@ -46,6 +46,15 @@ export function OrderDetails({ order, units, payment }: OrderDetailsProps) {
         </Alert>
       ) : null}
 
+      {order.viewerIs === 'seller' && openProblems.length > 0 ? (
+        <Alert tone="info" title="The buyer reported a problem with this order" announce={false}>
+          <p>
+            The guild’s treasurer is looking into it and may ask you about it, for example for the tracking number or how the bundles were packed.
+            What the buyer wrote is for the treasurer.
+          </p>
+        </Alert>
+      ) : null}
+
       {order.dispute ? <DisputePanel order={order} dispute={order.dispute} /> : null}
 
       <Panel>

@@ -38,7 +38,7 @@ export function orderTimeline(order: OrderView): TimelineEvent[] {
       key: `problem:${problem.id}`,
       at: problem.createdAt,
       title: problem.resolvedAt ? 'Problem reported (resolved)' : 'Problem reported',
-      detail: problem.message,
+      detail: problem.message ?? 'The buyer wrote to the guild’s treasurer.',
     });
   }
   if (order.cancelledAt) {
