@@ -96,9 +96,13 @@ export const getBasket = async (memberId: string, { signal }: { signal?: AbortSi
 export const useBasket = (memberId: string, { enabled = true }: { enabled?: boolean } = {}) =>
   useQuery({ queryKey: basketQueryKey(memberId), queryFn: ({ signal }) => getBasket(memberId, { signal }), enabled });
 
+/** Every change to the basket runs after the one before it, so answers arrive in the order the changes were made. */
+const BASKET_CHANGES = { id: 'basket' } as const;
+
 /**
  * Changes to the basket. Quantity changes and removals show at once and are put back if the server refuses;
- * every answer replaces the cached basket with the server's.
+ * every answer replaces the cached basket with the server's. Changes run one at a time (`scope`), and a read of the
+ * basket still on its way is cancelled first, so an older answer never lands after a newer one.
  */
 export function useBasketChanges(memberId: string) {
   const queryClient = useQueryClient();
@@ -116,10 +120,13 @@ export function useBasketChanges(memberId: string) {
   };
 
   const add = useMutation({
+    scope: BASKET_CHANGES,
     mutationFn: async (input: BasketAddInput) => (await api.post<{ basket: BasketView }>('/basket/items', input)).basket,
+    onMutate: () => queryClient.cancelQueries({ queryKey: key }),
     onSuccess: settle,
   });
   const setQuantity = useMutation({
+    scope: BASKET_CHANGES,
     mutationFn: async ({ bundleId, quantity }: { bundleId: string; quantity: number }) =>
       (await api.patch<{ basket: BasketView }>(`/basket/items/${bundleId}`, { quantity })).basket,
     onMutate: ({ bundleId, quantity }) => optimistic((items) => items.map((i) => (i.bundleId === bundleId ? { ...i, quantity } : i)))(),
@@ -127,6 +134,7 @@ export function useBasketChanges(memberId: string) {
     onError: putBack,
   });
   const remove = useMutation({
+    scope: BASKET_CHANGES,
     mutationFn: async (bundleId: string) => (await api.delete<{ basket: BasketView }>(`/basket/items/${bundleId}`)).basket,
     onMutate: (bundleId) => optimistic((items) => items.filter((i) => i.bundleId !== bundleId))(),
     onSuccess: settle,

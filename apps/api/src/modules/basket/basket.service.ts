@@ -1,7 +1,7 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { MAX_BASKET_LINES, type BasketAddInput, type BasketView } from '@scrap-relay/shared';
 import { BasketItem, Bundle, Member } from '../../db/models/index.ts';
-import { conflict, forbidden, notFound, unprocessable } from '../../errors/index.ts';
+import { AppError, conflict, forbidden, notFound, unprocessable } from '../../errors/index.ts';
 
 /** The member's basket, oldest line first. */
 export async function basketOf(memberId: string, transaction?: Transaction): Promise<BasketView> {
@@ -20,8 +20,8 @@ export async function addToBasket(sequelize: Sequelize, member: Member, input: R
   return sequelize.transaction(async (transaction) => {
     await Member.findByPk(member.id, { transaction, lock: transaction.LOCK.UPDATE, attributes: ['id'] });
     const bundle = await Bundle.findByPk(input.bundleId, { transaction, attributes: ['id', 'state', 'offer', 'sellerId'] });
-    if (!bundle || bundle.state === 'draft') throw notFound('That bundle');
-    if (bundle.sellerId === member.id) throw forbidden('You cannot take your own bundle.');
+    if (!bundle || bundle.state === 'draft') throw new AppError(404, 'not_found', 'There is no bundle at that link; its owner may have withdrawn it.');
+    if (bundle.sellerId === member.id) throw forbidden('That is your own listing, so it cannot go in your basket.');
     if (bundle.offer === 'starter') {
       throw unprocessable('Starter bundles are claimed from the starter shelf, not bought through the basket.', { bundleId: 'A starter bundle.' });
     }

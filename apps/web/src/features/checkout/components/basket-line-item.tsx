@@ -68,7 +68,7 @@ export function BasketLineItem({ line, units, onQuantityChange, onRemove, note, 
           ) : (
             <span />
           )}
-          <Button variant="quiet" onClick={onRemove} disabled={disabled}>
+          <Button variant="quiet" className="ml-auto" onClick={onRemove} disabled={disabled}>
             Remove<span className="sr-only"> “{bundle.title}” from your basket</span>
           </Button>
         </div>

@@ -35,8 +35,11 @@ const meeting: MeetingView = { id: MEETING_ID, startsAt: '2026-12-10T19:00:00.00
 const savedAddress = { name: 'Hester Quill', line1: '3 Loom Street', line2: '', town: 'Larkhollow', region: '', postalCode: 'LH1 4QT', country: 'GB' };
 
 interface ApiScript {
-  bundleAnswers: BundleView[];
+  /** `null`: the bundle is gone (404). */
+  bundleAnswers: Array<BundleView | null>;
   orderAnswer: Response;
+  /** How the server answers taking a bundle out of the basket; it takes it out when left unset. */
+  deleteAnswer?: () => Response;
 }
 
 /**
@@ -47,7 +50,8 @@ interface ApiScript {
 function serveApi(script: ApiScript) {
   const orders: unknown[] = [];
   let basket = [{ bundleId: BUNDLE_ID, quantity: 1, addedAt: '2026-12-01T09:00:00.000Z' }];
-  const server = { orders, basket: () => basket };
+  const calls = { basketReads: 0, deletes: 0 };
+  const server = { orders, basket: () => basket, calls };
   let bundleCalls = 0;
   vi.stubGlobal(
     'fetch',
@@ -56,13 +60,18 @@ function serveApi(script: ApiScript) {
       if (path === '/api/session') return jsonResponse(200, makeSession(member));
       if (path === `/api/bundles/${BUNDLE_ID}`) {
         const answer = script.bundleAnswers[Math.min(bundleCalls++, script.bundleAnswers.length - 1)];
-        return jsonResponse(200, { bundle: answer });
+        return answer ? jsonResponse(200, { bundle: answer }) : jsonResponse(404, { error: { code: 'not_found', message: 'That bundle was not found.' } });
       }
       if (path === '/api/me/address') return jsonResponse(200, { address: savedAddress });
       if (path === '/api/meetings') return jsonResponse(200, { items: [meeting] });
       if (path === '/api/postage-quotes') return jsonResponse(200, quote);
-      if (path === '/api/basket') return jsonResponse(200, { basket: { items: basket } });
+      if (path === '/api/basket') {
+        calls.basketReads += 1;
+        return jsonResponse(200, { basket: { items: basket } });
+      }
       if (path === `/api/basket/items/${BUNDLE_ID}` && init?.method === 'DELETE') {
+        calls.deletes += 1;
+        if (script.deleteAnswer) return script.deleteAnswer();
         basket = basket.filter((item) => item.bundleId !== BUNDLE_ID);
         return jsonResponse(200, { basket: { items: basket } });
       }
@@ -146,10 +155,30 @@ describe('checking out the basket', () => {
     expect(container.textContent).toContain('Larkhollow Chapel Hall');
     // Nothing is paid and nothing posted: no notes about card payments, holds or addresses.
     expect(container.querySelector('aside[aria-label="Before you pay"]')).toBeNull();
+    const readsBefore = server.calls.basketReads;
     await click(confirm);
 
     await waitFor(() => expect(router.state.location.pathname).toBe('/orders/order-77'));
     expect(server.orders).toEqual([{ items: [{ bundleId: BUNDLE_ID, quantity: 1 }], fulfilment: 'meeting', meetingId: MEETING_ID }]);
-    expect(server.basket()).toEqual([]);
+    // The order took its bundle out of the basket on the server; the app reads the basket again rather than guess.
+    await waitFor(() => expect(server.calls.basketReads).toBeGreaterThan(readsBefore));
+  });
+});
+
+describe('tidying the basket', () => {
+  it('asks once to take out a bundle that is gone, and does not ask again when the server refuses', async () => {
+    const server = serveApi({
+      bundleAnswers: [null],
+      orderAnswer: jsonResponse(500, {}),
+      deleteAnswer: () => jsonResponse(503, { error: { code: 'service_unavailable', message: 'Try again soon.' } }),
+    });
+    const { container } = await openBasket();
+
+    await waitFor(() => expect(container.textContent).toContain('A bundle is no longer on the shelf. It has been taken out of your basket.'));
+    await waitFor(() => expect(container.textContent).toContain('Your basket could not be changed'));
+    // Give a loop every chance to show itself before counting.
+    await new Promise((resolve) => setTimeout(resolve, 300));
+    expect(server.calls.deletes).toBe(1);
+    expect(server.calls.basketReads).toBeLessThan(5);
   });
 });

@@ -1,6 +1,6 @@
 import type { UnitSystem } from '@scrap-relay/shared';
 import { useQueries, useQueryClient } from '@tanstack/react-query';
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { paths } from '../../../config/paths.ts';
 import { EmptyWithShelfLink } from '../../../components/empty-with-shelf-link.tsx';
@@ -68,17 +68,27 @@ export function BasketView({ member, guild, addedBundleId, notAdded }: BasketVie
   }, [items, results]);
   const review = useMemo(() => reviewBasket(items, lookups, member.id), [items, lookups, member.id]);
 
-  // Take out what is gone and lower what has fewer copies left, keeping a note of each for the member.
+  // Take out what is gone and lower what has fewer copies left, keeping a note of each for the member. Each is
+  // asked of the server once per visit: one it refuses stays in the basket (and is refused again at checkout).
+  const tidied = useRef(new Set<string>());
   useEffect(() => {
-    if (review.removals.length === 0 && review.reductions.length === 0) return;
-    for (const removal of review.removals) changes.remove.mutate(removal.bundleId);
-    for (const reduction of review.reductions) changes.setQuantity.mutate({ bundleId: reduction.bundleId, quantity: reduction.quantity });
+    const removals = review.removals.filter((removal) => !tidied.current.has(removal.bundleId));
+    const reductions = review.reductions.filter((reduction) => !tidied.current.has(`${reduction.bundleId}:${reduction.quantity}`));
+    if (removals.length === 0 && reductions.length === 0) return;
+    for (const removal of removals) {
+      tidied.current.add(removal.bundleId);
+      changes.remove.mutate(removal.bundleId);
+    }
+    for (const reduction of reductions) {
+      tidied.current.add(`${reduction.bundleId}:${reduction.quantity}`);
+      changes.setQuantity.mutate({ bundleId: reduction.bundleId, quantity: reduction.quantity });
+    }
     const byId = <T extends { bundleId: string }>(older: T[], newer: T[]) => [
       ...older.filter((old) => !newer.some((entry) => entry.bundleId === old.bundleId)),
       ...newer,
     ];
-    if (review.removals.length > 0) setRemoved((older) => byId(older, review.removals));
-    if (review.reductions.length > 0) setReduced((older) => byId(older, review.reductions));
+    if (removals.length > 0) setRemoved((older) => byId(older, removals));
+    if (reductions.length > 0) setReduced((older) => byId(older, reductions));
     // The review alone decides when this runs: the mutation objects change with every state they pass through.
   }, [review]);
 
