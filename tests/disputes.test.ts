@@ -85,9 +85,12 @@ async function disputed(sessionId: string, reason = 'product_not_received'): Pro
   return opened.body.id;
 }
 
+/** The bank decides; for a win, the money given back follows in its own event, as with Stripe. */
 async function decided(disputeId: string, outcome: 'won' | 'lost', feeReturned?: boolean) {
   expect((await closeDispute(disputeId, outcome, feeReturned)).status).toBe(200);
-  return deliveredEvent('charge.dispute.closed', disputeId);
+  const closed = await deliveredEvent('charge.dispute.closed', disputeId);
+  if (outcome === 'won') await deliveredEvent('charge.dispute.funds_reinstated', disputeId);
+  return closed;
 }
 
 async function sql<T>(query: string, bind: unknown[] = []): Promise<T[]> {
@@ -139,7 +142,7 @@ describe('a buyer’s bank disputes a card payment', () => {
     await waitForMail({ to: otherTreasurer.email, subjectIncludes: `disputing the payment for order ${order.reference}` });
     // The seller hears too: not the bank's reasons, but to keep the proof of posting.
     const toSeller = await waitForMail({ to: seller.email, subjectIncludes: `questioning the payment for order ${order.reference}` });
-    expect(toSeller.text).toContain('keep your proof that the bag went out');
+    expect(toSeller.text).toContain('keep your proof that the bundles went out');
     expect(toSeller.text).not.toContain('never arrived');
 
     const forTreasurer = (await treasurerClient.get(`/api/orders/${order.id}`)).body.order;
@@ -208,6 +211,11 @@ describe('the bank decides', () => {
     await deliveredEvent('charge.dispute.updated', disputeId);
     expect((await OrderDispute.findOne({ where: { orderId: order.id } }))!.status).toBe('under_review');
     expect((await orderEntries(order.id)).some(([kind]) => kind === 'dispute')).toBe(false);
+    // News overtaken by later news (the opening, delivered again after the answer) does not take the status back.
+    await deliveredEvent('charge.dispute.funds_withdrawn', disputeId);
+    const opening = (await stripeEvents('charge.dispute.created')).find((e) => e.object_id === disputeId)!;
+    expect((await resendEvent(opening.id)).body.attempt.status).toBe(200);
+    expect((await OrderDispute.findOne({ where: { orderId: order.id } }))!.status).toBe('under_review');
 
     const closed = await decided(disputeId, 'lost');
     const entries = await orderEntries(order.id);
@@ -293,7 +301,7 @@ describe('the bank decides', () => {
     const same = await waitForMail({ to: treasurer.email, subjectIncludes: `took back the payment for order ${unsent.order.reference}` });
     expect(same.text).toContain('now owes the guild $18.10.');
     const unsentMail = await waitForMail({ to: seller.email, subjectIncludes: `took back the payment for order ${unsent.order.reference}` });
-    expect(unsentMail.text).toContain('please do not send it until the treasurer tells you what to do');
+    expect(unsentMail.text).toContain('The bundles have not gone out: please do not send them until the treasurer tells you what to do.');
     expect(await payable()).toBe(-CREDIT);
   });
 
@@ -310,7 +318,7 @@ describe('the bank decides', () => {
     const mail = await waitForMail({ to: treasurer.email, subjectIncludes: `won the dispute on order ${order.reference}` });
     expect(mail.text).toContain('the $19.30 stays with the guild');
     expect(mail.text).toContain('The seller’s credit and the guild’s fee for the order stand.');
-    expect(mail.text).toContain('dispute fee of $15.00 stays the guild’s cost');
+    expect(mail.text).toContain('dispute fee of $15.00 is in the ledger as the guild’s cost; if the card service gives it back');
     const toSeller = await waitForMail({ to: seller.email, subjectIncludes: `The payment for order ${order.reference} stands` });
     expect(toSeller.text).toContain('Your credit for this order stands');
 
@@ -318,6 +326,14 @@ describe('the bank decides', () => {
     expect(view.dispute).toMatchObject({ stage: 'won', status: 'won' });
     expect(view.abilities.refund).toBe(true);
     expect((await sellerClient.get(`/api/orders/${order.id}`)).body.order.dispute).toMatchObject({ stage: 'won', status: null });
+
+    // A refund after the win undoes the sale and leaves the card service's dispute fee with the guild.
+    const refunded = await treasurerClient.send('post', `/api/orders/${order.id}/refund`);
+    expect(refunded.status).toBe(200);
+    expect(refunded.body.order.state).toBe('refunded');
+    const after = await orderEntries(order.id);
+    expect(after.filter(([kind]) => kind === 'dispute_fee')).toEqual(feeEntries(DISPUTE_FEE));
+    expect(after.filter(([kind]) => kind === 'refund').map(([, , , reverses]) => reverses).sort()).toEqual(['charge', 'guild_fee', 'seller_credit']);
   });
 });
 
@@ -329,11 +345,18 @@ describe('the card service’s dispute fee', () => {
     await deliveredEvent('charge.dispute.created', opened.body.id);
     expect((await orderEntries(order.id)).filter(([kind]) => kind === 'dispute_fee')).toEqual(feeEntries(2000));
 
+    // The decision comes first; the fee comes back with the money, in news of its own after it.
     await decided(opened.body.id, 'won', true);
     expect((await orderEntries(order.id)).filter(([kind]) => kind === 'dispute_fee')).toEqual([...feeEntries(2000), ...feeEntries(-2000)]);
     const mail = await waitForMail({ to: treasurer.email, subjectIncludes: `won the dispute on order ${order.reference}` });
-    expect(mail.text).toContain('The card service gave back its dispute fee of $20.00');
+    expect(mail.text).toContain('dispute fee of $20.00 is in the ledger as the guild’s cost; if the card service gives it back, the ledger will show that too.');
     expect((await statement()).disputeFeesMinor).toBe(statementBefore.disputeFeesMinor);
+    expect((await OrderDispute.findOne({ where: { orderId: order.id } }))!.feeMinor).toBe(0);
+
+    // A snapshot from before the win, delivered late, takes nothing back out.
+    const closedEvent = (await stripeEvents('charge.dispute.closed')).find((e) => e.object_id === opened.body.id)!;
+    expect((await resendEvent(closedEvent.id)).body.attempt.status).toBe(200);
+    expect((await orderEntries(order.id)).filter(([kind]) => kind === 'dispute_fee')).toEqual([...feeEntries(2000), ...feeEntries(-2000)]);
   });
 
   it('books nothing when the card service charges no fee', async () => {

@@ -157,6 +157,7 @@ describe('office tallies', () => {
            -- are a card cost with a line of their own.
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'processor' AND kind NOT IN ('dispute', 'dispute_fee')), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS processing,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'processor' AND kind = 'dispute_fee'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS dispute_fees,
+           (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'processor' AND kind = 'dispute'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS disputes_lost,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account LIKE 'seller:%' AND kind <> 'payout'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS credits,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'payouts'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS payouts,
            (SELECT coalesce(sum(amount_minor) FILTER (WHERE account = 'buyer' AND kind = 'refund'), 0)::int FROM ledger_entries WHERE ${inPeriod('created_at')}) AS refunds,
@@ -183,6 +184,7 @@ describe('office tallies', () => {
         guildFeesMinor: expected!.fees,
         processingCostMinor: expected!.processing,
         disputeFeesMinor: expected!.dispute_fees,
+        disputesLostMinor: expected!.disputes_lost,
         sellerCreditsMinor: expected!.credits,
         payoutsMinor: expected!.payouts,
         refundsMinor: expected!.refunds,

@@ -96,7 +96,9 @@ export async function openDispute(ctx: FakeContext, sessionId: string, input: { 
   dispute.balance_transactions.push(balanceMovement(ctx, dispute, -amount, fee));
   ctx.store.disputes.set(dispute.id, dispute);
   charge.disputed = true;
-  await ctx.webhooks.emit('charge.dispute.created', dispute, disputeEvents(ctx, dispute));
+  const events = disputeEvents(ctx, dispute);
+  await ctx.webhooks.emit('charge.dispute.created', dispute, events);
+  await ctx.webhooks.emit('charge.dispute.funds_withdrawn', dispute, events);
   return dispute;
 }
 
@@ -122,16 +124,20 @@ export async function answerDispute(ctx: FakeContext, id: string): Promise<Dispu
 
 /**
  * The bank decides: `won` gives the amount back to the merchant, `lost` leaves it with the cardholder. Whether the
- * dispute fee comes back with a win depends on the processor and the country; `feeReturned` says it does.
+ * dispute fee comes back with a win depends on the processor and the country; `feeReturned` says it does. As with
+ * Stripe, the money given back is its own event after the decision (`charge.dispute.funds_reinstated`), so the
+ * decision's event lists only the withdrawal.
  */
 export async function closeDispute(ctx: FakeContext, id: string, outcome: 'won' | 'lost', feeReturned = false): Promise<Dispute> {
   const dispute = findDispute(ctx, id);
   checkOpen(dispute);
   dispute.status = outcome;
+  const events = disputeEvents(ctx, dispute);
+  await ctx.webhooks.emit('charge.dispute.closed', dispute, events);
   if (outcome === 'won') {
     const withdrawn = dispute.balance_transactions[0]!;
     dispute.balance_transactions.push(balanceMovement(ctx, dispute, -withdrawn.amount, feeReturned ? -withdrawn.fee : 0));
+    await ctx.webhooks.emit('charge.dispute.funds_reinstated', dispute, events);
   }
-  await ctx.webhooks.emit('charge.dispute.closed', dispute, disputeEvents(ctx, dispute));
   return dispute;
 }

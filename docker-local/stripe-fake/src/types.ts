@@ -215,7 +215,9 @@ export type EventType =
   | 'refund.created'
   | 'charge.dispute.created'
   | 'charge.dispute.updated'
-  | 'charge.dispute.closed';
+  | 'charge.dispute.closed'
+  | 'charge.dispute.funds_withdrawn'
+  | 'charge.dispute.funds_reinstated';
 
 export interface StripeEvent {
   id: string;

@@ -107,9 +107,13 @@ describe('disputes: the bank questions a paid charge', () => {
     expect((await h.stripe.disputes.retrieve(disputeId)).balance_transactions).toMatchObject([withdrawal]);
     expect((await deliveredEvent('charge.dispute.created', disputeId)).data.object).toMatchObject({ balance_transactions: [withdrawal] });
 
+    expect((await deliveredEvent('charge.dispute.funds_withdrawn', disputeId)).data.object).toMatchObject({ balance_transactions: [withdrawal] });
+
+    // The decision comes first with only the withdrawal; the money given back is its own event after it, as with Stripe.
     await control(`/disputes/${disputeId}/close`, { outcome: 'won' });
     const reinstated = { amount: 1650, fee: 0, net: 1650, reporting_category: 'dispute_reversal', fee_details: [] };
-    expect((await deliveredEvent('charge.dispute.closed', disputeId)).data.object).toMatchObject({ balance_transactions: [withdrawal, reinstated] });
+    expect((await deliveredEvent('charge.dispute.closed', disputeId)).data.object).toMatchObject({ status: 'won', balance_transactions: [withdrawal] });
+    expect((await deliveredEvent('charge.dispute.funds_reinstated', disputeId)).data.object).toMatchObject({ balance_transactions: [withdrawal, reinstated] });
 
     // A processor that gives the fee back with a win: the reinstatement's fee is negative.
     const second = await paidSession();

@@ -4,6 +4,7 @@
  * come formatted in the order's currency, moments in the guild's time zone; names and titles are members' own
  * words and are escaped like everything else `html` interpolates.
  */
+import type { Fulfilment } from '@scrap-relay/shared';
 import { button, html, layout, type RenderedEmail } from './render.ts';
 
 interface DisputeMail {
@@ -51,13 +52,13 @@ export function disputeLost(p: DisputeMail & { sellerName: string; share: string
   const what = `The buyer’s bank decided the dispute on order ${p.reference} for the buyer: ${p.amount} went back to the buyer’s card through the card service.`;
   const ledger = [
     'Scrap Relay has written it in the ledger.',
-    p.share ? `${p.sellerName}’s credit of ${p.share} for this order is taken back, and the guild’s fee on it with it.` : 'No credit for this order was left to take back, so the guild bears it.',
+    p.share ? `${p.sellerName}’s credit of ${p.share} for this order is taken back, and so is the guild’s fee on the order.` : 'No credit for this order was left to take back, so the guild bears it.',
     p.owing ? `${p.sellerName} had been paid out already and now owes the guild ${p.owing}.` : '',
     p.notYetPosted ? `The order is not marked as sent yet: please tell ${p.sellerName} whether to send it.` : '',
   ]
     .filter(Boolean)
     .join(' ');
-  const fees = feeLine(p.fee);
+  const fees = feeLine(p.fee, 'lost');
   return layout({
     guildName: p.guildName,
     subject: `The buyer’s bank took back the payment for order ${p.reference}`,
@@ -72,9 +73,11 @@ export interface DisputeFee {
   returned: string | null;
 }
 
-function feeLine(fee: DisputeFee): string {
+/** `lost`: the fee stays; after a win the card service may still give it back, in news of its own. */
+function feeLine(fee: DisputeFee, outcome: 'lost' | 'won' | 'closed'): string {
   if (fee.returned) return `The card service gave back its dispute fee of ${fee.returned}; the ledger shows it returned.`;
-  if (fee.standing) return `The card service’s dispute fee of ${fee.standing} stays the guild’s cost, as the ledger shows.`;
+  if (fee.standing && outcome === 'lost') return `The card service’s dispute fee of ${fee.standing} stays the guild’s cost, as the ledger shows.`;
+  if (fee.standing) return `The card service’s dispute fee of ${fee.standing} is in the ledger as the guild’s cost; if the card service gives it back, the ledger will show that too.`;
   return 'The card service charged no fee for this dispute.';
 }
 
@@ -84,7 +87,7 @@ export function disputeKept(p: DisputeMail & { how: 'won' | 'closed'; fee: Dispu
     p.how === 'won'
       ? `The buyer’s bank decided the dispute on order ${p.reference} for the guild: the ${p.amount} stays with the guild.`
       : `The buyer’s bank closed its questions about the payment for order ${p.reference} without disputing it: the ${p.amount} stays with the guild.`;
-  const after = `The seller’s credit and the guild’s fee for the order stand. If the card service held the amount back while the bank decided, it returns it; its dashboard shows when. ${feeLine(p.fee)}`;
+  const after = `The seller’s credit and the guild’s fee for the order stand. If the card service held the amount back while the bank decided, it returns it; its dashboard shows when. ${feeLine(p.fee, p.how)}`;
   return layout({
     guildName: p.guildName,
     subject: p.how === 'won' ? `The guild won the dispute on order ${p.reference}` : `The bank closed its questions on order ${p.reference}`,
@@ -93,51 +96,74 @@ export function disputeKept(p: DisputeMail & { how: 'won' | 'closed'; fee: Dispu
   });
 }
 
-/** What the seller hears at each step: the news, what it means for their credit, and what to do with the bag. */
+/**
+ * What the seller hears at each step. `bag`: where the order's bundles are (gone to the buyer, still with the
+ * seller, or nowhere because the order was cancelled or refunded); `fulfilment`: by post or at a meeting.
+ */
 export type SellerDisputeNews =
-  | { stage: 'open'; sent: boolean }
-  | { stage: 'lost'; share: string | null; owing: string | null; sent: boolean }
-  | { stage: 'won' | 'closed' };
+  | { stage: 'open'; bag: Bag; fulfilment: Fulfilment }
+  | { stage: 'lost'; share: string | null; owing: string | null; bag: Bag; fulfilment: Fulfilment }
+  | { stage: 'won' | 'closed'; bag: Bag };
+
+type Bag = 'out' | 'waiting' | 'none';
+
+/** What the seller should do with the bundles while the bank decides, or after it decided for the buyer. */
+function bagLine(stage: 'open' | 'lost', bag: Bag, fulfilment: Fulfilment): string {
+  if (bag === 'out') {
+    if (stage === 'lost') return '';
+    return fulfilment === 'post'
+      ? 'Please keep your proof that the bundles went out (the tracking number or the post office’s receipt): the treasurer may ask you for it.'
+      : 'The bundles were handed over at a guild meeting; the treasurer may ask you about the handover.';
+  }
+  if (bag === 'waiting') {
+    const give = fulfilment === 'post' ? 'send them' : 'bring them to the meeting';
+    return stage === 'open'
+      ? `The bundles have not gone out yet: please keep them until the treasurer tells you whether to ${give}.`
+      : `The bundles have not gone out: please do not ${give} until the treasurer tells you what to do.`;
+  }
+  return '';
+}
 
 /**
  * To the order's seller. They answer nothing themselves (the treasurer does, in the card service's dashboard), but
- * their credit depends on the outcome, the treasurer may need their proof of posting, and a bag not yet sent
- * should wait for the treasurer's word. The bank's reasons and deadlines stay with the treasurers.
+ * their credit depends on the outcome, the treasurer may need their proof of posting, and bundles not yet out
+ * should wait for the treasurer's word. The bank's reasons and deadlines stay with the treasurers. For an order
+ * already cancelled or refunded there is no credit and no bag: the seller only hears that nothing is asked of them.
  */
 export function disputeForSeller(p: { guildName: string; name: string; reference: string; link: string; news: SellerDisputeNews }): RenderedEmail {
   const { news } = p;
+  const settledAlready = 'The order was cancelled or refunded already, so nothing changes for you and nothing is asked of you.';
   let subject: string;
   let lines: string[];
   if (news.stage === 'open') {
     subject = `The buyer’s bank is questioning the payment for order ${p.reference}`;
     lines = [
       `The buyer’s bank has opened a dispute on the card payment for order ${p.reference}. The guild’s treasurer answers it with the card service.`,
-      news.sent
-        ? 'Please keep your proof that the bag went out (the tracking number or the post office’s receipt): the treasurer may ask you for it.'
-        : 'The bag has not gone out yet: please keep it until the treasurer tells you whether to send it.',
-      'Your credit for this order stays until the bank decides; if the buyer’s bank wins, it is taken back.',
+      news.bag === 'none' ? settledAlready : bagLine('open', news.bag, news.fulfilment),
+      news.bag === 'none' ? '' : 'Your credit for this order stays unless the bank decides for the buyer.',
     ];
   } else if (news.stage === 'lost') {
     subject = `The buyer’s bank took back the payment for order ${p.reference}`;
     lines = [
       `The buyer’s bank decided the dispute on order ${p.reference} for the buyer, and the payment went back to the buyer’s card.`,
-      news.share ? `Your credit of ${news.share} for this order is taken back.` : 'None of your credit for this order was left to take back.',
+      news.share ? `Your credit of ${news.share} for this order is taken back.` : news.bag === 'none' ? settledAlready : 'None of your credit for this order was left to take back.',
       news.owing ? `You had been paid out already, so you now owe the guild ${news.owing}; the treasurer will be in touch about settling it.` : '',
-      news.sent ? '' : 'The bag has not gone out: please do not send it until the treasurer tells you what to do.',
-    ].filter(Boolean);
+      bagLine('lost', news.bag, news.fulfilment),
+    ];
   } else {
     subject = `The payment for order ${p.reference} stands`;
     lines = [
       news.stage === 'won'
         ? `The buyer’s bank decided the dispute on order ${p.reference} for the guild.`
         : `The buyer’s bank closed its questions about the payment for order ${p.reference} without disputing it.`,
-      'Your credit for this order stands; there is nothing for you to do.',
+      news.bag === 'none' ? 'Nothing changes for you.' : 'Your credit for this order stands; there is nothing for you to do.',
     ];
   }
+  lines = lines.filter(Boolean);
   return layout({
     guildName: p.guildName,
     subject,
-    text: `Hello ${p.name},\n\n${lines.join('\n')}\n${p.link}`,
+    text: `Hello ${p.name},\n\n${lines.join('\n\n')}\n\nThe order: ${p.link}`,
     bodyHtml: html`<p>Hello ${p.name},</p>${lines.map((line) => html`<p>${line}</p>`)}${button(p.link, 'Open the order')}`,
   });
 }

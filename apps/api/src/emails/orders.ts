@@ -157,13 +157,13 @@ export function problemReported(p: Base & { message: string }): RenderedEmail {
  * To the seller: the buyer reported a problem with the order. What the buyer wrote stays with the treasurer, who
  * decides about refunds; the seller learns that there is something to look into, and what may be asked of them.
  */
-export function problemReportedToSeller(p: Omit<Base, 'titles'>): RenderedEmail {
-  const what = `The buyer of order ${p.reference} reported a problem with it. The guild’s treasurer is looking into it.`;
-  const ask = 'They may ask you about it, for example for the tracking number or how the bundles were packed. Please do not contact the buyer about it yourself unless the treasurer asks you to.';
+export function problemReportedToSeller(p: Omit<Base, 'titles'> & { buyerName: string }): RenderedEmail {
+  const what = `${p.buyerName}, who bought order ${p.reference}, reported a problem. The guild’s treasurer is looking into it and may ask you for the tracking number or how the bundles were packed.`;
+  const ask = 'Please leave it to the treasurer to contact the buyer about it.';
   return layout({
     guildName: p.guildName,
     subject: `The buyer reported a problem with order ${p.reference}`,
-    text: `Hello ${p.name},\n\n${what}\n\n${ask}\n${p.link}`,
+    text: `Hello ${p.name},\n\n${what}\n\n${ask}\n\nThe order: ${p.link}`,
     bodyHtml: html`<p>Hello ${p.name},</p><p>${what}</p><p>${ask}</p>${button(p.link, 'Open the order')}`,
   });
 }

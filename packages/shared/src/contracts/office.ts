@@ -14,6 +14,8 @@ export interface DashboardFigures {
     processingCostMinor: number;
     /** The card processor's fees for handling disputes, less any it gave back. */
     disputeFeesMinor: number;
+    /** Card payments the buyers' banks took back in disputes the guild lost. */
+    disputesLostMinor: number;
     sellerCreditsMinor: number;
     payoutsMinor: number;
     postagePaidMinor: number;

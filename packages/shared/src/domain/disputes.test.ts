@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { disputeReasonLabel, disputeStage, disputeStatusLabel } from './disputes.ts';
+import { disputeReasonLabel, disputeStage, disputeStatusLabel, disputeStatusRank } from './disputes.ts';
 import { accountBalances, disputeFeeEntries, disputeLostEntries, isBalanced, ledgerEntriesForPaidOrder, orderMoney, reversalEntries } from './money.ts';
+
+describe('dispute statuses in the order they follow, for news arriving out of order (design choice)', () => {
+  it('ranks an answered dispute after one waiting for an answer, and every decision after both', () => {
+    expect(disputeStatusRank('under_review')).toBeGreaterThan(disputeStatusRank('needs_response'));
+    expect(disputeStatusRank('needs_response')).toBeGreaterThan(disputeStatusRank('warning_under_review'));
+    for (const decided of ['won', 'lost', 'warning_closed', 'prevented']) expect(disputeStatusRank(decided)).toBeGreaterThan(disputeStatusRank('appeal_under_review'));
+  });
+});
 
 describe('dispute stages (statuses as Stripe’s Dispute object lists them)', () => {
   it('reads the decided statuses, and everything else as still open', () => {

@@ -16,6 +16,27 @@ const STAGES: Readonly<Record<string, DisputeStage>> = {
 
 export const disputeStage = (status: string): DisputeStage => STAGES[status] ?? 'open';
 
+/**
+ * How far along a status is (design choice, from the order the card service's statuses follow: an inquiry, a
+ * dispute, answered, decided; an appeal after the first answer). News about a dispute can arrive out of order, so a
+ * status further back than the one recorded is news that was overtaken, not a step back. An unknown status ranks
+ * with the open ones it most likely sits between, after the known open ones.
+ */
+const RANKS: Readonly<Record<string, number>> = {
+  warning_needs_response: 1,
+  warning_under_review: 2,
+  needs_response: 3,
+  under_review: 4,
+  appeal_needs_response: 5,
+  appeal_under_review: 6,
+  warning_closed: 7,
+  prevented: 7,
+  won: 7,
+  lost: 7,
+};
+
+export const disputeStatusRank = (status: string): number => RANKS[status] ?? 4;
+
 export const DISPUTE_STATUS_LABELS: Readonly<Record<string, string>> = {
   warning_needs_response: 'Inquiry: the bank asks the guild for information',
   warning_under_review: 'Inquiry answered: the bank is looking at it',

@@ -13,6 +13,8 @@ export class OrderDispute extends Model<InferAttributes<OrderDispute>, InferCrea
   declare evidenceDueBy: Date | null;
   /** The card service's fee for the dispute as it stands in the ledger (0 when none was charged or it came back). */
   declare feeMinor: CreationOptional<number>;
+  /** Every balance movement the card service reported for the dispute, by id, with its fee (see `bookDisputeFee`). */
+  declare feeMovements: CreationOptional<Record<string, number>>;
   declare openedAt: Date;
   declare closedAt: CreationOptional<Date | null>;
   declare updatedAt: CreationOptional<Date>;
@@ -29,6 +31,7 @@ export class OrderDispute extends Model<InferAttributes<OrderDispute>, InferCrea
         currency: { type: DataTypes.CHAR(3), allowNull: false },
         evidenceDueBy: { type: DataTypes.DATE, allowNull: true },
         feeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        feeMovements: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
         openedAt: { type: DataTypes.DATE, allowNull: false },
         closedAt: { type: DataTypes.DATE, allowNull: true },
         updatedAt: DataTypes.DATE,

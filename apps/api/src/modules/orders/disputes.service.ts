@@ -1,6 +1,16 @@
 import type Stripe from 'stripe';
 import { Op, type Transaction } from 'sequelize';
-import { disputeFeeEntries, disputeLostEntries, disputeReasonLabel, disputeStage, formatMoney, type LedgerEntry as DomainEntry } from '@scrap-relay/shared';
+import {
+  BAG_OUT_ORDER_STATES,
+  CREDIT_WAITING_ORDER_STATES,
+  disputeFeeEntries,
+  disputeLostEntries,
+  disputeReasonLabel,
+  disputeStage,
+  disputeStatusRank,
+  formatMoney,
+  type LedgerEntry as DomainEntry,
+} from '@scrap-relay/shared';
 import { LedgerEntry, Member, Order, OrderDispute, OrderItem, type Guild } from '../../db/models/index.ts';
 import { disputeForSeller, disputeKept, disputeLost, disputeOpened, type DisputeFee, type SellerDisputeNews } from '../../emails/disputes.ts';
 import { formatWhen } from '../../emails/format.ts';
@@ -30,8 +40,9 @@ const idOf = (value: string | { id: string } | null) => (typeof value === 'strin
  * that records the event. The card service's fee for the dispute is booked as it reports it (`bookDisputeFee`). The
  * first news of an open dispute tells every treasurer and the seller; its decision is told once: a lost one is booked
  * in the ledger (the seller's credit and the guild's fee for the order taken back), a won one leaves the order's
- * money as it was. A decided dispute is not reopened by news arriving late or twice. A dispute about a payment no
- * order knows is logged and left: the event is still acknowledged, so the card service stops sending it.
+ * money as it was. A decided dispute is not reopened by news arriving late or twice, but the money the card service
+ * moves after the decision (a fee given back with a win) is still booked. A dispute about a payment no order knows
+ * is logged and left: the event is still acknowledged, so the card service stops sending it.
  */
 export async function recordDispute(ctx: AppContext, dispute: Stripe.Dispute, transaction: Transaction): Promise<void> {
   const paymentIntentId = idOf(dispute.payment_intent);
@@ -47,27 +58,35 @@ export async function recordDispute(ctx: AppContext, dispute: Stripe.Dispute, tr
     ctx.logger.error({ orderId: order.id, recorded: existing.stripeDisputeId, disputeId: dispute.id }, 'a second dispute on one order; nothing recorded');
     return;
   }
-  if (existing && disputeStage(existing.status) !== 'open') return;
+  if (existing && disputeStage(existing.status) !== 'open') {
+    await bookDisputeFee(ctx, order, existing, dispute, transaction);
+    return;
+  }
+
+  if (existing && disputeStatusRank(dispute.status) < disputeStatusRank(existing.status)) {
+    // News overtaken by later news (a snapshot taken before the guild answered): its money still counts.
+    await bookDisputeFee(ctx, order, existing, dispute, transaction);
+    return;
+  }
 
   const stage = disputeStage(dispute.status);
   const fields = { ...disputeFields(dispute), closedAt: stage === 'open' ? null : ctx.now() };
   const record = existing
     ? await existing.update(fields, { transaction })
     : await OrderDispute.create({ orderId: order.id, stripeDisputeId: dispute.id, openedAt: new Date(dispute.created * 1000), ...fields }, { transaction });
-  const fee = await bookDisputeFee(ctx, order, dispute, transaction);
-  await record.update({ feeMinor: fee.standingMinor }, { transaction });
+  const fee = await bookDisputeFee(ctx, order, record, dispute, transaction);
 
   const guild = await loadGuild();
   const mail = { guildName: guild.name, reference: order.reference, link: `${ctx.config.appUrl}/orders/${order.id}`, amount: formatMoney(record.amountMinor, order.currency) };
   const seller = (await Member.findByPk(order.sellerId, { transaction }))!;
-  const sent = order.state !== 'confirmed';
+  const bag = bagOf(order);
   const tellSeller = (news: SellerDisputeNews) =>
     ctx.queue.enqueueEmail({ to: seller.email, ...disputeForSeller({ guildName: guild.name, name: seller.name, reference: order.reference, link: mail.link, news }) }, transaction);
   const money = (minor: number) => (minor > 0 ? formatMoney(minor, order.currency) : null);
   if (stage === 'open') {
     if (existing) return;
     await tellTreasurers(ctx, transaction, await openedMail(guild, order, record, seller, money(fee.standingMinor), transaction, mail));
-    await tellSeller({ stage: 'open', sent });
+    await tellSeller({ stage: 'open', bag, fulfilment: order.fulfilment });
     return;
   }
   const feeNews: DisputeFee = { standing: money(fee.standingMinor), returned: money(-fee.bookedMinor) };
@@ -78,31 +97,48 @@ export async function recordDispute(ctx: AppContext, dispute: Stripe.Dispute, tr
     const [split] = await sellerBalanceSplits(ctx.sequelize, [order.sellerId], transaction);
     const owing = money(-(split?.payableMinor ?? 0));
     await tellTreasurers(ctx, transaction, (name) =>
-      disputeLost({ ...mail, name, sellerName: seller.name, share: money(share), owing, notYetPosted: !sent, fee: feeNews }),
+      disputeLost({ ...mail, name, sellerName: seller.name, share: money(share), owing, notYetPosted: bag === 'waiting', fee: feeNews }),
     );
-    await tellSeller({ stage: 'lost', share: money(share), owing, sent });
+    await tellSeller({ stage: 'lost', share: money(share), owing, bag, fulfilment: order.fulfilment });
     return;
   }
   await tellTreasurers(ctx, transaction, (name) => disputeKept({ ...mail, name, how: stage, fee: feeNews }));
-  await tellSeller({ stage });
+  await tellSeller({ stage, bag });
+}
+
+/** Where the order's bundles are: gone to the buyer, still with the seller, or nowhere (cancelled or refunded). */
+function bagOf(order: Order): SellerDisputeNews['bag'] {
+  if ((BAG_OUT_ORDER_STATES as readonly string[]).includes(order.state)) return 'out';
+  if ((CREDIT_WAITING_ORDER_STATES as readonly string[]).includes(order.state)) return 'waiting';
+  return 'none';
 }
 
 /**
- * Books the card service's fee for the dispute as its balance movements report it (their fees summed: charged when
- * the money is withdrawn, negative if a win gives it back), less what is booked already. Returns the fee standing
- * after this news and what this news booked (negative: given back). A movement in another currency than the
- * order's is not the guild's to book here and is logged for the treasurer to look at.
+ * Books the card service's fee for the dispute as its balance movements report it: charged when the money is
+ * withdrawn, negative if a win gives it back. Movements are kept on the dispute by id, so news arriving late or out
+ * of order adds what it brings and never takes out what an earlier piece of news reported; the ledger gets the
+ * difference between their fees' sum and what is booked already. Returns the fee standing after this news and what
+ * this news booked (negative: given back). A movement in another currency than the order's is not the guild's to
+ * book here and is logged for the treasurer to look at.
  */
-async function bookDisputeFee(ctx: AppContext, order: Order, dispute: Stripe.Dispute, transaction: Transaction): Promise<{ standingMinor: number; bookedMinor: number }> {
+async function bookDisputeFee(
+  ctx: AppContext,
+  order: Order,
+  record: OrderDispute,
+  dispute: Stripe.Dispute,
+  transaction: Transaction,
+): Promise<{ standingMinor: number; bookedMinor: number }> {
   const movements = (dispute.balance_transactions ?? []).filter((m) => typeof m === 'object' && m !== null);
   const ours = movements.filter((m) => m.currency.toUpperCase() === order.currency);
   if (ours.length < movements.length) {
     ctx.logger.error({ orderId: order.id, disputeId: dispute.id, currencies: movements.map((m) => m.currency) }, 'a dispute fee in another currency than the order’s; not booked');
   }
-  const chargedMinor = ours.reduce((sum, m) => sum + m.fee, 0);
+  const seen: Record<string, number> = { ...record.feeMovements, ...Object.fromEntries(ours.map((m) => [m.id, m.fee])) };
+  const chargedMinor = Object.values(seen).reduce((sum, fee) => sum + fee, 0);
   const standing = await LedgerEntry.findAll({ where: { orderId: order.id, kind: 'dispute_fee' }, transaction });
   const entries = disputeFeeEntries({ chargedMinor, orderEntries: standing.map((e) => ({ kind: e.kind, account: e.account as DomainEntry['account'], amountMinor: e.amountMinor })) });
   await writeLedger(entries, { orderId: order.id, currency: order.currency, at: ctx.now() }, transaction);
+  await record.update({ feeMovements: seen, feeMinor: chargedMinor }, { transaction });
   return { standingMinor: chargedMinor, bookedMinor: entries.find((e) => e.account === 'processor')?.amountMinor ?? 0 };
 }
 
@@ -155,7 +191,11 @@ function fulfilmentLine(order: Order, timeZone: string): string {
     const received = order.receivedAt ? ` It is marked received since ${formatWhen(order.receivedAt, timeZone)}.` : '';
     return `The seller marked it posted on ${formatWhen(order.postedAt, timeZone)}${tracking}.${received}`;
   }
-  if (order.state === 'confirmed') return order.fulfilment === 'post' ? 'The seller has not marked it posted yet.' : 'It has not been handed over yet.';
+  if (order.state === 'confirmed') {
+    return order.fulfilment === 'post'
+      ? 'The bundles have not gone out: the seller has been asked to keep them until you say whether to send them.'
+      : 'The bundles have not been handed over: the seller has been asked to keep them until you say whether to bring them to the meeting.';
+  }
   return `The order is ${order.state.replace('_', ' ')}.`;
 }
 

@@ -491,8 +491,12 @@ async function tellTreasurersRefundFailed(ctx: AppContext, orderId: string) {
   });
 }
 
+/**
+ * Undoes the order's money: every entry of the sale, not refunds already made, and not what a card dispute booked (a
+ * refund is possible again only after a won dispute, whose fee stays the guild's cost, or comes back on its own).
+ */
 async function reverseLedger(ctx: AppContext, order: Order, transaction: Transaction) {
-  const original = await LedgerEntry.findAll({ where: { orderId: order.id, kind: { [Op.ne]: 'refund' } }, transaction });
+  const original = await LedgerEntry.findAll({ where: { orderId: order.id, kind: { [Op.notIn]: ['refund', 'dispute', 'dispute_fee'] } }, transaction });
   const reversals = reversalEntries(
     original.map((e) => ({ kind: e.kind, account: e.account as DomainEntry['account'], amountMinor: e.amountMinor })),
   );
@@ -648,10 +652,11 @@ export async function reportProblem(ctx: AppContext, actor: Actor, orderId: stri
       const mail = problemReported({ guildName: guild.name, name: treasurer.name, reference: order.reference, titles: [], link: `${ctx.config.appUrl}/orders/${order.id}`, message });
       await ctx.queue.enqueueEmail({ to: treasurer.email, ...mail }, transaction);
     }
-    const seller = await Member.findByPk(order.sellerId, { transaction });
+    const [seller, buyer] = await Promise.all([Member.findByPk(order.sellerId, { transaction }), Member.findByPk(order.buyerId, { transaction })]);
     if (seller?.active) {
       const link = `${ctx.config.appUrl}/orders/${order.id}`;
-      await ctx.queue.enqueueEmail({ to: seller.email, ...problemReportedToSeller({ guildName: guild.name, name: seller.name, reference: order.reference, link }) }, transaction);
+      const mail = problemReportedToSeller({ guildName: guild.name, name: seller.name, reference: order.reference, link, buyerName: buyer?.name ?? 'The buyer' });
+      await ctx.queue.enqueueEmail({ to: seller.email, ...mail }, transaction);
     }
   });
 }

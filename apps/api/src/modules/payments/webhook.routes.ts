@@ -10,6 +10,24 @@ import { recordDispute } from '../orders/disputes.service.ts';
  * The payment service's events. The signature is checked on the raw body; each event id is
  * recorded in the same transaction as its effect, so a repeated delivery changes nothing.
  */
+type DisputeEvent =
+  | Stripe.ChargeDisputeCreatedEvent
+  | Stripe.ChargeDisputeUpdatedEvent
+  | Stripe.ChargeDisputeClosedEvent
+  | Stripe.ChargeDisputeFundsWithdrawnEvent
+  | Stripe.ChargeDisputeFundsReinstatedEvent;
+
+const DISPUTE_EVENTS: ReadonlySet<string> = new Set<DisputeEvent['type']>([
+  'charge.dispute.created',
+  'charge.dispute.updated',
+  'charge.dispute.closed',
+  'charge.dispute.funds_withdrawn',
+  'charge.dispute.funds_reinstated',
+]);
+
+/** Every piece of news about a dispute carries the whole Dispute object; `recordDispute` reads each the same way. */
+const isDisputeEvent = (event: Stripe.Event): event is DisputeEvent => DISPUTE_EVENTS.has(event.type);
+
 export function webhookRoutes(ctx: AppContext): Router {
   const router = Router();
   router.post('/stripe/webhook', express.raw({ type: 'application/json', limit: '1mb' }), async (req, res) => {
@@ -36,8 +54,9 @@ export function webhookRoutes(ctx: AppContext): Router {
         const orderId = event.data.object.metadata?.orderId;
         // Members read the reason on the order; the session's id stays in the log and the event record.
         if (orderId) followUp = async () => void (await cancelUnpaid(ctx, orderId, 'The payment page closed before a payment was made.'));
-      } else if (event.type === 'charge.dispute.created' || event.type === 'charge.dispute.updated' || event.type === 'charge.dispute.closed') {
-        // The buyer's bank questions a payment: recorded on its order, the treasurers told, a lost one booked.
+      } else if (isDisputeEvent(event)) {
+        // The buyer's bank questions a payment: recorded on its order, the treasurers told, a lost one booked, the
+        // money it moves (the amount and the card service's fee, withdrawn and reinstated) followed.
         await recordDispute(ctx, event.data.object, transaction);
       }
     });

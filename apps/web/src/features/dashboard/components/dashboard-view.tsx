@@ -100,8 +100,8 @@ function Figures({ title, figures, units, busy }: { title: string; figures: Dash
         <>
           <h3 className="pt-2 text-lg font-bold">Money</h3>
           <dl className="grid grid-cols-2 gap-3 sm:gap-4 lg:grid-cols-3">
-            <Figure term="Funds raised" value={formatMoney(money.fundsRaisedMinor, money.currency)} detail="Guild fees less card costs: what the guild kept." />
-            <Figure term="Guild fees" value={formatMoney(money.guildFeesMinor, money.currency)} detail="After refunds." />
+            <Figure term="Funds raised" value={formatMoney(money.fundsRaisedMinor, money.currency)} detail="Guild fees less card costs and dispute fees." />
+            <Figure term="Guild fees" value={formatMoney(money.guildFeesMinor, money.currency)} detail="After refunds and disputes lost." />
             <Figure term="Card costs" value={formatMoney(money.processingCostMinor, money.currency)} detail="The card processor’s fees, kept even on refunds." />
             {money.disputeFeesMinor !== 0 ? (
               <Figure term="Dispute fees" value={formatMoney(money.disputeFeesMinor, money.currency)} detail="The card processor’s fees for handling disputes." />
@@ -110,6 +110,9 @@ function Figures({ title, figures, units, busy }: { title: string; figures: Dash
             <Figure term="Paid out to sellers" value={formatMoney(money.payoutsMinor, money.currency)} />
             <Figure term="Postage paid by buyers" value={formatMoney(money.postagePaidMinor, money.currency)} />
             <Figure term="Refunds" value={formatMoney(money.refundsMinor, money.currency)} />
+            {money.disputesLostMinor !== 0 ? (
+              <Figure term="Taken back by buyers’ banks" value={formatMoney(money.disputesLostMinor, money.currency)} detail="Card payments returned in disputes the guild lost." />
+            ) : null}
           </dl>
         </>
       ) : null}

@@ -82,11 +82,11 @@ function Statement({ statement: s, guildName }: { statement: MonthStatement; gui
   const lines: Array<[string, number, string]> = [
     ['Card payments received', s.chargesMinor, 'Everything buyers paid: prices and postage.'],
     ['Refunds to buyers', s.refundsMinor, 'Paid back on cancelled or refunded orders.'],
-    ['Guild fees kept', s.guildFeesMinor, 'The guild’s fees, less fees given back with refunds.'],
+    ['Guild fees kept', s.guildFeesMinor, 'The guild’s fees, less fees given back with refunds and disputes lost.'],
     ['Card processing cost', s.processingCostMinor, 'What the card processor kept.'],
     ['Taken back by buyers’ banks', s.disputesLostMinor, 'Disputes the guild lost: payments the card processor returned to the buyer’s card.'],
     ['Dispute fees', s.disputeFeesMinor, 'What the card processor charged for handling disputes, less fees it gave back.'],
-    ['Credited to sellers', s.sellerCreditsMinor, 'Sellers’ shares and postage, less refunds.'],
+    ['Credited to sellers', s.sellerCreditsMinor, 'Sellers’ shares and postage, less refunds and disputes lost.'],
     ['Paid out to sellers', s.payoutsMinor, 'Payouts the treasurer recorded.'],
   ];
   return (

@@ -42,4 +42,17 @@ describe('the dispute on an order', () => {
     const waiting = await renderPanel(makeOrderView({ state: 'confirmed', viewerIs: 'seller', dispute: forSeller }), forSeller);
     expect(waiting).toContain('keep them until the treasurer tells you whether to send them');
   });
+
+  it('tells the treasurer the seller keeps bundles not yet sent, and names a dispute fee only when one was charged', async () => {
+    const noFee = { ...forTreasurer, feeMinor: 0 };
+    const text = await renderPanel(makeOrderView({ state: 'confirmed', viewerIs: 'officer', dispute: noFee }), noFee);
+    expect(text).toContain('has been asked to keep them until you say whether to send them');
+    expect(text).not.toContain('The ledger holds the card service’s dispute fee');
+    expect(text).toContain('Card service’s dispute feeNone');
+  });
+
+  it('does not ask the seller for proof of posting before the bundles went out', async () => {
+    const waiting = await renderPanel(makeOrderView({ state: 'confirmed', viewerIs: 'seller', dispute: forSeller }), forSeller);
+    expect(waiting).not.toContain('proof of posting');
+  });
 });

@@ -13,12 +13,13 @@ const TONES: Record<OrderDisputeView['stage'], AlertTone> = { open: 'warning', l
 export function DisputePanel({ order, dispute }: { order: OrderView; dispute: OrderDisputeView }) {
   const timeZone = useGuildTimeZone();
   const when = (iso: string) => formatTimestamp(iso, timeZone);
-  if (dispute.status === null) return <SellerDisputeNote dispute={dispute} notSentYet={order.state === 'confirmed'} />;
+  if (dispute.status === null) return <SellerDisputeNote order={order} dispute={dispute} />;
   const open = dispute.stage === 'open';
   return (
     <Panel title="Card payment dispute">
       <Alert tone={TONES[dispute.stage]} title={disputeStatusLabel(dispute.status)} announce={false}>
-        <p>{STAGE_NOTES[dispute.stage]}</p>
+        <p>{stageNote(dispute)}</p>
+        {waitingNote(order, dispute) ? <p className="font-semibold">{waitingNote(order, dispute)}</p> : null}
       </Alert>
       <dl className="grid gap-x-6 sm:grid-cols-[12rem_1fr] sm:gap-y-2 max-sm:[&>dd]:mb-3">
         <dt className="font-semibold text-thread-soft">Amount disputed</dt>
@@ -62,17 +63,34 @@ export function DisputePanel({ order, dispute }: { order: OrderView; dispute: Or
   );
 }
 
-const STAGE_NOTES: Record<OrderDisputeView['stage'], string> = {
-  open: 'While the bank decides, the order cannot be refunded or cancelled. The ledger holds the card service’s dispute fee as the guild’s cost; the order’s own money changes only if the guild loses.',
-  lost: 'The money went back to the buyer’s card. The ledger shows the seller’s credit and the guild’s fee for this order taken back, and the card service’s dispute fee as the guild’s cost.',
-  won: 'The money stays with the guild, and the seller’s credit with it. The ledger shows the card service’s dispute fee, and gives it back if the card service did.',
-  closed: 'The bank closed its questions without taking the money back. The seller’s credit stands.',
-};
+/** The treasurer's note for each stage; the dispute fee is named only when the card service charged one. */
+function stageNote(dispute: OrderDisputeView): string {
+  const fee = dispute.feeMinor ? ' The ledger holds the card service’s dispute fee as the guild’s cost.' : '';
+  switch (dispute.stage) {
+    case 'open':
+      return `While the bank decides, the order cannot be refunded or cancelled; its own money changes only if the guild loses.${fee}`;
+    case 'lost':
+      return `The money went back to the buyer’s card. The ledger shows the seller’s credit and the guild’s fee for this order taken back.${fee}`;
+    case 'won':
+      return `The money stays with the guild, and the seller’s credit with it.${fee}`;
+    case 'closed':
+      return 'The bank closed its questions without taking the money back. The seller’s credit stands.';
+  }
+}
+
+/** For the treasurer: bundles not yet out wait for their word, and the seller has been told so. */
+function waitingNote(order: OrderView, dispute: OrderDisputeView): string | null {
+  if (order.state !== 'confirmed' || (dispute.stage !== 'open' && dispute.stage !== 'lost')) return null;
+  const give = order.fulfilment === 'post' ? 'send them' : 'bring them to the meeting';
+  return dispute.stage === 'open'
+    ? `The bundles have not gone out: ${order.seller.name} has been asked to keep them until you say whether to ${give}.`
+    : `The bundles have not gone out: ${order.seller.name} has been asked to keep them until you say what to do with them.`;
+}
 
 const SELLER_NOTES: Record<OrderDisputeView['stage'], { title: string; text: string }> = {
   open: {
     title: 'The buyer’s bank is looking into the card payment for this order',
-    text: 'The guild’s treasurer answers the bank. Keep your proof of posting: the treasurer may ask you for it. Your credit for this order stays unless the bank decides for the buyer.',
+    text: 'The guild’s treasurer answers the bank. Your credit for this order stays unless the bank decides for the buyer.',
   },
   lost: {
     title: 'The buyer’s bank took the card payment back',
@@ -82,14 +100,27 @@ const SELLER_NOTES: Record<OrderDisputeView['stage'], { title: string; text: str
   closed: { title: 'The buyer’s bank looked into the card payment', text: 'It left the payment with the guild: nothing changes for you.' },
 };
 
-/** `notSentYet`: the bundles have not gone out, so after a lost dispute the seller asks before sending them. */
-function SellerDisputeNote({ dispute, notSentYet }: { dispute: OrderDisputeView; notSentYet: boolean }) {
+/** What the seller does with the bundles, from where they are: the same words as the seller's e-mails. */
+function bundlesNote(order: OrderView, stage: OrderDisputeView['stage']): string | null {
+  const give = order.fulfilment === 'post' ? 'send them' : 'bring them to the meeting';
+  if (order.state === 'confirmed') {
+    if (stage === 'open') return `The bundles have not gone out yet: keep them until the treasurer tells you whether to ${give}.`;
+    if (stage === 'lost') return `The bundles have not gone out: please do not ${give} until the treasurer tells you what to do.`;
+    return null;
+  }
+  if (stage !== 'open') return null;
+  if (order.state === 'posted' || order.state === 'received') return 'Keep your proof of posting (the tracking number or the post office’s receipt): the treasurer may ask you for it.';
+  if (order.state === 'handed_over') return 'The bundles were handed over at a guild meeting; the treasurer may ask you about the handover.';
+  return null;
+}
+
+function SellerDisputeNote({ order, dispute }: { order: OrderView; dispute: OrderDisputeView }) {
   const note = SELLER_NOTES[dispute.stage];
+  const bundles = bundlesNote(order, dispute.stage);
   return (
     <Alert tone={dispute.stage === 'lost' ? 'warning' : 'info'} title={note.title} announce={false}>
       <p>{note.text}</p>
-      {dispute.stage === 'open' && notSentYet ? <p className="font-semibold">The bundles have not gone out yet: keep them until the treasurer tells you whether to send them.</p> : null}
-      {dispute.stage === 'lost' && notSentYet ? <p className="font-semibold">The bundles have not gone out yet: ask the treasurer before you send them.</p> : null}
+      {bundles ? <p className="font-semibold">{bundles}</p> : null}
     </Alert>
   );
 }

@@ -145,7 +145,7 @@ describe('a disputed card payment on the order page', () => {
     const lost: OrderDisputeView = { stage: 'lost', status: null, amountMinor: null, reason: null, evidenceDueBy: null, feeMinor: null, openedAt: openForTreasurer.openedAt, closedAt: '2026-12-10T18:00:00.000Z' };
     const unsent = await orderPage({ ...posted('seller', lost), state: 'confirmed', postedAt: null, trackingNumber: null });
     expect(unsent.container.textContent).toContain('The buyer’s bank took the card payment back');
-    expect(unsent.container.textContent).toContain('ask the treasurer before you send them');
+    expect(unsent.container.textContent).toContain('please do not send them until the treasurer tells you what to do');
     cleanup();
     const sent = await orderPage(posted('seller', lost));
     expect(sent.container.textContent).toContain('Your credit for this order was taken back with it.');

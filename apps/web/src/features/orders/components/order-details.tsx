@@ -30,6 +30,8 @@ export function OrderDetails({ order, units, payment }: OrderDetailsProps) {
   const when = (iso: string) => formatTimestamp(iso, timeZone);
   // Card-payment notes only where a card is, or was, asked for something: not a free order, nor one cancelled unpaid.
   const charged = order.chargeMinor > 0 && (order.state !== 'cancelled' || order.paidAt !== null);
+  // A dispute the guild lost: the payment went back to the buyer's card, and the seller's credit with it.
+  const takenBack = order.dispute?.stage === 'lost';
   return (
     <div className="space-y-6">
       {payment ? <PaymentNotice wait={payment} order={order} /> : null}
@@ -49,8 +51,8 @@ export function OrderDetails({ order, units, payment }: OrderDetailsProps) {
       {order.viewerIs === 'seller' && openProblems.length > 0 ? (
         <Alert tone="info" title="The buyer reported a problem with this order" announce={false}>
           <p>
-            The guild’s treasurer is looking into it and may ask you about it, for example for the tracking number or how the bundles were packed.
-            What the buyer wrote is for the treasurer.
+            The guild’s treasurer is looking into it and may ask you for the tracking number or how the bundles were packed. What the buyer wrote is
+            for the treasurer; please leave it to the treasurer to contact the buyer about it.
           </p>
         </Alert>
       ) : null}
@@ -100,8 +102,14 @@ export function OrderDetails({ order, units, payment }: OrderDetailsProps) {
           {order.sellerCreditMinor !== null ? (
             <MoneyRow label={order.viewerIs === 'seller' ? 'Your credit (price less fee, plus postage)' : 'Seller’s credit'} value={money(order.sellerCreditMinor)} strong />
           ) : null}
+          {takenBack ? (
+            <MoneyRow
+              label="Taken back by the buyer’s bank"
+              value={order.dispute?.amountMinor ? `− ${money(order.dispute.amountMinor)}, with the credit and the fee` : 'With the credit and the fee'}
+            />
+          ) : null}
         </dl>
-        {order.viewerIs === 'seller' && order.sellerCreditMinor !== null && order.sellerCreditMinor > 0 ? (
+        {order.viewerIs === 'seller' && order.sellerCreditMinor !== null && order.sellerCreditMinor > 0 && !takenBack ? (
           <p className="text-thread-soft">
             {order.fulfilment === 'post'
               ? 'The treasurer pays out your credit once you have marked the parcel posted; the postage part covers what you pay to post it.'

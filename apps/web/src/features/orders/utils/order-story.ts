@@ -98,11 +98,38 @@ export function postingAddressLabel(order: Pick<OrderView, 'state' | 'viewerIs' 
 }
 
 /**
+ * While the buyer's bank questions the payment, or after it took the payment back, the seller and the treasurer
+ * (the only ones shown the dispute) read that first: bundles not yet out wait for the treasurer's word.
+ */
+function disputeNextStep(order: OrderView): string | null {
+  const stage = order.dispute?.stage;
+  if (stage !== 'open' && stage !== 'lost') return null;
+  const waiting = order.state === 'confirmed';
+  const give = order.fulfilment === 'post' ? 'send them' : 'bring them to the meeting';
+  if (stage === 'open') {
+    if (!waiting) return null;
+    return order.viewerIs === 'seller'
+      ? `The buyer’s bank is questioning the payment. Keep the bundles until the treasurer tells you whether to ${give}.`
+      : `The buyer’s bank is questioning the payment. ${order.seller.name} keeps the bundles until you say whether to ${give}.`;
+  }
+  if (waiting) {
+    return order.viewerIs === 'seller'
+      ? `The buyer’s bank took the payment back. Keep the bundles until the treasurer tells you what to do with them.`
+      : `The buyer’s bank took the payment back. ${order.seller.name} keeps the bundles until you say what to do with them.`;
+  }
+  return order.viewerIs === 'seller'
+    ? 'The buyer’s bank took the payment back after the bundles went out, and your credit for this order with it.'
+    : 'The buyer’s bank took the payment back after the bundles went out.';
+}
+
+/**
  * One or two sentences for the top of the order page, from where the viewer stands:
  * the buyer, the seller (who is thanked for passing fabric on), or an officer looking in.
  */
 export function orderNextStep(order: OrderView): string {
   const { viewerIs, buyer, seller } = order;
+  const disputed = disputeNextStep(order);
+  if (disputed) return disputed;
   switch (order.state) {
     case 'awaiting_payment':
       if (viewerIs === 'buyer') return 'Waiting for your card payment.';

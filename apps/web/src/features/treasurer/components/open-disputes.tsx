@@ -25,7 +25,7 @@ export function OpenDisputes() {
   if (orders.length === 0) return null;
   return (
     <Panel title={orders.length === 1 ? 'A card payment is disputed' : `${orders.length} card payments are disputed`}>
-      <p>The buyer’s bank is deciding. The guild answers each in the card service’s own dashboard, before the date given; the ledger changes only if the guild loses.</p>
+      <p>The buyer’s bank is deciding. The guild answers each in the card service’s own dashboard, before the date given; the card service’s dispute fee is booked when a dispute opens, and the order’s own money changes only if the guild loses.</p>
       <ul className="space-y-3">
         {orders.map((order) => (
           <DisputedOrder key={order.id} order={order} />
