@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { Guild, LedgerEntry, Order, OrderDispute, type Member } from '../apps/api/src/db/models/index.ts';
+import { Bundle, Guild, LedgerEntry, Order, OrderDispute, OrderItem, type Member } from '../apps/api/src/db/models/index.ts';
 import { guildTimeZone } from '../apps/api/src/modules/guild/guild.service.ts';
 import { countRows, createMember, listenOnApiPort, signedInClient, startTestApi, type Client, type TestApi } from './support/api.ts';
 import { listAndSubmit } from './support/bundles.ts';
@@ -334,6 +334,34 @@ describe('the bank decides', () => {
     const after = await orderEntries(order.id);
     expect(after.filter(([kind]) => kind === 'dispute_fee')).toEqual(feeEntries(DISPUTE_FEE));
     expect(after.filter(([kind]) => kind === 'refund').map(([, , , reverses]) => reverses).sort()).toEqual(['charge', 'guild_fee', 'seller_credit']);
+  });
+});
+
+describe('after the bank took back the payment for bundles that never went out', () => {
+  it('lets the treasurer cancel the order, refunding nothing more, and puts the bundles back on the shelf', async () => {
+    const { order, sessionId } = await paidOrder('Held back when the bank decided');
+    await decided(await disputed(sessionId), 'lost');
+    const [item] = await OrderItem.findAll({ where: { orderId: order.id } });
+    expect((await Bundle.findByPk(item!.bundleId))!.state).toBe('rehomed');
+    const entries = await orderEntries(order.id);
+
+    // The seller waits for the treasurer's word, and the buyer's bank has the money: neither cancels.
+    expect((await sellerClient.send('post', `/api/orders/${order.id}/cancel`, {})).status).toBe(403);
+    expect((await buyerClient.send('post', `/api/orders/${order.id}/cancel`, {})).status).toBe(403);
+    expect((await treasurerClient.get(`/api/orders/${order.id}`)).body.order.abilities).toMatchObject({ cancel: true, refund: false });
+
+    const cancelled = await treasurerClient.send('post', `/api/orders/${order.id}/cancel`, { reason: 'The buyer’s bank took the payment back.' });
+    expect(cancelled.status).toBe(200);
+    const after = (await Order.findByPk(order.id))!;
+    expect(after).toMatchObject({ state: 'cancelled', refundedAt: null });
+    // The dispute already took the shares back: no refund, and no entry at all.
+    expect(await orderEntries(order.id)).toEqual(entries);
+    expect(await api.runtime.ctx.stripe.refunds.list({ payment_intent: after.stripePaymentIntentId! }).then((r) => r.data)).toEqual([]);
+    expect((await Bundle.findByPk(item!.bundleId))!.state).toBe('on_shelf');
+    const toBuyer = await waitForMail({ to: (await buyerClient.get('/api/session')).body.user.email, subjectIncludes: `Order ${order.reference} was cancelled` });
+    expect(toBuyer.text).toContain('Your bank has already returned the payment to your card, so nothing more is refunded.');
+    const toSeller = await waitForMail({ to: seller.email, subjectIncludes: `Order ${order.reference} was cancelled` });
+    expect(toSeller.text).toContain('The buyer’s bank took the payment back, so nothing is owed to you for it.');
   });
 });
 

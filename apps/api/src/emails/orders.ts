@@ -88,13 +88,21 @@ export function orderTakenAsReceivedToBuyer(p: Base & { afterDays: number }): Re
 }
 
 /** Each side is told what the cancellation means for them: the buyer's money, the seller's bundles. */
-export function orderCancelled(p: Base & { side: 'buyer' | 'seller'; refunded: string | null; reason: string | null }): RenderedEmail {
+/** `takenBack`: cancelled after the buyer's bank took the payment back in a dispute, so nothing more is refunded. */
+export function orderCancelled(p: Base & { side: 'buyer' | 'seller'; refunded: string | null; takenBack?: boolean; reason: string | null }): RenderedEmail {
+  const owed = p.refunded
+    ? `The buyer's payment of ${p.refunded} is being refunded, so nothing is owed to you for it. `
+    : p.takenBack
+      ? 'The buyer’s bank took the payment back, so nothing is owed to you for it. '
+      : '';
   const after =
     p.side === 'buyer'
       ? p.refunded
         ? `Your payment of ${p.refunded} is being refunded to your card; card refunds can take a few days to show.`
-        : 'Nothing was charged.'
-      : `${p.refunded ? `The buyer's payment of ${p.refunded} is being refunded, so nothing is owed to you for it. ` : ''}Please do not post it. The bundles are back on the shelf, unless you had withdrawn them.`;
+        : p.takenBack
+          ? 'Your bank has already returned the payment to your card, so nothing more is refunded.'
+          : 'Nothing was charged.'
+      : `${owed}Please do not post it. The bundles are back on the shelf, unless you had withdrawn them.`;
   return layout({
     guildName: p.guildName,
     subject: `Order ${p.reference} was cancelled`,

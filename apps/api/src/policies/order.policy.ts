@@ -18,6 +18,8 @@ const isMeetingKeeper = (a: Actor) => a.roles.includes('admin') || a.roles.inclu
 const PAID: OrderState[] = ['confirmed', 'posted', 'received', 'handed_over'];
 /** While a bank disputes the payment, or once it has taken it back, the card service refuses a refund. */
 const paymentDisputed = (o?: OrderRecord) => o?.dispute != null && ['open', 'lost'].includes(disputeStage(o.dispute.status));
+/** The bank took the payment back before the bundles went out: there is nothing to refund, and the order waits on the treasurer. */
+export const takenBackBeforeSent = (o?: OrderRecord) => o?.dispute != null && disputeStage(o.dispute.status) === 'lost' && o.state === 'confirmed';
 
 export const orderPolicy = {
   'order.view': (a: Actor, o?: OrderRecord) => isBuyer(a, o) || isSeller(a, o) || isTreasurer(a),
@@ -30,10 +32,12 @@ export const orderPolicy = {
   'order.markPosted': (a: Actor, o?: OrderRecord) => isSeller(a, o) && o!.fulfilment === 'post' && o!.state === 'confirmed',
   'order.markReceived': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && o!.state === 'posted',
   'order.cancel': (a: Actor, o?: OrderRecord) =>
-    !paymentDisputed(o) &&
-    (((isBuyer(a, o) || isSeller(a, o)) && (o!.state === 'awaiting_payment' || o!.state === 'confirmed')) ||
-      // The librarian cancels a meeting handover that did not happen.
-      (isMeetingKeeper(a) && o !== undefined && o.fulfilment === 'meeting' && o.state === 'confirmed')),
+    // The treasurer closes an order whose payment the buyer's bank took back before the bundles went out.
+    (isTreasurer(a) && takenBackBeforeSent(o)) ||
+    (!paymentDisputed(o) &&
+      (((isBuyer(a, o) || isSeller(a, o)) && (o!.state === 'awaiting_payment' || o!.state === 'confirmed')) ||
+        // The librarian cancels a meeting handover that did not happen.
+        (isMeetingKeeper(a) && o !== undefined && o.fulfilment === 'meeting' && o.state === 'confirmed'))),
   'order.reportProblem': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && (o!.state === 'posted' || o!.state === 'received'),
   'order.refund': (a: Actor, o?: OrderRecord) => isTreasurer(a) && o !== undefined && o.chargeMinor > 0 && PAID.includes(o.state) && !paymentDisputed(o),
   /** That the buyer's bank disputes the payment, and how it ended: the seller, whose credit it concerns, and the treasurer. */

@@ -33,6 +33,7 @@ import {
 import { emailChoicesUrl, type RenderedEmail } from '../../emails/render.ts';
 import { isUnreachable } from '../../integrations/payments.ts';
 import { authorize, type Actor } from '../../policies/index.ts';
+import { takenBackBeforeSent } from '../../policies/order.policy.ts';
 import type { AppContext } from '../../context.ts';
 import { guildTimeZone, loadGuild } from '../guild/guild.service.ts';
 import { meetingLabel } from '../../emails/format.ts';
@@ -532,7 +533,9 @@ export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string
     const order = await findOrderWithDispute(orderId, transaction);
     authorize(actor, 'order.cancel', order);
     const unpaid = order.state === 'awaiting_payment';
-    const paid = order.state === 'confirmed' && order.chargeMinor > 0;
+    // After a lost dispute the money is back with the buyer and the ledger has taken the shares back: nothing to refund.
+    const takenBack = takenBackBeforeSent(order);
+    const paid = order.state === 'confirmed' && order.chargeMinor > 0 && !takenBack;
     // Keyed by the order: asked again after a failure further down, the payment is not refunded twice.
     if (paid) await refundPayment(ctx, order);
     const now = ctx.now();
@@ -545,7 +548,7 @@ export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string
     const refunded = paid ? formatMoney(order.chargeMinor, order.currency) : null;
     // The seller hears of an order only once it is confirmed, so only then of its cancellation.
     await notifyParties(ctx, order, unpaid ? ['buyer'] : ['buyer', 'seller'], transaction, (side, name, link, titles) =>
-      orderCancelled({ guildName: guild.name, name, side, reference: order.reference, titles, link, refunded, reason: reason ?? null }),
+      orderCancelled({ guildName: guild.name, name, side, reference: order.reference, titles, link, refunded, takenBack, reason: reason ?? null }),
     );
     return { order, closePaymentPage: unpaid ? order.stripeSessionId : null };
   });

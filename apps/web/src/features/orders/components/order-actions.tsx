@@ -208,7 +208,9 @@ function CancelAction({ order }: { order: OrderView }) {
   const [problem, setProblem] = useState<string | null>(null);
   const cancel = useCancelOrder({ onSuccess: () => setOpen(false) });
   const reasonId = useId();
-  const paid = order.state === 'confirmed' && order.chargeMinor > 0;
+  // After a lost dispute the buyer's bank has returned the money already: cancelling refunds nothing more.
+  const takenBack = order.dispute?.stage === 'lost';
+  const paid = order.state === 'confirmed' && order.chargeMinor > 0 && !takenBack;
 
   const confirm = () => {
     const parsed = orderCancelSchema.safeParse({ reason: reason.trim() || undefined });
@@ -239,7 +241,9 @@ function CancelAction({ order }: { order: OrderView }) {
         <p>
           {paid
             ? `The card payment of ${formatMoney(order.chargeMinor, order.currency)} is refunded in full, and the bundles go back on the shelf.`
-            : 'Nothing has been charged. The bundles go back on the shelf.'}
+            : takenBack
+              ? 'The buyer’s bank has already returned the payment, so nothing more is refunded. The bundles go back on the shelf.'
+              : 'Nothing has been charged. The bundles go back on the shelf.'}
         </p>
         <div className="space-y-1.5">
           <label htmlFor={reasonId} className="block font-semibold">

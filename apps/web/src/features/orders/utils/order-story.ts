@@ -115,8 +115,9 @@ function disputeNextStep(order: OrderView): string | null {
   if (waiting) {
     return order.viewerIs === 'seller'
       ? `The buyer’s bank took the payment back. Keep the bundles until the treasurer tells you what to do with them.`
-      : `The buyer’s bank took the payment back. ${order.seller.name} keeps the bundles until you say what to do with them.`;
+      : `The buyer’s bank took the payment back. ${order.seller.name} keeps the bundles until you say what to do with them; cancelling the order puts them back on the shelf.`;
   }
+  if (order.state === 'cancelled') return 'Cancelled after the buyer’s bank took the payment back. The bundles are back on the shelf.';
   return order.viewerIs === 'seller'
     ? 'The buyer’s bank took the payment back after the bundles went out, and your credit for this order with it.'
     : 'The buyer’s bank took the payment back after the bundles went out.';
