@@ -70,7 +70,9 @@ function stageNote(dispute: OrderDisputeView): string {
     case 'open':
       return `While the bank decides, the order cannot be refunded or cancelled; its own money changes only if the guild loses.${fee}`;
     case 'lost':
-      return `The money went back to the buyer’s card. The ledger shows the seller’s credit and the guild’s fee for this order taken back.${fee}`;
+      return dispute.feeMinor
+        ? 'The money went back to the buyer’s card. The ledger shows the seller’s credit and the guild’s fee for this order taken back, and the card service’s dispute fee as the guild’s cost.'
+        : 'The money went back to the buyer’s card. The ledger shows the seller’s credit and the guild’s fee for this order taken back.';
     case 'won':
       return `The money stays with the guild, and the seller’s credit with it.${fee}`;
     case 'closed':
