@@ -345,7 +345,8 @@ describe('after the bank took back the payment for bundles that never went out',
     expect((await Bundle.findByPk(item!.bundleId))!.state).toBe('rehomed');
     const entries = await orderEntries(order.id);
 
-    // The seller waits for the treasurer's word, and the buyer's bank has the money: neither cancels.
+    // The seller waits for the treasurer's word, and the buyer's bank has the money: neither cancels, nor is it posted.
+    expect((await sellerClient.send('post', `/api/orders/${order.id}/posted`, {})).status).toBe(403);
     expect((await sellerClient.send('post', `/api/orders/${order.id}/cancel`, {})).status).toBe(403);
     expect((await buyerClient.send('post', `/api/orders/${order.id}/cancel`, {})).status).toBe(403);
     expect((await treasurerClient.get(`/api/orders/${order.id}`)).body.order.abilities).toMatchObject({ cancel: true, refund: false });
@@ -362,6 +363,19 @@ describe('after the bank took back the payment for bundles that never went out',
     expect(toBuyer.text).toContain('Your bank has already returned the payment to your card, so nothing more is refunded.');
     const toSeller = await waitForMail({ to: seller.email, subjectIncludes: `Order ${order.reference} was cancelled` });
     expect(toSeller.text).toContain('The buyer’s bank took the payment back, so nothing is owed to you for it.');
+  });
+});
+
+describe('after the bank took back part of the payment for bundles that never went out', () => {
+  it('leaves the rest for the treasurer to settle by hand: no cancel that would refund nothing', async () => {
+    const { order, sessionId } = await paidOrder('Half taken back');
+    const opened = await openDispute(sessionId, 'product_unacceptable', 1000);
+    await deliveredEvent('charge.dispute.created', opened.body.id);
+    await decided(opened.body.id, 'lost');
+    const view = (await treasurerClient.get(`/api/orders/${order.id}`)).body.order;
+    expect(view.abilities).toMatchObject({ cancel: false, refund: false });
+    expect((await treasurerClient.send('post', `/api/orders/${order.id}/cancel`, {})).status).toBe(403);
+    expect((await Order.findByPk(order.id))!.state).toBe('confirmed');
   });
 });
 

@@ -89,7 +89,9 @@ export function orderTakenAsReceivedToBuyer(p: Base & { afterDays: number }): Re
 
 /** Each side is told what the cancellation means for them: the buyer's money, the seller's bundles. */
 /** `takenBack`: cancelled after the buyer's bank took the payment back in a dispute, so nothing more is refunded. */
-export function orderCancelled(p: Base & { side: 'buyer' | 'seller'; refunded: string | null; takenBack?: boolean; reason: string | null }): RenderedEmail {
+export function orderCancelled(
+  p: Base & { side: 'buyer' | 'seller'; refunded: string | null; takenBack?: boolean; reason: string | null; fulfilment?: 'post' | 'meeting' },
+): RenderedEmail {
   const owed = p.refunded
     ? `The buyer's payment of ${p.refunded} is being refunded, so nothing is owed to you for it. `
     : p.takenBack
@@ -102,7 +104,7 @@ export function orderCancelled(p: Base & { side: 'buyer' | 'seller'; refunded: s
         : p.takenBack
           ? 'Your bank has already returned the payment to your card, so nothing more is refunded.'
           : 'Nothing was charged.'
-      : `${owed}Please do not post it. The bundles are back on the shelf, unless you had withdrawn them.`;
+      : `${owed}${p.fulfilment === 'meeting' ? 'Please do not bring it to the meeting.' : 'Please do not post it.'} The bundles are back on the shelf, unless you had withdrawn them.`;
   return layout({
     guildName: p.guildName,
     subject: `Order ${p.reference} was cancelled`,

@@ -8,7 +8,7 @@ type OrderRecord = {
   state: OrderState;
   fulfilment: 'post' | 'meeting';
   chargeMinor: number;
-  dispute?: { status: string } | null;
+  dispute?: { status: string; amountMinor?: number } | null;
 };
 
 const isBuyer = (a: Actor, o?: OrderRecord) => o !== undefined && o.buyerId === a.id;
@@ -18,8 +18,12 @@ const isMeetingKeeper = (a: Actor) => a.roles.includes('admin') || a.roles.inclu
 const PAID: OrderState[] = ['confirmed', 'posted', 'received', 'handed_over'];
 /** While a bank disputes the payment, or once it has taken it back, the card service refuses a refund. */
 const paymentDisputed = (o?: OrderRecord) => o?.dispute != null && ['open', 'lost'].includes(disputeStage(o.dispute.status));
-/** The bank took the payment back before the bundles went out: there is nothing to refund, and the order waits on the treasurer. */
-export const takenBackBeforeSent = (o?: OrderRecord) => o?.dispute != null && disputeStage(o.dispute.status) === 'lost' && o.state === 'confirmed';
+/**
+ * The bank took the whole payment back before the bundles went out: there is nothing to refund, and the order waits
+ * on the treasurer. (After a dispute over part of the payment, the rest is still the guild's to settle by hand.)
+ */
+export const takenBackBeforeSent = (o?: OrderRecord) =>
+  o?.dispute != null && disputeStage(o.dispute.status) === 'lost' && o.state === 'confirmed' && (o.dispute.amountMinor ?? 0) >= o.chargeMinor;
 
 export const orderPolicy = {
   'order.view': (a: Actor, o?: OrderRecord) => isBuyer(a, o) || isSeller(a, o) || isTreasurer(a),
@@ -29,7 +33,8 @@ export const orderPolicy = {
    * not cancelled or refunded. Officers never see it: the treasurer refunds and pays out without it.
    */
   'order.viewAddress': (a: Actor, o?: OrderRecord) => isBuyer(a, o) || (isSeller(a, o) && PAID.includes(o!.state)),
-  'order.markPosted': (a: Actor, o?: OrderRecord) => isSeller(a, o) && o!.fulfilment === 'post' && o!.state === 'confirmed',
+  // Not once the buyer's bank has taken the whole payment back: the treasurer decides what happens to the bundles.
+  'order.markPosted': (a: Actor, o?: OrderRecord) => isSeller(a, o) && o!.fulfilment === 'post' && o!.state === 'confirmed' && !takenBackBeforeSent(o),
   'order.markReceived': (a: Actor, o?: OrderRecord) => isBuyer(a, o) && o!.state === 'posted',
   'order.cancel': (a: Actor, o?: OrderRecord) =>
     // The treasurer closes an order whose payment the buyer's bank took back before the bundles went out.

@@ -1,12 +1,21 @@
 import { describe, expect, it } from 'vitest';
-import { disputeReasonLabel, disputeStage, disputeStatusLabel, disputeStatusRank } from './disputes.ts';
+import { disputeReasonLabel, disputeStage, disputeStatusLabel, disputeStatusRank, isFinalDisputeStatus, isOvertakenDisputeStatus } from './disputes.ts';
 import { accountBalances, disputeFeeEntries, disputeLostEntries, isBalanced, ledgerEntriesForPaidOrder, orderMoney, reversalEntries } from './money.ts';
 
 describe('dispute statuses in the order they follow, for news arriving out of order (design choice)', () => {
   it('ranks an answered dispute after one waiting for an answer, and every decision after both', () => {
-    expect(disputeStatusRank('under_review')).toBeGreaterThan(disputeStatusRank('needs_response'));
-    expect(disputeStatusRank('needs_response')).toBeGreaterThan(disputeStatusRank('warning_under_review'));
-    for (const decided of ['won', 'lost', 'warning_closed', 'prevented']) expect(disputeStatusRank(decided)).toBeGreaterThan(disputeStatusRank('appeal_under_review'));
+    expect(isOvertakenDisputeStatus('needs_response', 'under_review')).toBe(true);
+    expect(isOvertakenDisputeStatus('warning_under_review', 'needs_response')).toBe(true);
+    for (const decided of ['won', 'lost', 'prevented']) expect(isOvertakenDisputeStatus('appeal_under_review', decided)).toBe(true);
+  });
+
+  it('lets a closed inquiry become a dispute, and never takes a status it does not know for overtaken news', () => {
+    expect(isOvertakenDisputeStatus('needs_response', 'warning_closed')).toBe(false);
+    expect(isFinalDisputeStatus('warning_closed')).toBe(false);
+    expect(isFinalDisputeStatus('lost')).toBe(true);
+    expect(disputeStatusRank('a_future_status')).toBeNull();
+    expect(isOvertakenDisputeStatus('needs_response', 'a_future_status')).toBe(false);
+    expect(isOvertakenDisputeStatus('a_future_status', 'under_review')).toBe(false);
   });
 });
 

@@ -25,17 +25,28 @@ export const disputeStage = (status: string): DisputeStage => STAGES[status] ?? 
 const RANKS: Readonly<Record<string, number>> = {
   warning_needs_response: 1,
   warning_under_review: 2,
-  needs_response: 3,
-  under_review: 4,
-  appeal_needs_response: 5,
-  appeal_under_review: 6,
-  warning_closed: 7,
-  prevented: 7,
-  won: 7,
-  lost: 7,
+  // A closed inquiry may still become a dispute under the same id.
+  warning_closed: 3,
+  needs_response: 4,
+  under_review: 5,
+  appeal_needs_response: 6,
+  appeal_under_review: 7,
+  prevented: 8,
+  won: 8,
+  lost: 8,
 };
 
-export const disputeStatusRank = (status: string): number => RANKS[status] ?? 4;
+/** The rank of a known status; null for one the card service added later, which is never taken for overtaken news. */
+export const disputeStatusRank = (status: string): number | null => RANKS[status] ?? null;
+
+/** Whether news of `status` was overtaken by the recorded one: both known, and the new one further back. */
+export function isOvertakenDisputeStatus(status: string, recorded: string): boolean {
+  const [rank, recordedRank] = [disputeStatusRank(status), disputeStatusRank(recorded)];
+  return rank !== null && recordedRank !== null && rank < recordedRank;
+}
+
+/** A decision that stands: won, lost, or settled before it became a dispute. A closed inquiry can still become one. */
+export const isFinalDisputeStatus = (status: string): boolean => status === 'won' || status === 'lost' || status === 'prevented';
 
 export const DISPUTE_STATUS_LABELS: Readonly<Record<string, string>> = {
   warning_needs_response: 'Inquiry: the bank asks the guild for information',

@@ -7,8 +7,9 @@ import {
   disputeLostEntries,
   disputeReasonLabel,
   disputeStage,
-  disputeStatusRank,
   formatMoney,
+  isFinalDisputeStatus,
+  isOvertakenDisputeStatus,
   type LedgerEntry as DomainEntry,
 } from '@scrap-relay/shared';
 import { LedgerEntry, Member, Order, OrderDispute, OrderItem, type Guild } from '../../db/models/index.ts';
@@ -58,18 +59,18 @@ export async function recordDispute(ctx: AppContext, dispute: Stripe.Dispute, tr
     ctx.logger.error({ orderId: order.id, recorded: existing.stripeDisputeId, disputeId: dispute.id }, 'a second dispute on one order; nothing recorded');
     return;
   }
-  if (existing && disputeStage(existing.status) !== 'open') {
+  if (existing && isFinalDisputeStatus(existing.status)) {
     await bookDisputeFee(ctx, order, existing, dispute, transaction);
     return;
   }
-
-  if (existing && disputeStatusRank(dispute.status) < disputeStatusRank(existing.status)) {
+  if (existing && isOvertakenDisputeStatus(dispute.status, existing.status)) {
     // News overtaken by later news (a snapshot taken before the guild answered): its money still counts.
     await bookDisputeFee(ctx, order, existing, dispute, transaction);
     return;
   }
 
   const stage = disputeStage(dispute.status);
+  const before = existing ? disputeStage(existing.status) : null;
   const fields = { ...disputeFields(dispute), closedAt: stage === 'open' ? null : ctx.now() };
   const record = existing
     ? await existing.update(fields, { transaction })
@@ -84,7 +85,8 @@ export async function recordDispute(ctx: AppContext, dispute: Stripe.Dispute, tr
     ctx.queue.enqueueEmail({ to: seller.email, ...disputeForSeller({ guildName: guild.name, name: seller.name, reference: order.reference, link: mail.link, news }) }, transaction);
   const money = (minor: number) => (minor > 0 ? formatMoney(minor, order.currency) : null);
   if (stage === 'open') {
-    if (existing) return;
+    // Told once, when it opens; again only when a closed inquiry becomes a dispute.
+    if (before !== null && before !== 'closed') return;
     await tellTreasurers(ctx, transaction, await openedMail(guild, order, record, seller, money(fee.standingMinor), transaction, mail));
     await tellSeller({ stage: 'open', bag, fulfilment: order.fulfilment });
     return;

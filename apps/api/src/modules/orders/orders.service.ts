@@ -65,7 +65,7 @@ export async function findOrder(id: string, transaction?: Transaction, lock = fa
   return order;
 }
 
-/** The order locked, with the bank's dispute of its payment, for the rules that depend on one (refunding, cancelling). */
+/** The order locked, with the bank's dispute of its payment, for the rules that depend on one (refunding, cancelling, posting). */
 async function findOrderWithDispute(id: string, transaction: Transaction): Promise<Order> {
   const order = await findOrder(id, transaction, true);
   order.dispute = await OrderDispute.findOne({ where: { orderId: id }, transaction });
@@ -548,7 +548,7 @@ export async function cancelOrder(ctx: AppContext, actor: Actor, orderId: string
     const refunded = paid ? formatMoney(order.chargeMinor, order.currency) : null;
     // The seller hears of an order only once it is confirmed, so only then of its cancellation.
     await notifyParties(ctx, order, unpaid ? ['buyer'] : ['buyer', 'seller'], transaction, (side, name, link, titles) =>
-      orderCancelled({ guildName: guild.name, name, side, reference: order.reference, titles, link, refunded, takenBack, reason: reason ?? null }),
+      orderCancelled({ guildName: guild.name, name, side, reference: order.reference, titles, link, refunded, takenBack, reason: reason ?? null, fulfilment: order.fulfilment }),
     );
     return { order, closePaymentPage: unpaid ? order.stripeSessionId : null };
   });
@@ -593,7 +593,7 @@ export async function refundOrder(ctx: AppContext, actor: Actor, orderId: string
 export async function markPosted(ctx: AppContext, actor: Actor, orderId: string, trackingNumber: string | undefined): Promise<Order> {
   const guild = await loadGuild();
   return ctx.sequelize.transaction(async (transaction) => {
-    const order = await findOrder(orderId, transaction, true);
+    const order = await findOrderWithDispute(orderId, transaction);
     authorize(actor, 'order.markPosted', order);
     await order.update({ state: 'posted', postedAt: ctx.now(), trackingNumber: trackingNumber || null }, { transaction });
     const buyer = (await Member.findByPk(order.buyerId, { transaction }))!;

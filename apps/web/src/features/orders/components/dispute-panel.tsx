@@ -18,7 +18,7 @@ export function DisputePanel({ order, dispute }: { order: OrderView; dispute: Or
   return (
     <Panel title="Card payment dispute">
       <Alert tone={TONES[dispute.stage]} title={disputeStatusLabel(dispute.status)} announce={false}>
-        <p>{stageNote(dispute)}</p>
+        <p>{stageNote(order, dispute)}</p>
         {waitingNote(order, dispute) ? <p className="font-semibold">{waitingNote(order, dispute)}</p> : null}
       </Alert>
       <dl className="grid gap-x-6 sm:grid-cols-[12rem_1fr] sm:gap-y-2 max-sm:[&>dd]:mb-3">
@@ -64,8 +64,11 @@ export function DisputePanel({ order, dispute }: { order: OrderView; dispute: Or
 }
 
 /** The treasurer's note for each stage; the dispute fee is named only when the card service charged one. */
-function stageNote(dispute: OrderDisputeView): string {
+function stageNote(order: OrderView, dispute: OrderDisputeView): string {
   const fee = dispute.feeMinor ? ' The ledger holds the card service’s dispute fee as the guild’s cost.' : '';
+  if (dispute.stage === 'lost' && order.refundedAt) {
+    return `The money went back to the buyer’s card after the guild had refunded the order already: no credit was left to take back, so the guild bears it.${fee}`;
+  }
   switch (dispute.stage) {
     case 'open':
       return `While the bank decides, the order cannot be refunded or cancelled; its own money changes only if the guild loses.${fee}`;
@@ -117,7 +120,9 @@ function bundlesNote(order: OrderView, stage: OrderDisputeView['stage']): string
 }
 
 function SellerDisputeNote({ order, dispute }: { order: OrderView; dispute: OrderDisputeView }) {
-  const note = SELLER_NOTES[dispute.stage];
+  // Cancelled or refunded before the bank acted: no credit and no bundles are in play.
+  const settled = order.state === 'refunded' || (order.state === 'cancelled' && order.refundedAt !== null);
+  const note = settled ? { ...SELLER_NOTES[dispute.stage], text: 'The order was cancelled or refunded already, so nothing changes for you.' } : SELLER_NOTES[dispute.stage];
   const bundles = bundlesNote(order, dispute.stage);
   return (
     <Alert tone={dispute.stage === 'lost' ? 'warning' : 'info'} title={note.title} announce={false}>

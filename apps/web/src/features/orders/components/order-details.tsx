@@ -31,7 +31,7 @@ export function OrderDetails({ order, units, payment }: OrderDetailsProps) {
   // Card-payment notes only where a card is, or was, asked for something: not a free order, nor one cancelled unpaid.
   const charged = order.chargeMinor > 0 && (order.state !== 'cancelled' || order.paidAt !== null);
   // A dispute the guild lost: the payment went back to the buyer's card, and the seller's credit with it.
-  const takenBack = order.dispute?.stage === 'lost';
+  const takenBack = order.dispute?.stage === 'lost' && !order.refundedAt;
   return (
     <div className="space-y-6">
       {payment ? <PaymentNotice wait={payment} order={order} /> : null}

@@ -167,3 +167,20 @@ describe('a disputed payment in the timeline', () => {
     ]);
   });
 });
+
+describe('what happens next, once the buyer’s bank has acted', () => {
+  const lost = { stage: 'lost', status: null, amountMinor: null, reason: null, evidenceDueBy: null, feeMinor: null, openedAt: '2026-11-20T17:00:00.000Z', closedAt: '2026-12-10T18:00:00.000Z' } as const;
+
+  it('tells the buyer of a cancelled order that their bank returned the payment, not that nothing was charged', () => {
+    const cancelled = makeOrderView({ state: 'cancelled', viewerIs: 'buyer', paidAt: '2026-11-02T10:05:00.000Z', refundedAt: null, dispute: null });
+    expect(orderNextStep(cancelled)).toBe('Cancelled. Your bank has returned the payment to your card.');
+    expect(orderNextStep({ ...cancelled, paidAt: null })).toBe('Cancelled. Nothing was charged.');
+  });
+
+  it('keeps unsent bundles with the seller until the treasurer says, and says who bears a payment refunded twice', () => {
+    const waiting = makeOrderView({ state: 'confirmed', viewerIs: 'seller', paidAt: '2026-11-02T10:05:00.000Z', dispute: lost });
+    expect(orderNextStep(waiting)).toBe('The buyer’s bank took the payment back. Keep the bundles until the treasurer tells you what to do with them.');
+    const refundedFirst = makeOrderView({ state: 'refunded', viewerIs: 'officer', paidAt: '2026-11-02T10:05:00.000Z', refundedAt: '2026-11-05T10:00:00.000Z', dispute: lost });
+    expect(orderNextStep(refundedFirst)).toBe('The buyer’s bank took back a payment the guild had already refunded: the guild bears it.');
+  });
+});

@@ -104,6 +104,13 @@ export function postingAddressLabel(order: Pick<OrderView, 'state' | 'viewerIs' 
 function disputeNextStep(order: OrderView): string | null {
   const stage = order.dispute?.stage;
   if (stage !== 'open' && stage !== 'lost') return null;
+  if (order.refundedAt) {
+    // Refunded before the bank acted: the buyer was paid back twice, and the guild bears it.
+    if (stage === 'open') return null;
+    return order.viewerIs === 'seller'
+      ? 'The order was refunded before the buyer’s bank took the payment back: nothing changes for you.'
+      : 'The buyer’s bank took back a payment the guild had already refunded: the guild bears it.';
+  }
   const waiting = order.state === 'confirmed';
   const give = order.fulfilment === 'post' ? 'send them' : 'bring them to the meeting';
   if (stage === 'open') {
@@ -151,7 +158,12 @@ export function orderNextStep(order: OrderView): string {
       if (viewerIs === 'seller') return `Handed over to ${buyer.name} at the meeting. Thank you for passing fabric on.`;
       return viewerIs === 'buyer' ? 'Collected at the meeting. Enjoy your new fabric.' : `Handed over to ${buyer.name} at the meeting.`;
     case 'cancelled':
-      return order.refundedAt ? 'Cancelled, and the card payment was refunded in full.' : 'Cancelled. Nothing was charged.';
+      if (order.refundedAt) return 'Cancelled, and the card payment was refunded in full.';
+      // Paid, never refunded by the guild: the buyer's bank returned the payment in a dispute.
+      if (order.paidAt && order.chargeMinor > 0) {
+        return viewerIs === 'buyer' ? 'Cancelled. Your bank has returned the payment to your card.' : 'Cancelled. The buyer’s bank returned the payment.';
+      }
+      return 'Cancelled. Nothing was charged.';
     case 'refunded':
       return 'Refunded in full to the card it was paid with.';
   }
