@@ -11,7 +11,7 @@ export class OrderDispute extends Model<InferAttributes<OrderDispute>, InferCrea
   declare amountMinor: number;
   declare currency: string;
   declare evidenceDueBy: Date | null;
-  /** The card service's fee for the dispute as it stands in the ledger (0 when none was charged or it came back). */
+  /** The card service's fee for the dispute as it stands in the ledger (0 when none was charged or it came back): derived from `feeMovements`. */
   declare feeMinor: CreationOptional<number>;
   /** Every balance movement the card service reported for the dispute, by id, with its fee (see `bookDisputeFee`). */
   declare feeMovements: CreationOptional<Record<string, number>>;
@@ -30,7 +30,12 @@ export class OrderDispute extends Model<InferAttributes<OrderDispute>, InferCrea
         amountMinor: { type: DataTypes.INTEGER, allowNull: false },
         currency: { type: DataTypes.CHAR(3), allowNull: false },
         evidenceDueBy: { type: DataTypes.DATE, allowNull: true },
-        feeMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        feeMinor: {
+          type: DataTypes.VIRTUAL,
+          get(this: OrderDispute) {
+            return Object.values(this.getDataValue('feeMovements') ?? {}).reduce((sum, fee) => sum + fee, 0);
+          },
+        },
         feeMovements: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
         openedAt: { type: DataTypes.DATE, allowNull: false },
         closedAt: { type: DataTypes.DATE, allowNull: true },

@@ -135,12 +135,11 @@ async function bookDisputeFee(
   if (ours.length < movements.length) {
     ctx.logger.error({ orderId: order.id, disputeId: dispute.id, currencies: movements.map((m) => m.currency) }, 'a dispute fee in another currency than the order’s; not booked');
   }
-  const seen: Record<string, number> = { ...record.feeMovements, ...Object.fromEntries(ours.map((m) => [m.id, m.fee])) };
-  const chargedMinor = Object.values(seen).reduce((sum, fee) => sum + fee, 0);
+  await record.update({ feeMovements: { ...record.feeMovements, ...Object.fromEntries(ours.map((m) => [m.id, m.fee])) } }, { transaction });
+  const chargedMinor = record.feeMinor;
   const standing = await LedgerEntry.findAll({ where: { orderId: order.id, kind: 'dispute_fee' }, transaction });
   const entries = disputeFeeEntries({ chargedMinor, orderEntries: standing.map((e) => ({ kind: e.kind, account: e.account as DomainEntry['account'], amountMinor: e.amountMinor })) });
   await writeLedger(entries, { orderId: order.id, currency: order.currency, at: ctx.now() }, transaction);
-  await record.update({ feeMovements: seen, feeMinor: chargedMinor }, { transaction });
   return { standingMinor: chargedMinor, bookedMinor: entries.find((e) => e.account === 'processor')?.amountMinor ?? 0 };
 }
 
