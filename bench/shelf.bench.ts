@@ -2,8 +2,11 @@
  * The shelf under load: 100 000 invented bundles on the shelf, the real API in
  * its own process, signed in as a member, GET /api/bundles for several filter
  * mixes at 20 connections. Each mix is compared with a bare Express route
- * serving a page of the same size, measured in the same run, and followed by
- * PostgreSQL's plan for the statements the route sends. Ends with the API's memory.
+ * serving a page of the same size, measured in the same run. A page asked for
+ * again is served from its kept copy (apps/api/src/modules/bundles/shelf-pages.ts),
+ * so the mixes then run again on an API with kept pages turned off, each followed by
+ * PostgreSQL's plan for the statement that works a page out. The API's memory is
+ * taken after the first round.
  *
  * The machine may be shared, so every run also says how much CPU the API and
  * PostgreSQL spent per response and how many cores other programs kept busy
@@ -117,22 +120,22 @@ export async function run(ctx: BenchContext): Promise<void> {
     printAccounted(ctx, `bare Express: a page of 24 bundle-sized objects (${CONNECTIONS} connections, ${MEASURE_SECONDS} s)`, bareRun);
 
     const invalid: string[] = [];
-    const measure = async (label: string, url: string) => {
-      const result = await accounted(url, headers, apiPid, postmasterPid);
+    const measure = async (label: string, url: string, serverPid: number) => {
+      const result = await accounted(url, headers, serverPid, postmasterPid);
       printAccounted(ctx, label, result, bareRun);
       const { errors, non2xx } = result.http;
       if (errors + non2xx > 0) invalid.push(`${label}: ${errors} errors, ${non2xx} non-2xx`);
     };
 
     // Session read and touch, member and guild loaded, no shelf query: the floor under any signed-in request.
-    await measure('signed-in floor: GET /api/session', `${apiUrl}/api/session`);
+    await measure('signed-in floor: GET /api/session', `${apiUrl}/api/session`, apiPid);
 
+    // A page asked for again is served from its kept copy (shelf-pages.ts) until the shelf changes.
     for (const mix of MIXES) {
       const path = `/api/bundles${mix.query === '' ? '' : `?${mix.query}`}`;
       const page = await firstPage(`${apiUrl}${path}`, headers);
       console.log(`  ${mix.label}: GET ${path} (${page.totalCapped ? 'more than ' : ''}${page.total.toLocaleString('en')} bundles match)`);
-      await measure(`  shelf: ${mix.label}`, `${apiUrl}${path}`);
-      for (const statement of await shelfStatements(mix.query)) await explain(db, statement);
+      await measure(`  shelf: ${mix.label}`, `${apiUrl}${path}`, apiPid);
     }
 
     const after = processMemory(apiPid);
@@ -141,6 +144,21 @@ export async function run(ctx: BenchContext): Promise<void> {
       'RSS after the runs': after.rssKb / 1024,
       'peak RSS': after.peakRssKb / 1024,
     });
+    await api.stop();
+
+    // The same mixes with every page worked out afresh: what a page costs the first time it is asked for, or
+    // after each change to the shelf. The plans printed are of that statement.
+    const freshSpec = apiSpec({ ...ctx.env, PORT: String(apiPort), TRUST_PROXY: 'loopback', SHELF_PAGES_KEPT: 'false' });
+    const fresh = await startService({ ...freshSpec, name: 'api-shelf-fresh', description: 'API for the shelf benchmark, no kept pages' }, { logDir: ctx.logDir, echo: false });
+    services.push(fresh);
+    const freshPid = listeningPid(fresh.pid, apiPort);
+    console.log('  every page worked out afresh (SHELF_PAGES_KEPT=false):');
+    for (const mix of MIXES) {
+      const path = `/api/bundles${mix.query === '' ? '' : `?${mix.query}`}`;
+      await firstPage(`${apiUrl}${path}`, headers);
+      await measure(`  shelf, worked out afresh: ${mix.label}`, `${apiUrl}${path}`, freshPid);
+      for (const statement of await shelfStatements(mix.query)) await explain(db, statement);
+    }
     if (invalid.length > 0) throw new Error(`Some responses failed, so their figures measure errors, not the shelf:\n  ${invalid.join('\n  ')}`);
   } finally {
     await db.end();

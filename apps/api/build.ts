@@ -4,6 +4,7 @@
  * (writes apps/api/dist/server.js) and start it with `node apps/api/dist/server.js`.
  * Plain Node serves it, without tsx's loader thread and its compile step at boot.
  */
+import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -27,6 +28,8 @@ export async function buildApi(outFile = path.join(apiDir, 'dist', 'server.js'))
     external,
     sourcemap: true,
     logLevel: 'warning',
+    // Names this build, for what it keeps in the database in its own shape (kept shelf pages).
+    define: { 'process.env.SR_BUILD_ID': JSON.stringify(randomUUID()) },
   });
   return outFile;
 }

@@ -3,7 +3,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import compression from 'compression';
 import type pg from 'pg';
-import type { ShelfQuery } from '@scrap-relay/shared';
+import type { ShelfPage, ShelfQuery } from '@scrap-relay/shared';
 import { configurePassport } from './auth/passport.ts';
 import { sessionMiddleware } from './auth/session.ts';
 import type { AppContext } from './context.ts';
@@ -11,7 +11,7 @@ import { errorHandler, notFoundHandler, unauthenticated } from './errors/index.t
 import { csrfProtection } from './middleware/csrf.ts';
 import { requestLog } from './middleware/request-log.ts';
 import { webApp } from './middleware/web-app.ts';
-import { searchShelf } from './modules/bundles/shelf.query.ts';
+import { shelfPageBody } from './modules/bundles/shelf-pages.ts';
 import { guildRoutes } from './modules/guild/guild.routes.ts';
 import { healthRoutes } from './modules/health/health.routes.ts';
 import { membersRoutes } from './modules/members/members.routes.ts';
@@ -95,7 +95,11 @@ export function createApp(ctx: AppContext, pool: pg.Pool): Express {
   app.use('/uploads', uploads);
 
   if (ctx.config.webDist) {
-    const shelfPage = (query: ShelfQuery) => searchShelf(ctx.sequelize, ctx.storage, query);
+    // Through the kept pages: the page looked up here is then ready for the app's own request for it.
+    const shelfPage = async (query: ShelfQuery): Promise<ShelfPage> => {
+      const { body } = await shelfPageBody(ctx, query, (text) => app.get('etag fn')?.(text, 'utf8'));
+      return JSON.parse(body) as ShelfPage;
+    };
     app.use(webApp(path.resolve(ctx.config.webDist), { signedIn, shelfPage, logger: ctx.logger }));
   }
 

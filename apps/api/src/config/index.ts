@@ -22,6 +22,7 @@ const envSchema = z.object({
   UPLOAD_DIR: z.string().min(1),
   WEB_DIST: z.string().optional(),
   TRUST_PROXY: z.string().optional(),
+  SHELF_PAGES_KEPT: z.stringbool().default(true),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SIGN_IN_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
   SIGN_IN_LIMIT_PER_IP: z.coerce.number().int().min(1).default(50),
@@ -41,6 +42,8 @@ export interface Config {
   uploadDir: string;
   webDist?: string;
   trustProxy?: string;
+  /** Pages of the shelf kept in PostgreSQL and served again while current (off: every page worked out afresh). */
+  shelfPagesKept: boolean;
   logLevel: Env['LOG_LEVEL'];
   signInLimits: { perAccount: number; perIp: number; windowMs: number };
 }
@@ -70,6 +73,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     uploadDir: e.UPLOAD_DIR,
     webDist: e.WEB_DIST,
     trustProxy: e.TRUST_PROXY,
+    shelfPagesKept: e.SHELF_PAGES_KEPT,
     logLevel: e.LOG_LEVEL,
     signInLimits: {
       perAccount: e.SIGN_IN_LIMIT_PER_ACCOUNT,

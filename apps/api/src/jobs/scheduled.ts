@@ -7,6 +7,7 @@ import { autoReceive, releaseOverdueHolds, remindUnposted, runLateRefund } from 
 import { LATE_REFUND_QUEUE } from './queue.ts';
 import { lapseOffers, placeUnplacedClaims, remindOpenOffers } from '../modules/starter/starter.service.ts';
 import { sendMeetingReminders } from '../modules/handovers/handovers.service.ts';
+import { pruneShelfPages } from '../modules/bundles/shelf-pages.ts';
 
 export const EXPIRE_BUNDLES_QUEUE = 'bundles-expire';
 export const RELEASE_HOLDS_QUEUE = 'orders-release-holds';
@@ -113,6 +114,7 @@ export async function startScheduledJobs(ctx: AppContext): Promise<void> {
     ['starter-offers-remind', '*/15 * * * *', () => remindOpenOffers(ctx)],
     ['starter-claims-place', '*/15 * * * *', () => placeUnplacedClaims(ctx)],
     ['meetings-remind', '7 * * * *', () => sendMeetingReminders(ctx)],
+    ['shelf-pages-prune', '*/10 * * * *', () => pruneShelfPages(ctx.sequelize)],
   ];
   for (const [name, cron, run] of jobs) {
     await boss.createQueue(name, { name, policy: 'singleton' });

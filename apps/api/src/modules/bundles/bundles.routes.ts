@@ -10,7 +10,7 @@ import { actorOf, newQuilterStatus } from '../members/members.presenter.ts';
 import { loadGuild } from '../guild/guild.service.ts';
 import { presentBundle, sellerStats } from './bundles.presenter.ts';
 import * as bundles from './bundles.service.ts';
-import { searchShelf } from './shelf.query.ts';
+import { shelfPageBody } from './shelf-pages.ts';
 
 const idSchema = z.uuid();
 export const routeId = (value: unknown, what = 'That bundle') => {
@@ -36,7 +36,9 @@ export function bundlesRoutes(ctx: AppContext): Router {
   router.get('/bundles', async (req, res) => {
     requireMember(req);
     const query = parseInput(shelfQuerySchema, req.query);
-    res.json(await searchShelf(ctx.sequelize, ctx.storage, query));
+    const { body, etag } = await shelfPageBody(ctx, query, (text) => req.app.get('etag fn')?.(text, 'utf8'));
+    if (etag !== null) res.set('ETag', etag);
+    res.type('json').send(body);
   });
 
   router.get('/bundles/mine', async (req, res) => {

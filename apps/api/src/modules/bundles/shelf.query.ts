@@ -55,6 +55,9 @@ function whereClause(q: ShelfQuery): { sql: string; bind: unknown[] } {
 
 export const SHELF_COUNT_CAP = 1000;
 
+/** The mark of this run of the database (migration `20261206010000-shelf-pages.ts`); null while it is missing. */
+export const SHELF_RUN = `SELECT id::text || '/' || xmin::text FROM shelf_run`;
+
 /** A text search counts the page asked for and this many pages after it. */
 export const TEXT_SEARCH_PAGES_AHEAD = 4;
 
@@ -98,10 +101,12 @@ export function shelfStatement(q: ShelfQuery): NamedStatement {
       ? `page AS (SELECT ${columns} FROM bundles b ${ordered})`
       : `page_ids AS (SELECT b.id FROM bundles b ${ordered}),
      page AS (SELECT ${columns} FROM page_ids JOIN bundles b ON b.id = page_ids.id)`;
+  // The snapshot the statement reads in, the run's mark and the moment: a page kept for later is current only
+  // while no change has committed that this snapshot did not see (shelf-pages.ts).
   const text = `WITH counted AS (
-       SELECT count(*)::int AS total FROM (SELECT 1 FROM bundles b WHERE ${where.sql} LIMIT ${countLimit}) capped
+       SELECT count(*)::int AS total, pg_current_snapshot()::text AS snapshot, (${SHELF_RUN}) AS run, statement_timestamp() AS made_at FROM (SELECT 1 FROM bundles b WHERE ${where.sql} LIMIT ${countLimit}) capped
      ), ${page}
-     SELECT counted.total, b.*, photo.thumb_key, photo.medium_key
+     SELECT counted.total, counted.snapshot, counted.run, counted.made_at, b.*, photo.thumb_key, photo.medium_key
      FROM counted
      LEFT JOIN page b ON true
      LEFT JOIN LATERAL (
@@ -113,13 +118,22 @@ export function shelfStatement(q: ShelfQuery): NamedStatement {
   return { name, text, values: q.q ? [...values, shelfCountCap(q) + 1] : values };
 }
 
-export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q: ShelfQuery): Promise<ShelfPage> {
-  const rows = await runNamedStatement<ShelfRow & { total: number }>(sequelize, shelfStatement(q));
-  const total = rows[0]?.total ?? 0;
+/** A page of the shelf with the snapshot it was read in (`pg_snapshot` text), the server's start and the moment. */
+export interface ShelfPageRead {
+  page: ShelfPage;
+  /** `run` is null when the run's mark is missing (after a crash, until the next page lays one). */
+  read: { snapshot: string; run: string | null; madeAt: Date };
+}
+
+export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q: ShelfQuery): Promise<ShelfPageRead> {
+  type Row = ShelfRow & { total: number; snapshot: string; run: string | null; made_at: Date };
+  const rows = await runNamedStatement<Row>(sequelize, shelfStatement(q));
+  // The count's row is always there, with or without a bundle on it.
+  const { total, snapshot, run, made_at: madeAt } = rows[0]!;
   const cap = shelfCountCap(q);
   // With no bundle on the page, the count still comes back, on one row without a bundle.
   const bundles = rows.filter((r) => r.id !== null);
-  return {
+  const page: ShelfPage = {
     items: bundles.map((r) => ({
       id: r.id,
       title: r.title,
@@ -142,4 +156,5 @@ export async function searchShelf(sequelize: Sequelize, storage: FileStorage, q:
     total: Math.min(total, cap),
     totalCapped: total > cap,
   };
+  return { page, read: { snapshot, run, madeAt } };
 }
