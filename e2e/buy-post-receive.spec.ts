@@ -58,6 +58,12 @@ test('Gus buys Ruth’s bundle by post, Ruth posts it, Gus receives it, Tomas pa
   await expect(gus.getByRole('status').filter({ hasText: `“${title}” is in your basket` })).toBeVisible();
   // The menu's basket count (folded away behind the Menu button on a phone, so found by its address).
   await expect(gus.locator(`nav[aria-label="Main"] a[href="${paths.app.basket.getHref()}"]`)).toContainText('1 bundle');
+  // On a phone the closed Menu button carries the count too, named in full for a screen reader.
+  const menuButton = gus.getByRole('button', { name: 'Menu' });
+  if (await menuButton.isVisible()) {
+    await expect(menuButton).toHaveAccessibleName(/^Menu\s*1\s+bundle in your basket$/);
+    await screenshot(gus, 'basket-count-on-menu-button');
+  }
 
   const order = gus.getByRole('region', { name: 'From Ruth' });
   await expect(order.getByRole('link', { name: title })).toBeVisible();

@@ -16,14 +16,21 @@ export const NAV_SECTIONS = [
 
 export type NavSectionId = (typeof NAV_SECTIONS)[number]['id'];
 
+export interface NavCountProps {
+  readonly onMenuButton?: boolean;
+}
+
 export interface NavEntry {
   readonly label: string;
   readonly page: AppPage;
   readonly section: NavSectionId;
   /** One line for the home page's "where to go" list; entries without one are left off it. */
   readonly description?: string;
-  /** A live count shown beside the label (the basket's bundles). */
-  readonly Count?: ComponentType;
+  /**
+   * A live count shown beside the label (the basket's bundles), and on the phone's
+   * closed Menu button, where `onMenuButton` asks it to name what it counts in full.
+   */
+  readonly Count?: ComponentType<NavCountProps>;
 }
 
 /**

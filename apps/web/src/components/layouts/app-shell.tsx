@@ -59,6 +59,7 @@ export function AppShell({ guildName, homeHref, nav, headerEnd, children }: AppS
                   {menuOpen ? '✕' : '☰'}
                 </span>
                 Menu
+                {menuOpen ? null : nav.map((entry) => (entry.Count ? <entry.Count key={entry.page.path} onMenuButton /> : null))}
               </button>
             ) : null}
           </div>
