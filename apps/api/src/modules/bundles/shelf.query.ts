@@ -118,7 +118,7 @@ export function shelfStatement(q: ShelfQuery): NamedStatement {
   return { name, text, values: q.q ? [...values, shelfCountCap(q) + 1] : values };
 }
 
-/** A page of the shelf with the snapshot it was read in (`pg_snapshot` text), the server's start and the moment. */
+/** A page of the shelf with the snapshot it was read in (`pg_snapshot` text), the run's mark and the moment. */
 export interface ShelfPageRead {
   page: ShelfPage;
   /** `run` is null when the run's mark is missing (after a crash, until the next page lays one). */
