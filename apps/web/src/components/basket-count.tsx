@@ -11,7 +11,8 @@ export function BasketCount({ onMenuButton = false }: NavCountProps) {
   if (count === 0) return null;
   const counted = count === 1 ? 'bundle' : 'bundles';
   return (
-    <span className="ml-2 inline-flex min-w-7 items-center justify-center rounded-full bg-madder px-2 text-sm font-bold leading-6 text-white">
+    // The Menu button spaces its own contents; beside a link's label the badge keeps its distance itself.
+    <span className={`${onMenuButton ? '' : 'ml-2 '}inline-flex min-w-7 items-center justify-center rounded-full bg-madder px-2 text-sm font-bold leading-6 text-white`}>
       {count}
       <span className="sr-only">{` ${counted}${onMenuButton ? ' in your basket' : ''}`}</span>
     </span>
