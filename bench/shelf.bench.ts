@@ -37,6 +37,9 @@ const MIXES = [
   { label: 'newest, no filter, page 40', query: 'page=40' },
 ] as const;
 
+/** The address a mix asks for. */
+const mixPath = (mix: (typeof MIXES)[number]) => `/api/bundles${mix.query === '' ? '' : `?${mix.query}`}`;
+
 /** One accounted run at this benchmark's load: warm-up, then the measured part. */
 const accounted = (url: string, headers: Record<string, string>, serverPid: number, postmasterPid: number) =>
   measureAccounted(url, { connections: CONNECTIONS, durationSeconds: MEASURE_SECONDS, warmupSeconds: WARMUP_SECONDS, headers, serverPid, postmasterPid });
@@ -132,7 +135,7 @@ export async function run(ctx: BenchContext): Promise<void> {
 
     // A page asked for again is served from its kept copy (shelf-pages.ts) until the shelf changes.
     for (const mix of MIXES) {
-      const path = `/api/bundles${mix.query === '' ? '' : `?${mix.query}`}`;
+      const path = mixPath(mix);
       const page = await firstPage(`${apiUrl}${path}`, headers);
       console.log(`  ${mix.label}: GET ${path} (${page.totalCapped ? 'more than ' : ''}${page.total.toLocaleString('en')} bundles match)`);
       await measure(`  shelf: ${mix.label}`, `${apiUrl}${path}`, apiPid);
@@ -154,7 +157,7 @@ export async function run(ctx: BenchContext): Promise<void> {
     const freshPid = listeningPid(fresh.pid, apiPort);
     console.log('  every page worked out afresh (SHELF_PAGES_KEPT=false):');
     for (const mix of MIXES) {
-      const path = `/api/bundles${mix.query === '' ? '' : `?${mix.query}`}`;
+      const path = mixPath(mix);
       await firstPage(`${apiUrl}${path}`, headers);
       await measure(`  shelf, worked out afresh: ${mix.label}`, `${apiUrl}${path}`, freshPid);
       for (const statement of await shelfStatements(mix.query)) await explain(db, statement);
